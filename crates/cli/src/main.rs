@@ -1,0 +1,95 @@
+//! `framewise`: the kernel on the command line, JSON in and out (DESIGN.md §8).
+
+use framewise_formats::{report_to_json, scenario_from_json};
+use framewise_kernel::{evaluate, FieldError, Report};
+use std::io::Read;
+use std::process::ExitCode;
+
+const USAGE: &str = "usage: framewise <command> [FILE|-]
+
+commands:
+  eval FILE|-    read a scenario (JSON) and print the report as JSON
+  draw FILE|-    read a scenario and print the first bike's side view as SVG
+  help           show this text";
+
+fn read_input(path: Option<&str>) -> Result<String, String> {
+    match path {
+        None => Err(format!(
+            "missing FILE (use - for standard input)\n\n{USAGE}"
+        )),
+        Some("-") => {
+            let mut s = String::new();
+            std::io::stdin()
+                .read_to_string(&mut s)
+                .map_err(|e| format!("cannot read standard input: {e}"))?;
+            Ok(s)
+        }
+        Some(p) => std::fs::read_to_string(p).map_err(|e| format!("cannot read {p}: {e}")),
+    }
+}
+
+fn error_report(e: FieldError) -> Report {
+    Report {
+        version: framewise_kernel::report::REPORT_VERSION,
+        bikes: Vec::new(),
+        errors: vec![e],
+    }
+}
+
+fn eval_report(path: Option<&str>) -> Result<Report, String> {
+    let text = read_input(path)?;
+    Ok(match scenario_from_json(&text) {
+        Ok(s) => evaluate(&s),
+        Err(e) => error_report(e),
+    })
+}
+
+fn run(args: &[String]) -> Result<ExitCode, String> {
+    let cmd = args.first().map(String::as_str);
+    let file = args.get(1).map(String::as_str);
+    match cmd {
+        Some("eval") => {
+            let report = eval_report(file)?;
+            println!("{}", report_to_json(&report));
+            for e in &report.errors {
+                eprintln!("error: {e}");
+            }
+            Ok(if report.errors.is_empty() {
+                ExitCode::SUCCESS
+            } else {
+                ExitCode::FAILURE
+            })
+        }
+        Some("draw") => {
+            let report = eval_report(file)?;
+            for e in &report.errors {
+                eprintln!("error: {e}");
+            }
+            match (report.errors.is_empty(), report.bikes.first()) {
+                (true, Some(b)) => {
+                    println!("{}", framewise_draw::draw_bike(b));
+                    Ok(ExitCode::SUCCESS)
+                }
+                (true, None) => Err("the scenario has no bike to draw".into()),
+                _ => Ok(ExitCode::FAILURE),
+            }
+        }
+        Some("help" | "-h" | "--help") => {
+            println!("{USAGE}");
+            Ok(ExitCode::SUCCESS)
+        }
+        Some(other) => Err(format!("unknown command \"{other}\"\n\n{USAGE}")),
+        None => Err(USAGE.to_string()),
+    }
+}
+
+fn main() -> ExitCode {
+    let args: Vec<String> = std::env::args().skip(1).collect();
+    match run(&args) {
+        Ok(code) => code,
+        Err(msg) => {
+            eprintln!("framewise: {msg}");
+            ExitCode::from(2)
+        }
+    }
+}

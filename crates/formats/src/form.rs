@@ -1,0 +1,155 @@
+//! The page's form: raw typed text per field → a one-bike scenario, with a message per bad field.
+//!
+//! Field names are the scenario paths below the bike: `frame.reach_mm`, `wheels.front`,
+//! `setup.stem_mm`, `changes.front_sag_pct`, `changes.wheels.rear`, `rider.height_mm`, `label`.
+//! Blank optional fields are left out; a blank required field is an error.
+
+use crate::units::{parse_quantity, Quantity};
+use framewise_kernel::{BikeInput, FieldError, Published, RiderInput, Scenario, WheelSpec};
+use std::collections::BTreeMap;
+
+/// Frame fields that may not be blank on the page.
+pub const REQUIRED: &[&str] = &[
+    "frame.reach_mm",
+    "frame.stack_mm",
+    "frame.head_angle_deg",
+    "frame.head_tube_mm",
+    "frame.fork_a2c_mm",
+    "frame.fork_offset_mm",
+];
+
+/// Builds a scenario from the form. Errors carry the form field name in `field`.
+pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<FieldError>) {
+    let mut bike = BikeInput::default();
+    let mut rider = RiderInput::default();
+    let mut has_rider = false;
+    let mut errors = Vec::new();
+    let mut setup = serde_json::Map::new();
+    let mut changes = serde_json::Map::new();
+    for (name, text) in fields {
+        let blank = text.trim().is_empty();
+        if blank && !REQUIRED.contains(&name.as_str()) {
+            continue;
+        }
+        let (group, key) = name.split_once('.').unwrap_or(("", name.as_str()));
+        if name == "label" {
+            bike.label = text.trim().chars().take(80).collect();
+            continue;
+        }
+        if let Some(which) = name
+            .strip_prefix("wheels.")
+            .or_else(|| name.strip_prefix("changes.wheels."))
+        {
+            let spec = WheelSpec::Designation(text.trim().to_string());
+            let target = if name.starts_with("changes.") {
+                &mut bike.changes.wheels
+            } else {
+                &mut bike.wheels
+            };
+            match which {
+                "front" => target.front = Some(spec),
+                "rear" => target.rear = Some(spec),
+                _ => errors.push(unknown(name)),
+            }
+            continue;
+        }
+        let Some(q) = Quantity::from_key(key) else {
+            errors.push(unknown(name));
+            continue;
+        };
+        let v = match parse_quantity(text, q) {
+            Ok(v) => v,
+            Err(e) => {
+                errors.push(FieldError::new("bad_number", name.clone(), e.to_string()));
+                continue;
+            }
+        };
+        match group {
+            "frame" => {
+                bike.frame.insert(key.to_string(), Published::Value(v));
+            }
+            "setup" => {
+                setup.insert(key.to_string(), v.into());
+            }
+            "changes" => {
+                changes.insert(key.to_string(), v.into());
+            }
+            "rider" => {
+                has_rider = true;
+                match key {
+                    "height_mm" => rider.height_mm = Some(v),
+                    "mass_kg" => rider.mass_kg = Some(v),
+                    "inseam_mm" => rider.inseam_mm = Some(v),
+                    _ => errors.push(unknown(name)),
+                }
+            }
+            _ => errors.push(unknown(name)),
+        }
+    }
+    match serde_json::from_value(setup.into()) {
+        Ok(s) => bike.setup = s,
+        Err(e) => errors.push(FieldError::new("unknown_field", "setup", e.to_string())),
+    }
+    let wheels = bike.changes.wheels.clone();
+    match serde_json::from_value::<framewise_kernel::Changes>(changes.into()) {
+        Ok(c) => bike.changes = framewise_kernel::Changes { wheels, ..c },
+        Err(e) => errors.push(FieldError::new("unknown_field", "changes", e.to_string())),
+    }
+    let scenario = Scenario {
+        version: framewise_kernel::scenario::SCENARIO_VERSION,
+        rider: has_rider.then_some(rider),
+        bikes: vec![bike],
+        view: Default::default(),
+    };
+    (scenario, errors)
+}
+
+fn unknown(name: &str) -> FieldError {
+    FieldError::new(
+        "unknown_field",
+        name,
+        format!("\"{name}\" is not a field of this form"),
+    )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn form(pairs: &[(&str, &str)]) -> BTreeMap<String, String> {
+        pairs
+            .iter()
+            .map(|(k, v)| (k.to_string(), v.to_string()))
+            .collect()
+    }
+
+    #[test]
+    fn typed_text_becomes_a_scenario() {
+        let (s, e) = scenario_from_form(&form(&[
+            ("frame.reach_mm", "47 cm"),
+            ("frame.head_angle_deg", "64,5°"),
+            ("wheels.front", "29x2.4"),
+            ("setup.stem_mm", "45"),
+            ("changes.front_sag_pct", "20 %"),
+            ("setup.spacers_mm", ""),
+        ]));
+        let b = s.bikes.first().cloned().unwrap_or_default();
+        assert_eq!(b.frame.get("reach_mm").map(|p| p.value()), Some(470.0));
+        assert_eq!(b.frame.get("head_angle_deg").map(|p| p.value()), Some(64.5));
+        assert_eq!(b.setup.stem_mm, Some(45.0));
+        assert_eq!(b.setup.spacers_mm, None);
+        assert_eq!(b.changes.front_sag_pct, Some(20.0));
+        assert!(e.is_empty(), "{e:?}");
+    }
+
+    #[test]
+    fn bad_and_blank_required_fields_are_named() {
+        let (_, e) = scenario_from_form(&form(&[
+            ("frame.reach_mm", "long"),
+            ("frame.stack_mm", " "),
+        ]));
+        let fields: Vec<_> = e.iter().map(|e| e.field.as_str()).collect();
+        assert_eq!(fields, vec!["frame.reach_mm", "frame.stack_mm"]);
+        assert!(e.iter().all(|e| e.code == "bad_number"));
+    }
+}

@@ -1,0 +1,13 @@
+//! framewise formats: everything that turns text into a scenario and back.
+//!
+//! **Invariant:** no geometry here; parsing only. Errors name the field, the value and what is
+//! allowed.
+#![deny(missing_docs)]
+
+pub mod form;
+pub mod json;
+pub mod units;
+
+pub use form::scenario_from_form;
+pub use json::{report_to_json, scenario_from_json};
+pub use units::{parse_quantity, Quantity, UnitError};

@@ -1,0 +1,136 @@
+//! Typed errors and warnings a person can act on.
+//!
+//! Every error names the field (as a dotted JSON path such as `bikes[0].frame.reach_mm`), the value
+//! that was given and what is allowed. Validation collects every problem at once.
+
+use serde::Serialize;
+use std::fmt;
+
+/// One problem with one input field.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct FieldError {
+    /// Stable machine-readable code, e.g. `out_of_range`, `not_a_number`, `unknown_key`.
+    pub code: String,
+    /// Dotted path of the field, e.g. `bikes[0].frame.head_angle_deg`.
+    pub field: String,
+    /// One sentence naming the field, the value and what is allowed.
+    pub message: String,
+}
+
+impl FieldError {
+    /// A new error; `message` should name the value and the allowed range.
+    pub fn new(code: &str, field: impl Into<String>, message: impl Into<String>) -> Self {
+        Self {
+            code: code.to_string(),
+            field: field.into(),
+            message: message.into(),
+        }
+    }
+
+    /// The standard "must be between" message for a value outside `[min, max]`.
+    pub fn out_of_range(
+        field: &str,
+        label: &str,
+        value: f64,
+        min: f64,
+        max: f64,
+        unit: &str,
+    ) -> Self {
+        let message = if value.is_finite() {
+            format!(
+                "{label} must be between {} and {} {unit}, got {}",
+                fmt_num(min),
+                fmt_num(max),
+                fmt_num(value)
+            )
+        } else {
+            format!(
+                "{label} must be a finite number between {} and {} {unit}, got {value}",
+                fmt_num(min),
+                fmt_num(max)
+            )
+        };
+        Self::new(
+            if value.is_finite() {
+                "out_of_range"
+            } else {
+                "not_a_number"
+            },
+            field,
+            message,
+        )
+    }
+}
+
+impl fmt::Display for FieldError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{}: {}", self.field, self.message)
+    }
+}
+
+impl std::error::Error for FieldError {}
+
+/// A non-fatal observation: an implausible value, an inconsistency, a caution.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Warning {
+    /// Stable machine-readable code, e.g. `inconsistent`, `implausible`, `caution_fork_length`.
+    pub code: String,
+    /// One or two plain sentences.
+    pub message: String,
+}
+
+impl Warning {
+    /// A new warning.
+    pub fn new(code: &str, message: impl Into<String>) -> Self {
+        Self {
+            code: code.to_string(),
+            message: message.into(),
+        }
+    }
+}
+
+/// Formats a number for a message: at most two decimals, no trailing zeros.
+pub fn fmt_num(v: f64) -> String {
+    if !v.is_finite() {
+        return format!("{v}");
+    }
+    let s = format!("{v:.2}");
+    let s = s.trim_end_matches('0').trim_end_matches('.');
+    if s == "-0" {
+        "0".to_string()
+    } else {
+        s.to_string()
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn out_of_range_message_names_field_value_and_range() {
+        let e = FieldError::out_of_range(
+            "frame.head_angle_deg",
+            "head tube angle",
+            95.0,
+            45.0,
+            85.0,
+            "°",
+        );
+        assert_eq!(e.code, "out_of_range");
+        assert_eq!(
+            e.message,
+            "head tube angle must be between 45 and 85 °, got 95"
+        );
+        let e = FieldError::out_of_range("x", "reach", f64::NAN, 0.0, 1.0, "mm");
+        assert_eq!(e.code, "not_a_number");
+        assert!(e.message.contains("NaN"));
+    }
+
+    #[test]
+    fn numbers_are_trimmed() {
+        assert_eq!(fmt_num(65.0), "65");
+        assert_eq!(fmt_num(64.25), "64.25");
+        assert_eq!(fmt_num(-0.001), "0");
+    }
+}

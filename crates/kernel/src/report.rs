@@ -1,0 +1,83 @@
+//! The report: everything the kernel computes for a scenario (DESIGN.md §8).
+//!
+//! **Invariant:** every `f64` in a report is finite; [`crate::evaluate`] drops a bike's numbers
+//! and reports an error rather than let a NaN or infinity through.
+
+use crate::error::{FieldError, Warning};
+use crate::solve::Residual;
+use serde::Serialize;
+use std::collections::BTreeMap;
+
+/// The report format version.
+pub const REPORT_VERSION: u32 = 1;
+
+/// The whole report.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Report {
+    /// Format version; 1.
+    pub version: u32,
+    /// One entry per bike that could be evaluated.
+    pub bikes: Vec<BikeReport>,
+    /// Every bad input, each naming its field.
+    pub errors: Vec<FieldError>,
+}
+
+/// Named numbers, keyed with their unit suffix.
+pub type Numbers = BTreeMap<String, f64>;
+
+/// Everything about one bike.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct BikeReport {
+    /// The bike's label.
+    pub label: String,
+    /// Per published value: given, solved, residual, consistent.
+    pub residuals: BTreeMap<String, Residual>,
+    /// Measurements that would fix an unknown nothing determines.
+    pub missing: Vec<String>,
+    /// Every §5 number, solved, stock pose.
+    pub stock: Numbers,
+    /// The §5 numbers after changes and sag, plus cockpit numbers.
+    pub ridden: Numbers,
+    /// Per change, its effect on each ridden number (ridden with only that change − stock).
+    pub effects: BTreeMap<String, Numbers>,
+    /// Derived steering numbers (mechanical trail, wheel flop, ISO 4210-2 Annex A window).
+    pub derived: Numbers,
+    /// Assumptions, inconsistencies, cautions.
+    pub warnings: Vec<Warning>,
+    /// Points for the drawing, in ridden axes (BB at the origin, y up, mm).
+    pub outline: Outline,
+    /// The stock frame's points, for the ghost behind the ridden one (stock axes, BB at origin).
+    pub stock_outline: Outline,
+}
+
+/// A point as `[x, y]` in millimetres.
+pub type Xy = [f64; 2];
+
+/// The points the drawing needs. Only the kernel computes them; the drawing only draws them.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct Outline {
+    /// Ground height (negative: below the BB).
+    pub ground_y: f64,
+    /// Rear axle centre.
+    pub rear_axle: Xy,
+    /// Front axle centre.
+    pub front_axle: Xy,
+    /// Rear tyre outer radius.
+    pub rear_radius: f64,
+    /// Front tyre outer radius.
+    pub front_radius: f64,
+    /// Rim (bead seat) radius, rear; 0 when unknown.
+    pub rear_rim_radius: f64,
+    /// Rim (bead seat) radius, front; 0 when unknown.
+    pub front_rim_radius: f64,
+    /// Head tube top (frame's own).
+    pub head_top: Xy,
+    /// Head tube bottom.
+    pub head_bottom: Xy,
+    /// Crown race seat.
+    pub crown: Xy,
+    /// Top of the seat tube.
+    pub seat_top: Xy,
+    /// Where the steering axis meets the ground.
+    pub steer_ground: Xy,
+}

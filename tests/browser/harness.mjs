@@ -1,0 +1,42 @@
+// Shared set-up for the browser tests: a static server on a free port and headless Chromium
+// (Debian's /usr/bin/chromium driven by playwright-core). Page errors and console errors fail
+// the test that caused them.
+import { chromium } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { startServer } from '../../scripts/serve.mjs';
+
+export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
+export const SHOTS = `${ROOT}target/screenshots`;
+
+export const CHROMIUM_ARGS = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-quic',
+  '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+
+export async function startAll() {
+  const server = await startServer({ root: `${ROOT}web`, port: 0 });
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
+  const base = `http://127.0.0.1:${server.address().port}/`;
+  mkdirSync(SHOTS, { recursive: true });
+  return {
+    base,
+    browser,
+    async stop() {
+      await browser.close();
+      await new Promise((ok) => server.close(ok));
+    },
+  };
+}
+
+/** Opens the page at the given viewport; returns the page and the list of problems it logged. */
+export async function openPage(env, { width = 1280, height = 800, hash = '' } = {}) {
+  const context = await env.browser.newContext({ viewport: { width, height } });
+  const page = await context.newPage();
+  const problems = [];
+  page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+  page.on('console', (m) => { if (m.type() === 'error') problems.push(`console error: ${m.text()}`); });
+  await page.goto(env.base + hash);
+  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  return { page, context, problems };
+}
