@@ -21,8 +21,7 @@ pub const REQUIRED: &[&str] = &[
 /// Builds a scenario from the form. Errors carry the form field name in `field`.
 pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<FieldError>) {
     let mut bike = BikeInput::default();
-    let mut rider = RiderInput::default();
-    let mut has_rider = false;
+    let mut rider = serde_json::Map::new();
     let mut errors = Vec::new();
     let mut setup = serde_json::Map::new();
     let mut changes = serde_json::Map::new();
@@ -75,13 +74,7 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
                 changes.insert(key.to_string(), v.into());
             }
             "rider" => {
-                has_rider = true;
-                match key {
-                    "height_mm" => rider.height_mm = Some(v),
-                    "mass_kg" => rider.mass_kg = Some(v),
-                    "inseam_mm" => rider.inseam_mm = Some(v),
-                    _ => errors.push(unknown(name)),
-                }
+                rider.insert(key.to_string(), v.into());
             }
             _ => errors.push(unknown(name)),
         }
@@ -95,9 +88,17 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
         Ok(c) => bike.changes = framewise_kernel::Changes { wheels, ..c },
         Err(e) => errors.push(FieldError::new("unknown_field", "changes", e.to_string())),
     }
+    let has_rider = !rider.is_empty();
+    let rider: Option<RiderInput> = match serde_json::from_value(rider.into()) {
+        Ok(r) => has_rider.then_some(r),
+        Err(e) => {
+            errors.push(FieldError::new("unknown_field", "rider", e.to_string()));
+            None
+        }
+    };
     let scenario = Scenario {
         version: framewise_kernel::scenario::SCENARIO_VERSION,
-        rider: has_rider.then_some(rider),
+        rider,
         bikes: vec![bike],
         view: Default::default(),
     };

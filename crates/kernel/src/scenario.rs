@@ -77,6 +77,30 @@ pub struct RiderInput {
     /// Inseam (floor to crotch, barefoot), mm.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub inseam_mm: Option<f64>,
+    /// Arm length, shoulder joint to the grip centre of a closed fist, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub arm_mm: Option<f64>,
+    /// Torso length, greater trochanter (hip joint) to shoulder joint, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub torso_mm: Option<f64>,
+    /// Sole thickness plus pedal/cleat stack: pedal spindle to the ball of the foot, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub shoe_stack_mm: Option<f64>,
+    /// Ball of the foot ahead of the pedal spindle, mm (negative = behind).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub foot_position_mm: Option<f64>,
+    /// Seated: elbow bend assumed, degrees from straight.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub elbow_bend_deg: Option<f64>,
+    /// Standing: knee bend, degrees from straight.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub standing_knee_bend_deg: Option<f64>,
+    /// Braking deceleration for the front-load check, in g.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub braking_g: Option<f64>,
+    /// Slope for the braking-on-a-slope check, degrees (positive = uphill, negative = downhill).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub slope_deg: Option<f64>,
 }
 
 /// Front and rear wheel sizes.
@@ -143,6 +167,69 @@ pub struct Setup {
     /// Bar pullback (grip centre behind the clamp), mm.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub bar_pullback_mm: Option<f64>,
+    /// `"flat"` (flat or riser bar, the default) or `"drop"`.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_type: Option<String>,
+    /// Flat bar backsweep, degrees.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_backsweep_deg: Option<f64>,
+    /// Flat bar upsweep, degrees.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_upsweep_deg: Option<f64>,
+    /// Bar width, end to end, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_width_mm: Option<f64>,
+    /// Bar roll about the clamp, degrees (positive = rolled back/up).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_roll_deg: Option<f64>,
+    /// Drop bar reach: clamp centre to the furthest forward point of the bend, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_reach_mm: Option<f64>,
+    /// Drop bar drop: clamp centre down to the centre of the drops, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bar_drop_mm: Option<f64>,
+    /// Drop bar: clamp centre forward to where the hand holds the hoods, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub hood_reach_mm: Option<f64>,
+    /// Drop bar: hood hand point below the clamp centre, mm (negative = above).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub hood_drop_mm: Option<f64>,
+    /// Drop bar hand position used for the fit: `"hoods"` (default), `"drops"` or `"tops"`.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub hand_position: Option<String>,
+    /// The fork maker's maximum spacer stack under the stem, mm (default 40).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub spacer_limit_mm: Option<f64>,
+    /// Saddle setback: saddle reference point behind the seat axis, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub saddle_setback_mm: Option<f64>,
+    /// Seatpost head offset (setback) of the clamp behind the post axis, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub post_offset_mm: Option<f64>,
+    /// Height of the saddle top above the seatpost's clamp, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub saddle_stack_mm: Option<f64>,
+    /// Frame: deepest a seatpost can go below the top of the seat tube, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub max_insertion_mm: Option<f64>,
+    /// Seatpost total length, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub post_length_mm: Option<f64>,
+    /// Seatpost minimum insertion (mark), mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub post_min_insertion_mm: Option<f64>,
+    /// Dropper post travel, mm (0 or absent = rigid post).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub dropper_travel_mm: Option<f64>,
+    /// Bike mass, kg.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bike_mass_kg: Option<f64>,
+    /// Bike centre of mass ahead of the BB, mm (ridden axes).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bike_com_x_mm: Option<f64>,
+    /// Bike centre of mass above the BB, mm (ridden axes).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bike_com_y_mm: Option<f64>,
     /// Crank length, mm.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub crank_mm: Option<f64>,
@@ -215,4 +302,10 @@ pub struct View {
     /// Dimension labels shown.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub dimensions: Option<bool>,
+    /// The stock frame drawn as a ghost behind the ridden one.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ghost: Option<bool>,
+    /// Index of the bike shown first / selected.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub selected: Option<u32>,
 }
