@@ -130,6 +130,15 @@ mod tests {
             crown: [521.0, 514.0],
             seat_top: [-100.0, 420.0],
             steer_ground: [840.0, -340.0],
+            rear_contact: [-435.0, -340.0],
+            front_contact: [800.0, -340.0],
+            cockpit: None,
+            seat: None,
+            cranks: None,
+            rider_seated: None,
+            rider_standing: None,
+            com_seated: None,
+            com_standing: None,
         }
     }
 

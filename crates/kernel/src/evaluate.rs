@@ -426,6 +426,15 @@ fn outline(g: &Geometry, front: Wheel, rear: Wheel) -> Outline {
         crown: xy(g.crown),
         seat_top: xy(g.seat_top),
         steer_ground: xy(g.steer_ground_point().unwrap_or(g.front_axle)),
+        rear_contact: [g.rear_axle.x, g.ground_y()],
+        front_contact: [g.front_axle.x, g.ground_y()],
+        cockpit: None,
+        seat: None,
+        cranks: None,
+        rider_seated: None,
+        rider_standing: None,
+        com_seated: None,
+        com_standing: None,
     }
 }
 

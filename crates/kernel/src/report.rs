@@ -80,4 +80,104 @@ pub struct Outline {
     pub seat_top: Xy,
     /// Where the steering axis meets the ground.
     pub steer_ground: Xy,
+    /// Rear tyre contact point on the ground.
+    pub rear_contact: Xy,
+    /// Front tyre contact point on the ground.
+    pub front_contact: Xy,
+    /// Cockpit points, when the setup gives a stem.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub cockpit: Option<CockpitOutline>,
+    /// Saddle and seatpost points, when the setup gives a saddle height.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub seat: Option<SeatOutline>,
+    /// Crank and pedal points (the near crank forward-horizontal, the far one rearward).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub cranks: Option<CrankOutline>,
+    /// The rider seated, when a rider is given and the position is reachable.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub rider_seated: Option<RiderFigure>,
+    /// The rider standing, when a rider is given and the position is reachable.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub rider_standing: Option<RiderFigure>,
+    /// Rider + bike centre of mass, seated.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub com_seated: Option<Xy>,
+    /// Rider + bike centre of mass, standing.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub com_standing: Option<Xy>,
+}
+
+/// Steerer, spacers, stem and bar.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct CockpitOutline {
+    /// Top of the upper headset stack (bottom of the spacers).
+    pub headset_top: Xy,
+    /// Top of the spacers (bottom of the stem clamp).
+    pub spacers_top: Xy,
+    /// Stem clamp centre on the steerer.
+    pub stem_clamp: Xy,
+    /// Top of the steerer / stem clamp.
+    pub steerer_top: Xy,
+    /// Bar clamp centre (stem end).
+    pub bar_clamp: Xy,
+    /// Grip centre (hand point used for the fit; hoods or drops on a drop bar).
+    pub grip: Xy,
+}
+
+/// Seatpost and saddle.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct SeatOutline {
+    /// Where the post leaves the frame (top of the seat tube).
+    pub post_exit: Xy,
+    /// Seatpost clamp (rails).
+    pub post_top: Xy,
+    /// Saddle reference point (top, at the rider's sit point).
+    pub saddle: Xy,
+    /// Saddle nose.
+    pub saddle_nose: Xy,
+    /// Saddle tail.
+    pub saddle_tail: Xy,
+}
+
+/// Cranks and pedal spindles.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct CrankOutline {
+    /// Near pedal spindle.
+    pub pedal_near: Xy,
+    /// Far pedal spindle.
+    pub pedal_far: Xy,
+}
+
+/// A planar stick figure of the rider, kernel coordinates.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct RiderFigure {
+    /// Head centre.
+    pub head: Xy,
+    /// Head radius, mm.
+    pub head_radius: f64,
+    /// Shoulder joint.
+    pub shoulder: Xy,
+    /// Elbow.
+    pub elbow: Xy,
+    /// Hand (on the grip).
+    pub hand: Xy,
+    /// Hip joint.
+    pub hip: Xy,
+    /// Near and far leg.
+    pub legs: [Leg; 2],
+}
+
+/// One leg of the figure.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct Leg {
+    /// Knee.
+    pub knee: Xy,
+    /// Ankle.
+    pub ankle: Xy,
+    /// Ball of the foot (over the pedal).
+    pub ball: Xy,
+    /// Heel.
+    pub heel: Xy,
+    /// Toe tip.
+    pub toe: Xy,
 }
