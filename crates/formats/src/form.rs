@@ -4,6 +4,7 @@
 //! `setup.stem_mm`, `changes.front_sag_pct`, `changes.wheels.rear`, `rider.height_mm`, `label`.
 //! Blank optional fields are left out; a blank required field is an error.
 
+use crate::fields::{field, Kind};
 use crate::units::{parse_quantity, Quantity};
 use framewise_kernel::{BikeInput, FieldError, Published, RiderInput, Scenario, WheelSpec};
 use std::collections::BTreeMap;
@@ -52,16 +53,14 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
             }
             continue;
         }
-        let Some(q) = Quantity::from_key(key) else {
-            errors.push(unknown(name));
-            continue;
-        };
-        let v = match parse_quantity(text, q) {
-            Ok(v) => v,
-            Err(e) => {
-                errors.push(FieldError::new("bad_number", name.clone(), e.to_string()));
-                continue;
+        if field(name).is_some_and(|f| f.kind == Kind::Choice) {
+            if let Some(word) = choice(name, text, &mut errors) {
+                setup.insert(key.to_string(), word.into());
             }
+            continue;
+        }
+        let Some(v) = number(name, key, text, &mut errors) else {
+            continue;
         };
         match group {
             "frame" => {
@@ -103,6 +102,52 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
         view: Default::default(),
     };
     (scenario, errors)
+}
+
+/// A word-valued field (`setup.bar_type`, `setup.hand_position`): `Some(word)` when the field is
+/// one and the word is allowed; an error naming the allowed words otherwise.
+fn choice(name: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<String> {
+    let f = field(name).filter(|f| f.kind == Kind::Choice)?;
+    let word = text.trim().to_lowercase();
+    if f.choices.contains(&word.as_str()) {
+        return Some(word);
+    }
+    errors.push(FieldError::new(
+        "bad_choice",
+        name,
+        format!(
+            "{} must be one of {}, got \"{}\"",
+            f.label,
+            f.choices.join(", "),
+            text.trim()
+        ),
+    ));
+    None
+}
+
+/// A numeric field: its unit suffix says how to read it (`_g` is a plain number).
+fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<f64> {
+    if key.ends_with("_g") {
+        let v = crate::units::parse_number(text.trim().trim_end_matches('g'));
+        if v.is_none() {
+            errors.push(FieldError::new(
+                "bad_number",
+                name,
+                format!(
+                    "\"{}\" is not a number: enter a multiple of g such as 0.8",
+                    text.trim()
+                ),
+            ));
+        }
+        return v;
+    }
+    let Some(q) = Quantity::from_key(key) else {
+        errors.push(unknown(name));
+        return None;
+    };
+    parse_quantity(text, q)
+        .map_err(|e| errors.push(FieldError::new("bad_number", name, e.to_string())))
+        .ok()
 }
 
 fn unknown(name: &str) -> FieldError {
@@ -152,5 +197,25 @@ mod tests {
         let fields: Vec<_> = e.iter().map(|e| e.field.as_str()).collect();
         assert_eq!(fields, vec!["frame.reach_mm", "frame.stack_mm"]);
         assert!(e.iter().all(|e| e.code == "bad_number"));
+    }
+
+    #[test]
+    fn words_and_g_fields_are_read() {
+        let (s, e) = scenario_from_form(&form(&[
+            ("setup.bar_type", "Drop"),
+            ("setup.hand_position", "drops"),
+            ("rider.braking_g", "0,8"),
+        ]));
+        let b = s.bikes.first().cloned().unwrap_or_default();
+        assert_eq!(b.setup.bar_type.as_deref(), Some("drop"));
+        assert_eq!(b.setup.hand_position.as_deref(), Some("drops"));
+        assert_eq!(s.rider.and_then(|r| r.braking_g), Some(0.8));
+        assert!(e.is_empty(), "{e:?}");
+        let (_, e) = scenario_from_form(&form(&[("setup.bar_type", "bullhorn")]));
+        assert_eq!(e.len(), 1);
+        assert_eq!(
+            e[0].message,
+            "Bar type must be one of flat, drop, got \"bullhorn\""
+        );
     }
 }

@@ -4,10 +4,12 @@
 //! allowed.
 #![deny(missing_docs)]
 
+pub mod fields;
 pub mod form;
 pub mod json;
 pub mod units;
 
+pub use fields::{page_words, PageWords};
 pub use form::scenario_from_form;
 pub use json::{report_to_json, scenario_from_json};
 pub use units::{parse_quantity, Quantity, UnitError};

@@ -12,7 +12,7 @@ use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
 use crate::solve::{solve, Given};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
-use nalgebra::Point2;
+use nalgebra::{Point2, Vector2};
 use std::collections::BTreeMap;
 
 /// The wheel assumed when none is given (with a warning).
@@ -424,6 +424,7 @@ fn outline(g: &Geometry, front: Wheel, rear: Wheel) -> Outline {
         head_top: xy(g.head_top),
         head_bottom: xy(g.head_bottom),
         crown: xy(g.crown),
+        fork_leg_top: xy(g.crown + Vector2::new(-g.steer_down.y, g.steer_down.x) * g.lengths.offset),
         seat_top: xy(g.seat_top),
         steer_ground: xy(g.steer_ground_point().unwrap_or(g.front_axle)),
         rear_contact: [g.rear_axle.x, g.ground_y()],

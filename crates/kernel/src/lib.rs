@@ -9,6 +9,7 @@ pub mod catalogue;
 pub mod error;
 pub mod evaluate;
 pub mod geometry;
+pub mod glossary;
 pub mod pose;
 pub mod report;
 pub mod scenario;

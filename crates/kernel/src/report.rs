@@ -76,6 +76,9 @@ pub struct Outline {
     pub head_bottom: Xy,
     /// Crown race seat.
     pub crown: Xy,
+    /// Top of the fork leg: the crown race seat moved forward by the fork offset, normal to the
+    /// steering axis; the leg runs parallel to the axis from here to the front axle.
+    pub fork_leg_top: Xy,
     /// Top of the seat tube.
     pub seat_top: Xy,
     /// Where the steering axis meets the ground.

@@ -23,6 +23,13 @@ pub fn catalogue_json() -> String {
     framewise_web_core::catalogue_json()
 }
 
+/// The page's words: input groups and fields (labels, units, demo values, definitions) and the
+/// definitions of the report's other numbers, as JSON text.
+#[wasm_bindgen]
+pub fn page_words_json() -> String {
+    framewise_web_core::page_words_json()
+}
+
 /// Native-testable core of the binding: pure functions from text to text.
 pub mod framewise_web_core {
     use framewise_formats::scenario_from_json;
@@ -108,17 +115,47 @@ pub mod framewise_web_core {
                 field_errors.push(e);
             }
         }
-        let svg = if field_errors.is_empty() {
-            report.bikes.first().map(framewise_draw::draw_bike)
-        } else {
-            None
-        };
-        serde_json::to_string(&FormResult {
+        let mut out = serde_json::to_value(FormResult {
             report: &report,
-            svg,
-            field_errors,
+            svg: None,
+            field_errors: Vec::new(),
         })
-        .unwrap_or_else(|_| "{}".into())
+        .unwrap_or_default();
+        if let (true, Some(bike)) = (field_errors.is_empty(), report.bikes.first()) {
+            let limits = |posture: &str| limits(&out, posture);
+            let svg = framewise_draw::draw(&framewise_draw::Scene {
+                label: &bike.label,
+                ridden: &bike.outline,
+                stock: &bike.stock_outline,
+                numbers: &bike.ridden,
+                seated: limits("seated"),
+                standing: limits("standing"),
+            });
+            out["svg"] = svg.into();
+            out["notes"] = serde_json::to_value(framewise_formats::fields::residual_notes(bike))
+                .unwrap_or_default();
+        }
+        out["field_errors"] = serde_json::to_value(field_errors).unwrap_or_default();
+        out.to_string()
+    }
+
+    /// The handling limits of one posture from the report (`handling.<posture>`), when the
+    /// kernel gives them.
+    fn limits(out: &serde_json::Value, posture: &str) -> framewise_draw::Limits {
+        let get = |key: &str| {
+            out.pointer(&format!("/report/bikes/0/handling/{posture}/{key}"))
+                .and_then(serde_json::Value::as_f64)
+        };
+        framewise_draw::Limits {
+            braking_g: get("pitch_over_decel_g"),
+            descent_deg: get("front_tip_slope_deg"),
+            climb_deg: get("rear_tip_slope_deg"),
+        }
+    }
+
+    /// The page's words as JSON text (see [`framewise_formats::PageWords`]).
+    pub fn page_words_json() -> String {
+        serde_json::to_string(&framewise_formats::page_words()).unwrap_or_else(|_| "{}".into())
     }
 
     /// The catalogue as JSON text.
