@@ -78,10 +78,10 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Group {
         g,
         [c, ty],
         [s, ty],
-        [s + 20.0, ty - 40.0],
+        [(c + s) / 2.0, gy - OFF - 50.0],
         "trail_mm",
         n,
-        "start",
+        "middle",
     );
     if let Some(ck) = &o.cockpit {
         let m = mid([0.0, 0.0], ck.grip);

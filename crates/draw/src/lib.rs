@@ -97,8 +97,8 @@ pub fn draw(scene: &Scene) -> String {
     let pad = 80.0;
     let min_x = x0.min(gx0) - pad;
     let max_x = x1.max(gx1) + pad;
-    let top = y1.max(gy1) + pad;
-    let bottom = y0.min(gy0) - pad * 1.6;
+    let top = y1.max(gy1) + pad * 1.8;
+    let bottom = y0.min(gy0) - pad * 2.0;
     let title = format!("Side view of {}", scene.label);
     let ground = line([min_x, o.ground_y], [max_x, o.ground_y], "ground");
     let mut doc = Document::new()

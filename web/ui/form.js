@@ -1,0 +1,103 @@
+// The input form, built from the page's words (crates/formats/src/fields.rs): one fieldset per
+// group, the common fields shown, the rest under a "more" disclosure. Reads the typed text and
+// places each error message beside its field.
+
+function el(tag, props = {}, ...children) {
+  const node = document.createElement(tag);
+  for (const [k, v] of Object.entries(props)) {
+    if (k === 'class') node.className = v;
+    else if (k in node && k !== 'list') node[k] = v;
+    else node.setAttribute(k, v);
+  }
+  node.append(...children);
+  return node;
+}
+
+function idFor(name) {
+  return `f-${name.replace(/[^a-z0-9]+/gi, '-')}`;
+}
+
+function control(f, id) {
+  if (f.kind === 'choice') {
+    const select = el('select', { id, name: f.name });
+    for (const c of f.choices) select.append(el('option', { value: c, selected: c === f.demo }, c));
+    return select;
+  }
+  const numeric = !['text', 'wheel'].includes(f.kind);
+  return el('input', {
+    id, name: f.name, value: f.demo, autocomplete: 'off', autocapitalize: 'off',
+    spellcheck: false, inputMode: numeric ? 'decimal' : 'text',
+    class: f.kind === 'text' ? 'wide' : '',
+  });
+}
+
+function fieldRow(f) {
+  const id = idFor(f.name);
+  const input = control(f, id);
+  input.setAttribute('aria-describedby', `${id}-def`);
+  return el('div', { class: `field kind-${f.kind}` },
+    el('label', { htmlFor: id }, f.label),
+    input,
+    el('span', { class: 'unit', 'aria-hidden': 'true' }, f.unit),
+    el('p', { class: 'def', id: `${id}-def` }, f.definition),
+    el('p', { class: 'msg', id: `${id}-msg`, role: 'alert' }));
+}
+
+/** Fills the form element from the words' groups and fields. */
+export function buildForm(form, words) {
+  for (const g of words.groups) {
+    const fields = words.fields.filter((f) => f.group === g.id);
+    const common = fields.filter((f) => f.common).map(fieldRow);
+    const rest = fields.filter((f) => !f.common).map(fieldRow);
+    const set = el('fieldset', { class: `card group group-${g.id}` },
+      el('legend', {}, g.title), el('p', { class: 'group-hint' }, g.hint), ...common);
+    if (rest.length) {
+      set.append(el('details', { class: 'more' },
+        el('summary', {}, `More ${g.title.toLowerCase()} (${rest.length})`), ...rest));
+    }
+    form.append(set);
+  }
+}
+
+/** `{ field name: typed text }` for every named control. */
+export function readForm(form) {
+  const fields = {};
+  for (const c of form.elements) if (c.name) fields[c.name] = c.value;
+  return fields;
+}
+
+function msgFor(control) {
+  return document.getElementById(`${control.id}-msg`);
+}
+
+/** Clears every message and invalid mark. */
+export function clearMessages(form) {
+  for (const c of form.querySelectorAll('[aria-invalid="true"]')) {
+    c.removeAttribute('aria-invalid');
+    c.setAttribute('aria-describedby', `${c.id}-def`);
+    const m = msgFor(c);
+    if (m) m.textContent = '';
+  }
+}
+
+/** Puts each error beside its field; returns the messages that have no field on the form. */
+export function showErrors(form, errors) {
+  const unplaced = [];
+  for (const e of errors) {
+    const c = form.elements.namedItem(e.field);
+    const m = c && msgFor(c);
+    if (!m) { unplaced.push(e.message); continue; }
+    m.textContent = e.message;
+    c.setAttribute('aria-invalid', 'true');
+    c.setAttribute('aria-describedby', `${m.id} ${c.id}-def`);
+    const more = c.closest('details');
+    if (more) more.open = true;
+  }
+  return unplaced;
+}
+
+/** Sets a field's text (used by the chart paste box). */
+export function setField(form, name, text) {
+  const c = form.elements.namedItem(name);
+  if (c) c.value = text;
+}

@@ -1,0 +1,97 @@
+// Pinch, wheel and drag zoom and pan on the drawing, by changing the SVG viewBox. The drawing
+// arrives fitted to the bike; once the person zooms, the chosen view is kept across redraws
+// until "Fit" is pressed.
+
+export function attachZoom(container, fitButton) {
+  let view = null; // [x, y, w, h] chosen by the person, or null = the drawing's own fit
+  const pointers = new Map();
+  let last = null; // previous gesture state: { cx, cy, dist }
+
+  const svg = () => container.querySelector('svg');
+  const current = () => view ?? svg()?.getAttribute('viewBox')?.split(/[ ,]+/).map(Number);
+
+  function apply() {
+    const s = svg();
+    if (!s || !view) return;
+    if (!s.dataset.fit) s.dataset.fit = s.getAttribute('viewBox');
+    s.setAttribute('viewBox', view.map((v) => v.toFixed(1)).join(' '));
+  }
+
+  function fit() {
+    view = null;
+    const s = svg();
+    if (s?.dataset.fit) s.setAttribute('viewBox', s.dataset.fit);
+  }
+
+  // Screen point → drawing units, for the current viewBox and the element's box.
+  function toDrawing(px, py) {
+    const s = svg();
+    const v = current();
+    if (!s || !v) return null;
+    const m = s.getScreenCTM();
+    if (!m) return null;
+    const p = new DOMPoint(px, py).matrixTransform(m.inverse());
+    return [p.x, p.y, v];
+  }
+
+  function zoomAt(px, py, factor) {
+    const hit = toDrawing(px, py);
+    if (!hit) return;
+    const [x, y, v] = hit;
+    const w = Math.min(Math.max(v[2] / factor, 150), 20000);
+    const k = w / v[2];
+    view = [x - (x - v[0]) * k, y - (y - v[1]) * k, w, v[3] * k];
+    apply();
+  }
+
+  function panBy(dx, dy) {
+    const s = svg();
+    const v = current();
+    if (!s || !v) return;
+    const scale = v[2] / s.getBoundingClientRect().width;
+    view = [v[0] - dx * scale, v[1] - dy * scale, v[2], v[3]];
+    apply();
+  }
+
+  function gesture() {
+    const ps = [...pointers.values()];
+    const cx = ps.reduce((a, p) => a + p.x, 0) / ps.length;
+    const cy = ps.reduce((a, p) => a + p.y, 0) / ps.length;
+    const dist = ps.length > 1 ? Math.hypot(ps[0].x - ps[1].x, ps[0].y - ps[1].y) : 0;
+    return { cx, cy, dist, n: ps.length };
+  }
+
+  container.addEventListener('pointerdown', (e) => {
+    if (!svg()) return;
+    container.setPointerCapture?.(e.pointerId);
+    pointers.set(e.pointerId, { x: e.clientX, y: e.clientY });
+    last = gesture();
+  });
+  container.addEventListener('pointermove', (e) => {
+    if (!pointers.has(e.pointerId)) return;
+    pointers.set(e.pointerId, { x: e.clientX, y: e.clientY });
+    const g = gesture();
+    if (last && g.n === last.n) {
+      if (g.n > 1 && last.dist > 0 && g.dist > 0) zoomAt(g.cx, g.cy, g.dist / last.dist);
+      panBy(g.cx - last.cx, g.cy - last.cy);
+    }
+    last = g;
+  });
+  const up = (e) => { pointers.delete(e.pointerId); last = pointers.size ? gesture() : null; };
+  container.addEventListener('pointerup', up);
+  container.addEventListener('pointercancel', up);
+  container.addEventListener('wheel', (e) => {
+    if (!svg()) return;
+    e.preventDefault();
+    zoomAt(e.clientX, e.clientY, Math.exp(-e.deltaY * 0.0015));
+  }, { passive: false });
+  container.addEventListener('dblclick', fit);
+  fitButton.addEventListener('click', fit);
+
+  return {
+    /** Re-applies the chosen view to a freshly drawn SVG. */
+    restore: apply,
+    /** True when the person has zoomed or panned away from the fit. */
+    get zoomed() { return view !== null; },
+  };
+}
