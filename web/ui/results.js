@@ -27,12 +27,12 @@ function el(tag, props = {}, ...children) {
   return node;
 }
 
-function term(key, words) {
+function term(key, scope, words) {
   const t = words.get(key);
   const label = t?.label ?? key.replace(/_(mm|deg|pct|kg|g)$/, '').replaceAll('_', ' ');
   const btn = el('button', {
-    type: 'button', class: 'term', title: t?.definition ?? '', 'aria-expanded': String(open.has(key)),
-    'data-term': key,
+    type: 'button', class: 'term', title: t?.definition ?? '', 'aria-expanded': String(open.has(`${scope}|${key}`)),
+    'data-term': key, 'data-scope': scope,
   }, label);
   const unit = unitOf(key)[1];
   return unit ? [btn, el('span', { class: 'u' }, unit)] : [btn];
@@ -45,16 +45,17 @@ function defRow(key, words, span) {
 }
 
 function table(caption, cols, rows, words, extraRow) {
+  const scope = caption.split(':')[0];
   const head = el('tr', {}, ...cols.map((c, i) => el('th', { scope: 'col', class: i ? 'num' : '' }, c)));
   const body = el('tbody');
   for (const { key, cells, cls = '' } of rows) {
     const tr = el('tr', { 'data-key': key, class: cls },
-      el('th', { scope: 'row' }, ...term(key, words)),
+      el('th', { scope: 'row' }, ...term(key, scope, words)),
       ...cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num' }, text)));
     body.append(tr);
     const extra = extraRow?.(key);
     if (extra) body.append(el('tr', { class: 'note-row' }, el('td', { colspan: String(cols.length) }, extra)));
-    if (open.has(key)) body.append(defRow(key, words, cols.length));
+    if (open.has(`${scope}|${key}`)) body.append(defRow(key, words, cols.length));
   }
   return el('table', { class: 'numbers' }, el('caption', {}, caption), el('thead', {}, head), body);
 }
@@ -134,12 +135,13 @@ export function wireDefinitions(container, words) {
     const btn = ev.target.closest('button.term');
     if (!btn) return;
     const key = btn.dataset.term;
+    const id = `${btn.dataset.scope}|${key}`;
     const row = btn.closest('tr');
-    const shown = open.has(key);
-    if (shown) open.delete(key); else open.add(key);
-    for (const b of container.querySelectorAll(`button.term[data-term="${key}"]`)) b.setAttribute('aria-expanded', String(!shown));
+    const shown = open.has(id);
+    if (shown) open.delete(id); else open.add(id);
+    btn.setAttribute('aria-expanded', String(!shown));
     const next = row.nextElementSibling?.classList.contains('note-row') ? row.nextElementSibling : row;
-    const existing = container.querySelector(`tr.def-row[data-def-for="${key}"]`);
+    const existing = row.parentElement.querySelector(`tr.def-row[data-def-for="${key}"]`);
     if (shown) existing?.remove();
     else next.after(defRow(key, words, row.children.length));
   });
