@@ -114,6 +114,14 @@ function warningList(bike) {
   return el('div', { class: 'warnings' }, el('h3', {}, 'Warnings and cautions'), el('ul', {}, ...items));
 }
 
+function checkList(bike) {
+  if (!bike.checks?.length) return null;
+  const items = bike.checks.map((c) => el('li', { class: c.within === false ? 'outside' : 'inside' },
+    el('span', { class: 'check-mark', 'aria-hidden': 'true' }, c.within === false ? '!' : '✓'),
+    el('span', {}, c.message, ' ', el('small', { class: 'source' }, `Source: ${c.source}`))));
+  return el('div', { class: 'checks' }, el('h3', {}, 'Fit and safety checks'), el('ul', {}, ...items));
+}
+
 /** Renders every table for one bike into the container. */
 export function renderResults(container, bike, notes, catalogue, words) {
   const ridden = Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !catalogue.some((m) => m.key === k)));
@@ -125,6 +133,7 @@ export function renderResults(container, bike, notes, catalogue, words) {
     postureTable('Fit', bike.fit, words),
     postureTable('Handling', bike.handling, words),
     simpleTable('Steering', bike.derived, words),
+    checkList(bike),
   ].filter(Boolean);
   container.replaceChildren(...parts);
 }

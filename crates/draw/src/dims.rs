@@ -30,12 +30,12 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Group {
     let t = o.head_top;
     let gy = o.ground_y;
     let mut g = Group::new().set("class", "dims");
-    let ry = t[1] + OFF;
+    let ry = t[1];
     g = dim(
         g,
         [0.0, ry],
         [t[0], ry],
-        [t[0] / 2.0, ry + 20.0],
+        [t[0] / 2.0, ry + 25.0],
         "reach_mm",
         n,
         "middle",
@@ -45,7 +45,7 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Group {
         g,
         [sx, 0.0],
         [sx, t[1]],
-        [sx + 20.0, t[1] / 2.0],
+        [sx + 20.0, t[1] / 4.0],
         "stack_mm",
         n,
         "start",
@@ -89,10 +89,10 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Group {
             g,
             [0.0, 0.0],
             ck.grip,
-            [m[0] + 30.0, m[1]],
+            [m[0] - 30.0, m[1]],
             "bb_to_grip_mm",
             n,
-            "start",
+            "end",
         );
     }
     g

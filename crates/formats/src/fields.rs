@@ -330,6 +330,24 @@ mod tests {
     }
 
     #[test]
+    fn every_number_of_the_demo_report_has_words() {
+        let form = fields()
+            .into_iter()
+            .map(|f| (f.name.to_string(), f.demo.to_string()))
+            .collect();
+        let (s, _) = crate::scenario_from_form(&form);
+        let r = framewise_kernel::evaluate(&s);
+        let b = &r.bikes[0];
+        let keys = [&b.ridden, &b.derived, &b.fit.seated, &b.fit.standing, &b.handling.seated]
+            .into_iter()
+            .flat_map(|m| m.keys());
+        for key in keys {
+            let words = framewise_kernel::glossary::label(key);
+            assert!(words.is_some(), "{key} has no label or definition");
+        }
+    }
+
+    #[test]
     fn the_demo_values_read_without_errors() {
         let form = fields()
             .into_iter()
