@@ -44,98 +44,157 @@ function defRow(key, words, span) {
     el('td', { colspan: String(span) }, t?.definition ?? 'No definition recorded for this number yet.'));
 }
 
-function table(caption, cols, rows, words, extraRow) {
-  const scope = caption.split(':')[0];
-  const head = el('tr', {}, ...cols.map((c, i) => el('th', { scope: 'col', class: i ? 'num' : '' }, c)));
-  const body = el('tbody');
-  for (const { key, cells, cls = '' } of rows) {
-    const tr = el('tr', { 'data-key': key, class: cls },
-      el('th', { scope: 'row' }, ...term(key, scope, words)),
-      ...cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num' }, text)));
-    body.append(tr);
-    const extra = extraRow?.(key);
-    if (extra) body.append(el('tr', { class: 'note-row' }, el('td', { colspan: String(cols.length) }, extra)));
-    if (open.has(`${scope}|${key}`)) body.append(defRow(key, words, cols.length));
-  }
-  return el('table', { class: 'numbers' }, el('caption', {}, caption), el('thead', {}, head), body);
-}
+// The results as data first: blocks of tables and lists. An edit that keeps the blocks' shape
+// (same rows, same columns, same notes) only rewrites texts and classes through `refs`.
 
 function numberKeys(obj) {
   return Object.keys(obj ?? {}).filter((k) => typeof obj[k] === 'number');
 }
 
-function frameTable(bike, notes, catalogue, words) {
+function frameBlock(bike, notes, catalogue) {
   const rows = catalogue.map(({ key }) => {
     const r = bike.residuals[key];
     const bad = r && !r.consistent;
     return {
       key,
-      cls: `${r ? 'given' : ''} ${bad ? 'inconsistent' : ''}`,
+      cls: `${r ? 'given' : ''}${bad ? ' inconsistent' : ''}`,
       cells: [
         ['given', r ? `${bad ? '⚠ ' : ''}${format(key, r.given)}` : '–'],
         ['stock', format(key, bike.stock[key])],
         ['ridden', format(key, bike.ridden[key])],
       ],
+      note: notes[key],
     };
   });
-  return table('Frame: published, solved and as ridden', ['Measure', 'Published', 'Solved', 'Ridden'],
-    rows, words, (key) => notes[key]);
+  return { type: 'table', caption: 'Frame: published, solved and as ridden', cols: ['Measure', 'Published', 'Solved', 'Ridden'], rows };
 }
 
-function simpleTable(caption, obj, words) {
+function simpleBlock(caption, obj) {
   const keys = numberKeys(obj);
   if (!keys.length) return null;
-  return table(caption, ['Measure', 'Value'], keys.map((key) => ({ key, cells: [['value', format(key, obj[key])]] })), words);
+  return { type: 'table', caption, cols: ['Measure', 'Value'], rows: keys.map((key) => ({ key, cls: '', cells: [['value', format(key, obj[key])]] })) };
 }
 
-function postureTable(caption, block, words) {
+function postureBlock(caption, block) {
   const cols = Object.keys(block ?? {}).filter((c) => block[c] && typeof block[c] === 'object');
   const keys = [...new Set(cols.flatMap((c) => numberKeys(block[c])))];
   if (!keys.length) return null;
   const title = (c) => c.charAt(0).toUpperCase() + c.slice(1);
-  return table(caption, ['Measure', ...cols.map(title)],
-    keys.map((key) => ({ key, cells: cols.map((c) => [c, format(key, block[c][key])]) })), words);
+  return {
+    type: 'table', caption, cols: ['Measure', ...cols.map(title)],
+    rows: keys.map((key) => ({ key, cls: '', cells: cols.map((c) => [c, format(key, block[c][key])]) })),
+  };
 }
 
-function missingList(bike, words) {
-  if (!bike.missing?.length) return null;
-  const names = bike.missing.map((k) => words.get(k)?.label ?? k);
+function model(bike, notes, catalogue) {
+  const isFrame = new Set(catalogue.map((m) => m.key));
+  const ridden = Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !isFrame.has(k)));
+  const warnings = bike.warnings?.length ? {
+    type: 'warnings',
+    items: bike.warnings.map((w) => ({
+      cls: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note', text: w.message,
+    })),
+  } : null;
+  const missing = bike.missing?.length ? { type: 'missing', keys: bike.missing } : null;
+  const checks = bike.checks?.length ? {
+    type: 'checks',
+    items: bike.checks.map((c) => ({ cls: c.within === false ? 'outside' : 'inside', text: c.message, source: c.source })),
+  } : null;
+  return [
+    warnings, missing,
+    frameBlock(bike, notes, catalogue),
+    simpleBlock('Cockpit and saddle, as ridden', ridden),
+    postureBlock('Fit', bike.fit),
+    postureBlock('Handling', bike.handling),
+    simpleBlock('Steering', bike.derived),
+    checks,
+  ].filter(Boolean);
+}
+
+function shapeOf(blocks) {
+  return JSON.stringify(blocks.map((b) => (b.type === 'table'
+    ? [b.caption, b.cols, b.rows.map((r) => [r.key, Boolean(r.note)])]
+    : [b.type, b.keys ?? b.items.length])));
+}
+
+/** Every changeable value in render order: row classes, cell texts, notes, list items. */
+function values(blocks) {
+  const out = [];
+  for (const b of blocks) {
+    if (b.type === 'table') {
+      for (const r of b.rows) {
+        out.push(r.cls, ...r.cells.map((c) => c[1]));
+        if (r.note) out.push(r.note);
+      }
+    } else if (b.items) {
+      for (const i of b.items) out.push(i.cls, i.text, i.source ?? '');
+    }
+  }
+  return out;
+}
+
+function buildTable(b, words, refs) {
+  const scope = b.caption.split(':')[0];
+  const head = el('tr', {}, ...b.cols.map((c, i) => el('th', { scope: 'col', class: i ? 'num' : '' }, c)));
+  const body = el('tbody');
+  for (const r of b.rows) {
+    const tds = r.cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num' }, text));
+    const tr = el('tr', { 'data-key': r.key, class: r.cls }, el('th', { scope: 'row' }, ...term(r.key, scope, words)), ...tds);
+    refs.push([tr, 'class'], ...tds.map((td) => [td, 'text']));
+    body.append(tr);
+    if (r.note) {
+      const td = el('td', { colspan: String(b.cols.length) }, r.note);
+      refs.push([td, 'text']);
+      body.append(el('tr', { class: 'note-row' }, td));
+    }
+    if (open.has(`${scope}|${r.key}`)) body.append(defRow(r.key, words, b.cols.length));
+  }
+  return el('table', { class: 'numbers' }, el('caption', {}, b.caption), el('thead', {}, head), body);
+}
+
+function buildItems(b, refs) {
+  const items = b.items.map((i) => {
+    const text = el('span', { class: 'item-text' }, i.text);
+    const source = el('small', { class: 'source' }, i.source ? `Source: ${i.source}` : '');
+    const li = b.type === 'checks'
+      ? el('li', { class: i.cls }, el('span', { class: 'check-mark', 'aria-hidden': 'true' }), el('span', {}, text, ' ', source))
+      : el('li', { class: i.cls }, text);
+    refs.push([li, 'class'], [text, 'text'], [source, b.type === 'checks' ? 'source' : 'none']);
+    return li;
+  });
+  const title = b.type === 'checks' ? 'Fit and safety checks' : 'Warnings and cautions';
+  return el('div', { class: b.type }, el('h3', {}, title), el('ul', {}, ...items));
+}
+
+function buildMissing(b, words) {
+  const names = b.keys.map((k) => words.get(k)?.label ?? k);
   return el('div', { class: 'missing', role: 'note' },
     el('h3', {}, 'Missing measurements'),
     el('p', {}, 'Nothing given fixes part of the frame. Add any one of these from the listing: ',
       el('strong', {}, names.join(', ')), '.'));
 }
 
-function warningList(bike) {
-  if (!bike.warnings?.length) return null;
-  const items = bike.warnings.map((w) => el('li', {
-    class: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note',
-  }, w.message));
-  return el('div', { class: 'warnings' }, el('h3', {}, 'Warnings and cautions'), el('ul', {}, ...items));
-}
+let lastShape = '';
+let refs = [];
 
-function checkList(bike) {
-  if (!bike.checks?.length) return null;
-  const items = bike.checks.map((c) => el('li', { class: c.within === false ? 'outside' : 'inside' },
-    el('span', { class: 'check-mark', 'aria-hidden': 'true' }, c.within === false ? '!' : '✓'),
-    el('span', {}, c.message, ' ', el('small', { class: 'source' }, `Source: ${c.source}`))));
-  return el('div', { class: 'checks' }, el('h3', {}, 'Fit and safety checks'), el('ul', {}, ...items));
-}
-
-/** Renders every table for one bike into the container. */
+/** Renders every table and list for one bike into the container. */
 export function renderResults(container, bike, notes, catalogue, words) {
-  const ridden = Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !catalogue.some((m) => m.key === k)));
-  const parts = [
-    warningList(bike),
-    missingList(bike, words),
-    frameTable(bike, notes ?? {}, catalogue, words),
-    simpleTable('Cockpit and saddle, as ridden', ridden, words),
-    postureTable('Fit', bike.fit, words),
-    postureTable('Handling', bike.handling, words),
-    simpleTable('Steering', bike.derived, words),
-    checkList(bike),
-  ].filter(Boolean);
-  container.replaceChildren(...parts);
+  const blocks = model(bike, notes ?? {}, catalogue);
+  const shape = shapeOf(blocks);
+  const vals = values(blocks);
+  if (shape === lastShape && vals.length === refs.length) {
+    vals.forEach((v, i) => {
+      const [node, kind] = refs[i];
+      if (kind === 'class') { if (node.className !== v) node.className = v; }
+      else if (kind === 'text') { if (node.textContent !== v) node.textContent = v; }
+      else if (kind === 'source') { const t = v ? `Source: ${v}` : ''; if (node.textContent !== t) node.textContent = t; }
+    });
+    return;
+  }
+  lastShape = shape;
+  refs = [];
+  container.replaceChildren(...blocks.map((b) => (b.type === 'table' ? buildTable(b, words, refs)
+    : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs))));
 }
 
 /** Tapping a name shows or hides its definition row (the state survives re-rendering). */
@@ -153,5 +212,6 @@ export function wireDefinitions(container, words) {
     const existing = row.parentElement.querySelector(`tr.def-row[data-def-for="${key}"]`);
     if (shown) existing?.remove();
     else next.after(defRow(key, words, row.children.length));
+    lastShape = '';
   });
 }

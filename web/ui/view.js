@@ -11,6 +11,8 @@ export function attachView(container) {
     container.classList.toggle('posture-seated', !standing);
     container.classList.toggle('show-dims', dims.checked);
     container.classList.toggle('hide-ghost', !ghost.checked);
+    dims.parentElement.classList.toggle('on', dims.checked);
+    ghost.parentElement.classList.toggle('on', ghost.checked);
   }
   for (const p of posture) p.addEventListener('change', sync);
   dims.addEventListener('change', sync);

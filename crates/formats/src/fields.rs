@@ -338,9 +338,15 @@ mod tests {
         let (s, _) = crate::scenario_from_form(&form);
         let r = framewise_kernel::evaluate(&s);
         let b = &r.bikes[0];
-        let keys = [&b.ridden, &b.derived, &b.fit.seated, &b.fit.standing, &b.handling.seated]
-            .into_iter()
-            .flat_map(|m| m.keys());
+        let keys = [
+            &b.ridden,
+            &b.derived,
+            &b.fit.seated,
+            &b.fit.standing,
+            &b.handling.seated,
+        ]
+        .into_iter()
+        .flat_map(|m| m.keys());
         for key in keys {
             let words = framewise_kernel::glossary::label(key);
             assert!(words.is_some(), "{key} has no label or definition");
