@@ -85,11 +85,17 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
             .any(|c| matches!(parse_cell(c, grid.decimal_comma), Cell::Number(_)));
         if filled <= 1 && !numeric {
             let line = row.cells.join(" ");
-            global_unit = unit_hint(&line).or(global_unit);
-            log.note(
-                "",
-                format!("ignored a line of text: \"{}\"", shorten(line.trim())),
-            );
+            let short = shorten(line.trim());
+            if let Some(u) = unit_hint(&line) {
+                global_unit = Some(u);
+                let name = u.name();
+                log.note(
+                    "",
+                    format!("lengths without a unit read as {name}, as \"{short}\" says"),
+                );
+            } else {
+                log.note("", format!("ignored a line of text: \"{short}\""));
+            }
         } else {
             table.push(row.cells.clone());
         }
@@ -187,9 +193,24 @@ fn repair_short_rows(table: &mut [Vec<String>]) {
     else {
         return;
     };
+    // Rows led by a drawing reference ("A", "1") make a header without one a cell short.
+    let is_ref = |r: &Vec<String>| {
+        r.first().is_some_and(|c| {
+            (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric)
+        })
+    };
+    let full = table.iter().filter(|r| r.len() == mode).count();
+    let refs = table
+        .iter()
+        .filter(|r| r.len() == mode && is_ref(r))
+        .count();
+    let referenced = refs * 2 > full;
     for r in table.iter_mut() {
         let first = r.first().map_or("", String::as_str);
-        let unlabelled = first.is_empty() || is_size_token(first) || is_value_token(first);
+        let unlabelled = first.is_empty()
+            || is_size_token(first)
+            || is_value_token(first)
+            || (referenced && !is_ref(r));
         if r.len() + 1 == mode && unlabelled {
             r.insert(0, String::new());
         }

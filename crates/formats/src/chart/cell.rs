@@ -125,6 +125,10 @@ pub fn strip_footnotes(text: &str) -> String {
 
 /// Parses a cell. `thousands_dot`: the chart writes decimal commas, so `1.180` means 1180.
 pub fn parse_cell(text: &str, thousands_dot: bool) -> Cell {
+    // No number with its unit and marks is this long.
+    if text.len() > 64 {
+        return Cell::Text;
+    }
     let s = strip_footnotes(text);
     let s = s.trim().trim_start_matches('\'').trim();
     let lower = s.to_lowercase();

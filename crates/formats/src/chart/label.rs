@@ -159,8 +159,14 @@ const EXPAND: &[(&str, &[&str])] = &[
     ("tire", &["wheel"]),
 ];
 
+/// Characters of a label looked at.
+const MAX_LABEL_CHARS: usize = 120;
+
 /// Classifies a row label.
 pub fn classify(raw: &str) -> Label {
+    // No label is longer than this; a longer "label" is text and is only shown shortened.
+    let raw: String = raw.chars().take(MAX_LABEL_CHARS).collect();
+    let raw = raw.as_str();
     let text = collapse(&strip_footnotes(raw));
     let trimmed = raw.trim().to_lowercase();
     if matches!(

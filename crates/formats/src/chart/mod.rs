@@ -36,6 +36,8 @@ use std::fmt;
 
 /// Longest text accepted, in bytes (a chart is a few kilobytes).
 pub const MAX_BYTES: usize = 256 * 1024;
+/// Most non-blank lines accepted (a chart has a few dozen).
+pub const MAX_LINES: usize = 400;
 /// Most sizes accepted in one chart.
 pub const MAX_SIZES: usize = 40;
 
@@ -100,6 +102,11 @@ pub enum ChartError {
         /// Its length in bytes.
         bytes: usize,
     },
+    /// More non-blank lines than [`MAX_LINES`].
+    TooManyLines {
+        /// How many were found.
+        lines: usize,
+    },
     /// No line has a label and a number.
     NotATable,
     /// Only one row of the table was found.
@@ -122,6 +129,7 @@ impl ChartError {
         match self {
             ChartError::Empty => "empty_chart",
             ChartError::TooLarge { .. } => "chart_too_large",
+            ChartError::TooManyLines { .. } => "chart_too_long",
             ChartError::NotATable => "not_a_table",
             ChartError::OneRow => "one_row",
             ChartError::TooManySizes { .. } => "too_many_sizes",
@@ -140,6 +148,10 @@ impl fmt::Display for ChartError {
             ChartError::TooLarge { bytes } => write!(
                 f,
                 "the pasted text is {bytes} bytes, more than the {MAX_BYTES} a chart can be: paste only the geometry table"
+            ),
+            ChartError::TooManyLines { lines } => write!(
+                f,
+                "the pasted text has {lines} lines, more than the {MAX_LINES} a chart can have: paste only the geometry table"
             ),
             ChartError::NotATable => write!(
                 f,
@@ -170,7 +182,7 @@ impl std::error::Error for ChartError {}
 /// Imports a pasted chart with the default choice for every question.
 ///
 /// # Errors
-/// A [`ChartError`] when the text is empty, too long, has no table, only one row, too many
+/// A [`ChartError`] when the text is empty, too long (bytes or lines), has no table, only one row, too many
 /// sizes, or no row label that names a frame measurement.
 pub fn import_chart(text: &str) -> Result<ChartImport, ChartError> {
     import_chart_with(text, &Answers::new())
@@ -192,6 +204,9 @@ pub fn import_chart_with(text: &str, answers: &Answers) -> Result<ChartImport, C
         .map(clean_line)
         .filter(|l| !l.trim().is_empty() && !grid::is_rule_line(l))
         .collect();
+    if lines.len() > MAX_LINES {
+        return Err(ChartError::TooManyLines { lines: lines.len() });
+    }
     if !lines.iter().any(|l| l.chars().any(|c| c.is_ascii_digit())) {
         return Err(ChartError::NotATable);
     }
@@ -213,21 +228,41 @@ fn clean_line(line: &str) -> String {
         .to_string()
 }
 
+/// The error part of [`chart_to_json`].
+#[derive(Serialize)]
+struct ErrorJson {
+    code: &'static str,
+    message: String,
+}
+
+#[derive(Serialize)]
+struct ImportJson<'a> {
+    #[serde(flatten)]
+    import: &'a ChartImport,
+    error: Option<ErrorJson>,
+}
+
 /// The import as JSON text: the [`ChartImport`] fields plus `"error": null`, or, when the text
 /// cannot be read, empty lists and `"error": {"code": …, "message": …}`.
 pub fn chart_to_json(result: &Result<ChartImport, ChartError>) -> String {
-    let value = match result {
-        Ok(import) => {
-            let mut v = serde_json::to_value(import).unwrap_or_default();
-            if let Some(map) = v.as_object_mut() {
-                map.insert("error".into(), serde_json::Value::Null);
-            }
-            v
-        }
-        Err(e) => serde_json::json!({
-            "sizes": [], "unrecognised": [], "questions": [], "notes": [],
-            "error": { "code": e.code(), "message": e.to_string() }
-        }),
+    let empty = ChartImport {
+        sizes: Vec::new(),
+        unrecognised: Vec::new(),
+        questions: Vec::new(),
+        notes: Vec::new(),
     };
-    serde_json::to_string_pretty(&value).unwrap_or_else(|_| "{}".into())
+    let out = match result {
+        Ok(import) => ImportJson {
+            import,
+            error: None,
+        },
+        Err(e) => ImportJson {
+            import: &empty,
+            error: Some(ErrorJson {
+                code: e.code(),
+                message: e.to_string(),
+            }),
+        },
+    };
+    serde_json::to_string_pretty(&out).unwrap_or_else(|_| "{}".into())
 }
