@@ -1,5 +1,7 @@
 //! `framewise`: the kernel on the command line, JSON in and out (DESIGN.md §8).
 
+mod cmd_import;
+
 use framewise_formats::{report_to_json, scenario_from_json};
 use framewise_kernel::{evaluate, FieldError, Report};
 use std::io::Read;
@@ -10,6 +12,7 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
+  import CHART|- read a pasted geometry chart and print its size run as JSON
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -74,6 +77,7 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 _ => Ok(ExitCode::FAILURE),
             }
         }
+        Some("import") => cmd_import::run(file),
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
             Ok(ExitCode::SUCCESS)

@@ -4,11 +4,15 @@
 //! allowed.
 #![deny(missing_docs)]
 
+pub mod chart;
 pub mod fields;
 pub mod form;
 pub mod json;
 pub mod units;
 
+pub use chart::{
+    chart_to_json, import_chart, import_chart_with, Answers, ChartError, ChartImport, ChartSize,
+};
 pub use fields::{page_words, PageWords};
 pub use form::scenario_from_form;
 pub use json::{report_to_json, scenario_from_json};

@@ -3,6 +3,9 @@
 
 use wasm_bindgen::prelude::*;
 
+mod chart;
+pub use chart::{import_chart, import_chart_with_answers};
+
 /// Evaluates a scenario given as JSON text; returns `{report, svg}` as JSON text.
 /// Bad input never throws: errors come back in `report.errors`.
 #[wasm_bindgen]
