@@ -9,7 +9,7 @@ use crate::geometry::{FrameParams, Geometry, Radii};
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
-use crate::solve::{solve, Given};
+use crate::solve::{solve, Given, SolveInput};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
 use nalgebra::Point2;
@@ -258,7 +258,13 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str) -> Result<BikeReport, Vec<Field
         front: sf.radius_mm,
         rear: sr.radius_mm,
     };
-    let solution = solve(&given, stock_radii, &format!("{prefix}.frame")).map_err(|e| vec![e])?;
+    let frame_field = format!("{prefix}.frame");
+    let input = SolveInput {
+        radii: stock_radii,
+        seat_ref,
+        field_prefix: &frame_field,
+    };
+    let solution = solve(&given, input).map_err(|e| vec![e])?;
     warnings.extend(solution.warnings.iter().cloned());
     let params = solution.params;
     let changes = ChangeSet {

@@ -25,5 +25,5 @@ pub use report::{BikeReport, Outline, Report};
 pub use scenario::{
     BikeInput, Changes, Load, Published, RiderInput, Scenario, Setup, View, WheelsInput,
 };
-pub use solve::{solve, Given, Residual, Solution};
+pub use solve::{solve, Given, Residual, Solution, SolveInput};
 pub use wheel::{Wheel, WheelSpec};
