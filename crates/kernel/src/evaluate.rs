@@ -10,7 +10,7 @@ use crate::geometry::{FrameParams, Geometry, Radii};
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
-use crate::solve::{solve, Given};
+use crate::solve::{solve, Given, SolveInput};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
 use nalgebra::{Point2, Vector2};
@@ -281,7 +281,13 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &assembly::ScenarioRider
         front: sf.radius_mm,
         rear: sr.radius_mm,
     };
-    let solution = solve(&given, stock_radii, &format!("{prefix}.frame")).map_err(|e| vec![e])?;
+    let frame_field = format!("{prefix}.frame");
+    let input = SolveInput {
+        radii: stock_radii,
+        seat_ref,
+        field_prefix: &frame_field,
+    };
+    let solution = solve(&given, input).map_err(|e| vec![e])?;
     warnings.extend(solution.warnings.iter().cloned());
     let params = solution.params;
     let changes = ChangeSet {
@@ -309,6 +315,7 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &assembly::ScenarioRider
     let ridden = to_numbers(&ridden_geom);
     let effects = change_effects(&params, stock_radii, &changes, &ridden, &stock);
     let derived = derived(&ridden_geom);
+    warnings.extend(iso_window_info(&derived, ridden_geom.head_angle().to_degrees()));
     cautions(&changes, &params, &mut warnings);
     let mut report = BikeReport {
         label: bike.label.clone(),
@@ -418,6 +425,31 @@ fn derived(g: &Geometry) -> Numbers {
         d.insert("iso_window_max_mm".into(), 0.60 * g.radii.front);
     }
     d
+}
+
+/// Information (not an error) when the ridden bike falls outside the ISO 4210-2:2015 Annex A
+/// (informative) window: head angle 65°–75°, steering-axis height at the front axle 0.15 R–0.60 R.
+/// Long-travel mountain bikes often do.
+fn iso_window_info(d: &Numbers, head_angle_deg: f64) -> Option<Warning> {
+    let height = *d.get("steer_axis_height_at_axle_mm")?;
+    let (lo, hi) = (
+        *d.get("iso_window_min_mm")?,
+        *d.get("iso_window_max_mm")?,
+    );
+    let angle_in = (65.0..=75.0).contains(&head_angle_deg);
+    let height_in = (lo..=hi).contains(&height);
+    (!(angle_in && height_in)).then(|| {
+        Warning::new(
+            "info_iso_window",
+            format!(
+                "For information: head angle {}° and steering-axis height {} mm at the front axle are outside the ISO 4210-2 Annex A guide window (65° to 75°, {} to {} mm). Many long-travel bikes are; it is not a fault.",
+                fmt_num(head_angle_deg),
+                fmt_num(height),
+                fmt_num(lo),
+                fmt_num(hi)
+            ),
+        )
+    })
 }
 
 fn cautions(ch: &ChangeSet, params: &FrameParams, warnings: &mut Vec<Warning>) {

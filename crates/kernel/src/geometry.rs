@@ -206,40 +206,83 @@ impl Geometry {
     /// Every derivable §5 measurement in these axes, keyed as in the catalogue.
     /// `standover_mm` is not derivable and is absent; a degenerate axis omits its keys.
     pub fn measure(&self) -> BTreeMap<&'static str, f64> {
-        let mut m = BTreeMap::new();
+        MEASURED_KEYS
+            .iter()
+            .zip(self.measure_values())
+            .filter_map(|(k, v)| v.map(|v| (*k, v)))
+            .collect()
+    }
+
+    /// The same numbers as [`Geometry::measure`], in the order of [`MEASURED_KEYS`], without
+    /// allocating (the solver calls this many times). `None` where an axis is degenerate
+    /// (horizontal), so no NaN or infinity can leave this function for finite points.
+    ///
+    /// Definitions (DESIGN.md §5, §8a): reach / stack = `T`; chainstay `|R|`; rear centre `−R.x`;
+    /// front centre `F.x`; wheelbase `F.x − R.x`; BB drop `R.y`; BB height `r_rear − R.y`; seat
+    /// axis offset = the axis point at y = 0; effective seat angle = angle of the line BB → axis
+    /// point at the reference height (default stack); effective top tube `T.x − S.x` with `S` the
+    /// axis point at `T.y`; trail = steering-axis ground point minus front axle, horizontally.
+    pub fn measure_values(&self) -> [Option<f64>; MEASURED_COUNT] {
         let r = self.rear_axle;
         let f = self.front_axle;
         let t = self.head_top;
-        m.insert("reach_mm", t.x);
-        m.insert("stack_mm", t.y);
-        m.insert("head_angle_deg", self.head_angle().to_degrees());
-        m.insert("head_tube_mm", self.lengths.head_tube);
-        m.insert("headset_lower_mm", self.lengths.headset_lower);
-        m.insert("fork_a2c_mm", self.lengths.a2c);
-        m.insert("fork_offset_mm", self.lengths.offset);
-        m.insert("chainstay_mm", r.coords.norm());
-        m.insert("rear_centre_mm", -r.x);
-        m.insert("front_centre_mm", f.x);
-        m.insert("wheelbase_mm", f.x - r.x);
-        m.insert("bb_drop_mm", r.y);
-        m.insert("bb_height_mm", -self.ground_y());
-        m.insert("seat_angle_actual_deg", self.seat_angle().to_degrees());
-        m.insert("seat_tube_mm", self.lengths.seat_tube);
-        if let Some(p) = self.seat_axis_at(0.0) {
-            m.insert("seat_axis_offset_mm", p.x);
-        }
         let ref_y = self.seat_ref_height.unwrap_or(t.y);
-        if let Some(s) = self.seat_axis_at(ref_y) {
-            m.insert("seat_angle_effective_deg", s.y.atan2(-s.x).to_degrees());
-        }
-        if let Some(s) = self.seat_axis_at(t.y) {
-            m.insert("top_tube_effective_mm", t.x - s.x);
-        }
-        if let Some(tr) = self.trail() {
-            m.insert("trail_mm", tr);
-        }
-        m
+        let eff = self
+            .seat_axis_at(ref_y)
+            .map(|s| s.y.atan2(-s.x).to_degrees());
+        [
+            Some(t.x),
+            Some(t.y),
+            Some(self.head_angle().to_degrees()),
+            Some(self.lengths.head_tube),
+            Some(self.lengths.headset_lower),
+            Some(self.lengths.a2c),
+            Some(self.lengths.offset),
+            Some(r.coords.norm()),
+            Some(-r.x),
+            Some(f.x),
+            Some(f.x - r.x),
+            Some(r.y),
+            Some(-self.ground_y()),
+            Some(self.seat_angle().to_degrees()),
+            self.seat_axis_at(0.0).map(|p| p.x),
+            eff,
+            self.seat_axis_at(t.y).map(|s| t.x - s.x),
+            Some(self.lengths.seat_tube),
+            self.trail(),
+        ]
     }
+}
+
+/// How many numbers [`Geometry::measure_values`] returns.
+pub const MEASURED_COUNT: usize = 19;
+
+/// The keys of [`Geometry::measure_values`], in order: every §5 key except `standover_mm`.
+pub const MEASURED_KEYS: [&str; MEASURED_COUNT] = [
+    "reach_mm",
+    "stack_mm",
+    "head_angle_deg",
+    "head_tube_mm",
+    "headset_lower_mm",
+    "fork_a2c_mm",
+    "fork_offset_mm",
+    "chainstay_mm",
+    "rear_centre_mm",
+    "front_centre_mm",
+    "wheelbase_mm",
+    "bb_drop_mm",
+    "bb_height_mm",
+    "seat_angle_actual_deg",
+    "seat_axis_offset_mm",
+    "seat_angle_effective_deg",
+    "top_tube_effective_mm",
+    "seat_tube_mm",
+    "trail_mm",
+];
+
+/// Index of `key` in [`MEASURED_KEYS`], if it is derivable.
+pub fn measured_index(key: &str) -> Option<usize> {
+    MEASURED_KEYS.iter().position(|k| *k == key)
 }
 
 #[cfg(test)]

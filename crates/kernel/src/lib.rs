@@ -45,6 +45,6 @@ pub use scenario::{
 };
 pub use seat::{PostFit, Seat};
 pub use seated::{seated, Contacts, Posture};
-pub use solve::{solve, Given, Residual, Solution};
+pub use solve::{solve, Given, Residual, Solution, SolveInput};
 pub use standing::{standing, Stance};
 pub use wheel::{Wheel, WheelSpec};

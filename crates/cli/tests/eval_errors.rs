@@ -1,0 +1,42 @@
+//! `framewise eval` with bad input: the errors are in the report and the exit status is non-zero.
+
+use std::io::Write;
+use std::process::{Command, Stdio};
+
+fn eval(text: &str) -> (bool, String, String) {
+    let mut child = Command::new(env!("CARGO_BIN_EXE_framewise"))
+        .args(["eval", "-"])
+        .stdin(Stdio::piped())
+        .stdout(Stdio::piped())
+        .stderr(Stdio::piped())
+        .spawn()
+        .unwrap();
+    child.stdin.take().unwrap().write_all(text.as_bytes()).unwrap();
+    let out = child.wait_with_output().unwrap();
+    (
+        out.status.success(),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+#[test]
+fn text_for_a_number_fails_with_the_field() {
+    let (ok, _, err) = eval(r#"{"version":1,"bikes":[{"label":"x","frame":{"reach_mm":"long"}}]}"#);
+    assert!(!ok);
+    assert!(err.contains("bikes[0].frame.reach_mm"), "{err}");
+}
+
+#[test]
+fn negative_length_is_in_the_reports_errors_and_exits_non_zero() {
+    let (ok, out, err) = eval(
+        r#"{"version":1,"bikes":[{"label":"x","frame":{"reach_mm":-450,"stack_mm":620}}]}"#,
+    );
+    assert!(!ok);
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let e = &v["errors"][0];
+    assert_eq!(e["field"], "bikes[0].frame.reach_mm");
+    assert_eq!(e["code"], "out_of_range");
+    assert!(e["message"].as_str().unwrap().contains("-450"));
+    assert!(err.contains("reach_mm"), "{err}");
+}

@@ -1,0 +1,390 @@
+//! The frame solver (DESIGN.md §6.1): from whatever published numbers are given to the core
+//! [`FrameParams`], with a residual for every given value, the values that disagree, and the
+//! measurements that are missing.
+//!
+//! Unknowns (mm and degrees): rear centre, reach, stack, head angle, head tube, lower headset
+//! stack, axle-to-crown, offset, actual seat angle, seat axis offset, seat tube. The BB drop is
+//! not an unknown: the tyres-on-the-ground condition `F.y − R.y = r_front − r_rear` (§8a) fixes
+//! it ([`FrameParams::grounded_bb_drop`]). Every published key is predicted through
+//! [`Geometry::measure_values`](crate::geometry::Geometry::measure_values), so the solver and the
+//! report share one definition per number.
+//!
+//! Method: weighted nonlinear least squares, `min Σ ((predicted − given) / tolerance)²`, by
+//! Levenberg–Marquardt (`levenberg-marquardt` crate on nalgebra). Before fitting, the rank of the
+//! weighted Jacobian (SVD) shows which unknowns nothing fixes: those with a stated prior (lower
+//! headset stack 0 mm, seat axis offset 0 mm) take it, the others a typical value, each with a
+//! warning, and `missing` names measurements that would fix them. A fixed unknown lies along a
+//! direction the published numbers cannot see, so it does not move the determined ones.
+//! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`.
+
+mod diagnose;
+mod fit;
+mod model;
+mod plan;
+mod unknowns;
+
+use crate::catalogue::lookup;
+use crate::error::{fmt_num, FieldError, Warning};
+use crate::geometry::{measured_index, FrameParams, Radii, MEASURED_KEYS};
+use fit::{fit, Fitted};
+use model::{Model, Row};
+use serde::Serialize;
+use std::collections::BTreeMap;
+use unknowns::{ix, to_params, typical, X, UNKNOWNS};
+
+/// One published value, validated: value and tolerance in catalogue units (mm or degrees).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Given {
+    /// The published number.
+    pub value: f64,
+    /// Its rounding (weight = 1 / tolerance).
+    pub tolerance: f64,
+}
+
+/// What the solver reports for one given value.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct Residual {
+    /// As published.
+    pub given: f64,
+    /// As reconstructed from the solved frame.
+    pub solved: f64,
+    /// `solved − given`.
+    pub residual: f64,
+    /// `|residual| ≤ 2.5 × tolerance`.
+    pub consistent: bool,
+}
+
+/// The solved frame with its diagnostics.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Solution {
+    /// The core parameters.
+    pub params: FrameParams,
+    /// Per given key: given, solved, residual, consistent.
+    pub residuals: BTreeMap<String, Residual>,
+    /// Measurements that would fix an unknown nothing determines.
+    pub missing: Vec<String>,
+    /// Assumptions made and inconsistencies found.
+    pub warnings: Vec<Warning>,
+}
+
+/// Factor on the tolerance past which a residual is inconsistent.
+pub const INCONSISTENT_FACTOR: f64 = 2.5;
+
+/// What the solver needs besides the published values.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SolveInput<'a> {
+    /// Tyre outer radii of the stock wheels, mm.
+    pub radii: Radii,
+    /// Height above the BB at which the effective seat angle is read (`None` = stack), mm.
+    pub seat_ref: Option<f64>,
+    /// Field path of the frame block for errors, e.g. `bikes[0].frame`.
+    pub field_prefix: &'a str,
+}
+
+/// Solves the frame from the given measurements.
+///
+/// # Errors
+/// A [`FieldError`] for an impossible combination (a chainstay no longer than the BB drop, a rear
+/// centre longer than the chainstay, a wheelbase no longer than the front or rear centre), for
+/// numbers that together imply a frame outside the catalogue's hard ranges, or when no start
+/// converges.
+pub fn solve(given: &BTreeMap<String, Given>, input: SolveInput<'_>) -> Result<Solution, FieldError> {
+    let prefix = input.field_prefix;
+    precheck(given, prefix)?;
+    let model = Model {
+        radii: input.radii,
+        seat_ref: input.seat_ref,
+    };
+    let rows: Vec<Row> = given
+        .iter()
+        .filter_map(|(k, g)| {
+            measured_index(k).map(|index| Row {
+                index,
+                value: g.value,
+                tolerance: g.tolerance,
+            })
+        })
+        .collect();
+    let mut x0 = first_guess(given, input.radii);
+    let plan = plan::plan(&model, &rows, &mut x0).ok_or_else(|| no_solution(prefix))?;
+    let best = best_fit(&model, &rows, &plan.free, &x0).ok_or_else(|| no_solution(prefix))?;
+    let params = to_params(&best.x, input.radii);
+    postcheck(given, &best.x, &params, prefix)?;
+    let predicted = model.predict(&best.x).ok_or_else(|| no_solution(prefix))?;
+    let mut warnings = assumption_warnings(&plan);
+    let mut residuals = BTreeMap::new();
+    let mut bad = Vec::new();
+    let flags = diagnose::consistency(&model, &best.x, &rows, &plan.free)
+        .ok_or_else(|| no_solution(prefix))?;
+    for (row, &consistent) in rows.iter().zip(&flags) {
+        let solved = predicted.get(row.index).copied().unwrap_or(row.value);
+        let residual = solved - row.value;
+        if !consistent {
+            bad.push((row.index, row.value, solved));
+        }
+        let key = MEASURED_KEYS.get(row.index).copied().unwrap_or("?");
+        residuals.insert(
+            key.to_string(),
+            Residual {
+                given: row.value,
+                solved,
+                residual,
+                consistent,
+            },
+        );
+    }
+    if !bad.is_empty() {
+        let suspects = diagnose::suspects(&model, &best.x, &rows, &plan.free);
+        warnings.push(diagnose::warning(&bad, &suspects));
+    }
+    Ok(Solution {
+        params,
+        residuals,
+        missing: plan.missing,
+        warnings,
+    })
+}
+
+/// The first guess: typical values, overwritten by every value published directly; without a
+/// published axle-to-crown, the one that puts the BB at the published (or, from chainstay and rear
+/// centre, the positive) BB drop, so the search starts on the usual side of the axles.
+fn first_guess(given: &BTreeMap<String, Given>, radii: Radii) -> X {
+    let mut x = typical();
+    for (slot, u) in x.iter_mut().zip(UNKNOWNS.iter()) {
+        if let Some(g) = given.get(u.key) {
+            *slot = g.value;
+        }
+    }
+    let get = |k: &str| given.get(k).map(|g| g.value);
+    if get("rear_centre_mm").is_none() {
+        if let Some(cs) = get("chainstay_mm") {
+            let drop = get("bb_drop_mm").unwrap_or(30.0);
+            x[ix::REAR_CENTRE] = (cs * cs - drop * drop).max(100.0).sqrt();
+        }
+    }
+    let drop = get("bb_drop_mm")
+        .or_else(|| get("bb_height_mm").map(|h| radii.rear - h))
+        .or_else(|| {
+            let (cs, rc) = (get("chainstay_mm")?, get("rear_centre_mm")?);
+            Some((cs * cs - rc * rc).max(0.0).sqrt())
+        });
+    if let (None, Some(drop)) = (get("fork_a2c_mm"), drop) {
+        // drop = stack − L sin h + offset cos h − (r_front − r_rear), solved for a2c.
+        let h = x[ix::HEAD_ANGLE].to_radians();
+        let along = (x[ix::STACK] + x[ix::OFFSET] * h.cos() - drop - (radii.front - radii.rear))
+            / h.sin().max(0.3);
+        let a2c = along - x[ix::HEAD_TUBE] - x[ix::HEADSET_LOWER];
+        if a2c.is_finite() && (250.0..=700.0).contains(&a2c) {
+            x[ix::A2C] = a2c;
+        }
+    }
+    if get("seat_angle_actual_deg").is_none() {
+        if let Some(a) = get("seat_angle_effective_deg") {
+            x[ix::SEAT_ANGLE] = a;
+        }
+    }
+    x
+}
+
+/// Fits from the first guess; when that fails or leaves values inconsistent, tries other starts
+/// and keeps the converged fit with the lowest cost.
+fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X) -> Option<Fitted> {
+    let good = |f: &Fitted| {
+        within_hard_ranges(model, &f.x) && diagnose::all_consistent(model, &f.x, rows, free)
+    };
+    let first = fit(model, rows, free, x0);
+    if first.as_ref().is_some_and(good) {
+        return first;
+    }
+    let mut best = first;
+    let mut others = [typical(), *x0, *x0];
+    others[1][ix::HEAD_ANGLE] = 70.0;
+    others[1][ix::SEAT_ANGLE] = 73.0;
+    others[2][ix::REAR_CENTRE] = 400.0;
+    others[2][ix::HEAD_ANGLE] = 63.0;
+    for mut start in others {
+        // Unknowns outside `free` keep their planned (prior or typical) value.
+        for (i, v) in start.iter_mut().enumerate() {
+            if !free.contains(&i) {
+                *v = x0.get(i).copied().unwrap_or(*v);
+            }
+        }
+        if let Some(f) = fit(model, rows, free, &start) {
+            if good(&f) {
+                return Some(f);
+            }
+            let rank = |f: &Fitted| (!within_hard_ranges(model, &f.x), f.cost);
+            if best.as_ref().is_none_or(|b| rank(&f) < rank(b)) {
+                best = Some(f);
+            }
+        }
+    }
+    best
+}
+
+fn no_solution(prefix: &str) -> FieldError {
+    FieldError::new(
+        "no_solution",
+        prefix,
+        "the published numbers could not be fitted to one frame from any start; check them for typing errors",
+    )
+}
+
+fn value(given: &BTreeMap<String, Given>, key: &str) -> Option<f64> {
+    given.get(key).map(|g| g.value)
+}
+
+/// Impossible combinations of given values, found before solving.
+fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldError> {
+    let v = |k| value(given, k);
+    if let (Some(cs), Some(drop)) = (v("chainstay_mm"), v("bb_drop_mm")) {
+        if cs <= drop.abs() {
+            return Err(short_chainstay(prefix, cs, drop));
+        }
+    }
+    if let (Some(cs), Some(rc)) = (v("chainstay_mm"), v("rear_centre_mm")) {
+        if rc > cs + HARD_SLACK {
+            return Err(FieldError::new(
+                "impossible",
+                format!("{prefix}.rear_centre_mm"),
+                format!(
+                    "rear centre {} mm is longer than the chainstay {} mm; the horizontal distance can be at most the straight one",
+                    fmt_num(rc),
+                    fmt_num(cs)
+                ),
+            ));
+        }
+    }
+    if let Some(wb) = v("wheelbase_mm") {
+        for part in ["front_centre_mm", "rear_centre_mm"] {
+            if let Some(p) = v(part) {
+                if wb <= p {
+                    return Err(FieldError::new(
+                        "impossible",
+                        format!("{prefix}.wheelbase_mm"),
+                        format!(
+                            "wheelbase {} mm is not longer than the {} of {} mm; it must be longer (wheelbase = front centre + rear centre)",
+                            fmt_num(wb),
+                            lookup(part).map_or(part, |m| m.label).to_lowercase(),
+                            fmt_num(p)
+                        ),
+                    ));
+                }
+            }
+        }
+    }
+    Ok(())
+}
+
+fn short_chainstay(prefix: &str, cs: f64, drop: f64) -> FieldError {
+    FieldError::new(
+        "impossible",
+        format!("{prefix}.chainstay_mm"),
+        format!(
+            "chainstay {} mm is not longer than the {} mm between the BB and rear axle heights (BB drop); it must be longer",
+            fmt_num(cs),
+            fmt_num(drop.abs())
+        ),
+    )
+}
+
+/// Impossible frames found after solving: a chainstay no longer than the solved BB drop, and
+/// solved parameters outside the catalogue's hard ranges.
+fn postcheck(
+    given: &BTreeMap<String, Given>,
+    x: &X,
+    params: &FrameParams,
+    prefix: &str,
+) -> Result<(), FieldError> {
+    if let Some(cs) = value(given, "chainstay_mm") {
+        if cs <= params.bb_drop.abs() + 1.0 {
+            return Err(short_chainstay(prefix, cs, params.bb_drop));
+        }
+    }
+    let checks = UNKNOWNS
+        .iter()
+        .zip(x.iter())
+        .map(|(u, v)| (u.key, *v))
+        .chain([("bb_drop_mm", params.bb_drop)]);
+    for (key, v) in checks {
+        let Some(m) = lookup(key) else { continue };
+        if !inside_hard(m, v) {
+            return Err(FieldError::new(
+                "impossible",
+                format!("{prefix}.{key}"),
+                format!(
+                    "together the published numbers put the {} at {} {}, which no frame can have (allowed {} to {} {}); check the values",
+                    m.label.to_lowercase(),
+                    fmt_num(v),
+                    m.unit.symbol(),
+                    fmt_num(m.hard.0),
+                    fmt_num(m.hard.1),
+                    m.unit.symbol()
+                ),
+            ));
+        }
+    }
+    Ok(())
+}
+
+/// Slack on the hard ranges for solved values: ten default roundings (10 mm, 1°), so that a
+/// fit that spreads one wrong value is reported as inconsistent rather than impossible.
+const HARD_SLACK: f64 = 10.0;
+
+fn inside_hard(m: &crate::catalogue::Measurement, v: f64) -> bool {
+    let slack = HARD_SLACK * m.default_tolerance();
+    v.is_finite() && (m.hard.0 - slack..=m.hard.1 + slack).contains(&v)
+}
+
+/// True when every solved parameter and the BB drop lie within the hard ranges (with slack).
+fn within_hard_ranges(model: &Model, x: &X) -> bool {
+    let drop = to_params(x, model.radii).bb_drop;
+    UNKNOWNS
+        .iter()
+        .zip(x.iter())
+        .map(|(u, v)| (u.key, *v))
+        .chain([("bb_drop_mm", drop)])
+        .all(|(k, v)| lookup(k).is_none_or(|m| inside_hard(m, v)))
+}
+
+/// Warnings for the unknowns the published numbers leave free.
+fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let describe = |u: usize| {
+        UNKNOWNS.get(u).map(|u| {
+            let m = lookup(u.key);
+            let label = m.map_or(u.key, |m| m.label);
+            let unit = m.map_or("", |m| m.unit.symbol());
+            (u.key, label, u.prior.unwrap_or(u.typical), unit)
+        })
+    };
+    for d in plan.priors.iter().filter_map(|&u| describe(u)) {
+        out.push(Warning::new(
+            "assumed",
+            format!(
+                "{} is not fixed by the published numbers: assumed {} {} (give {} to replace it).",
+                d.1,
+                fmt_num(d.2),
+                d.3,
+                d.0
+            ),
+        ));
+    }
+    if !plan.pinned.is_empty() {
+        let list: Vec<String> = plan
+            .pinned
+            .iter()
+            .filter_map(|&u| describe(u))
+            .map(|d| format!("{} {} {}", d.1.to_lowercase(), fmt_num(d.2), d.3))
+            .collect();
+        out.push(Warning::new(
+            "underdetermined",
+            format!(
+                "The published numbers do not fix the whole frame; these are typical values, not this frame's: {}. Add {} to fix them.",
+                list.join(", "),
+                plan.missing.join(", ")
+            ),
+        ));
+    }
+    out
+}

@@ -1,0 +1,116 @@
+//! The solver's unknowns: the eleven core parameters in millimetres and degrees, how they map to
+//! [`FrameParams`], their typical values and which of them have a stated prior.
+
+use crate::geometry::{FrameParams, Radii};
+
+/// Number of unknowns (BB drop is not one: the tyres-on-the-ground condition fixes it).
+pub const N_UNKNOWNS: usize = 11;
+
+/// One unknown of the solver.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Unknown {
+    /// The catalogue key that measures this parameter directly.
+    pub key: &'static str,
+    /// The value used when nothing determines it and it has no prior (mm or degrees), also the
+    /// first guess.
+    pub typical: f64,
+    /// A weak, stated prior used only when the published numbers leave the parameter free.
+    pub prior: Option<f64>,
+}
+
+/// Index of each unknown in the solver's vector.
+pub mod ix {
+    /// Rear centre, mm.
+    pub const REAR_CENTRE: usize = 0;
+    /// Reach, mm.
+    pub const REACH: usize = 1;
+    /// Stack, mm.
+    pub const STACK: usize = 2;
+    /// Head angle, degrees.
+    pub const HEAD_ANGLE: usize = 3;
+    /// Head tube, mm.
+    pub const HEAD_TUBE: usize = 4;
+    /// Lower headset stack, mm.
+    pub const HEADSET_LOWER: usize = 5;
+    /// Fork axle-to-crown, mm.
+    pub const A2C: usize = 6;
+    /// Fork offset, mm.
+    pub const OFFSET: usize = 7;
+    /// Actual seat angle, degrees.
+    pub const SEAT_ANGLE: usize = 8;
+    /// Seat axis offset, mm.
+    pub const SEAT_OFFSET: usize = 9;
+    /// Seat tube length, mm.
+    pub const SEAT_TUBE: usize = 10;
+}
+
+/// The unknowns in vector order. Typical values describe a mid-size trail bike [practice]; they
+/// are only a start for the search and a stated stand-in for a parameter nothing fixes.
+/// Priors: lower headset stack 0 mm (internal cups) and seat axis offset 0 mm (straight seat
+/// tube through the BB) [practice].
+pub const UNKNOWNS: [Unknown; N_UNKNOWNS] = [
+    u("rear_centre_mm", 435.0, None),
+    u("reach_mm", 450.0, None),
+    u("stack_mm", 620.0, None),
+    u("head_angle_deg", 66.0, None),
+    u("head_tube_mm", 110.0, None),
+    u("headset_lower_mm", 0.0, Some(0.0)),
+    u("fork_a2c_mm", 560.0, None),
+    u("fork_offset_mm", 44.0, None),
+    u("seat_angle_actual_deg", 75.0, None),
+    u("seat_axis_offset_mm", 0.0, Some(0.0)),
+    u("seat_tube_mm", 430.0, None),
+];
+
+const fn u(key: &'static str, typical: f64, prior: Option<f64>) -> Unknown {
+    Unknown {
+        key,
+        typical,
+        prior,
+    }
+}
+
+/// The order in which free parameters without a prior are pinned to their typical value: the
+/// rarely published fork first.
+pub const PIN_ORDER: [usize; N_UNKNOWNS] = [
+    ix::HEADSET_LOWER,
+    ix::SEAT_OFFSET,
+    ix::A2C,
+    ix::OFFSET,
+    ix::HEAD_TUBE,
+    ix::SEAT_TUBE,
+    ix::REAR_CENTRE,
+    ix::SEAT_ANGLE,
+    ix::HEAD_ANGLE,
+    ix::STACK,
+    ix::REACH,
+];
+
+/// The unknown vector (mm and degrees).
+pub type X = [f64; N_UNKNOWNS];
+
+/// The frame parameters for `x`, with the BB drop that puts both tyres on the ground
+/// (`F.y − R.y = r_front − r_rear`, DESIGN.md §8a).
+pub fn to_params(x: &X, radii: Radii) -> FrameParams {
+    let mut p = FrameParams {
+        rear_centre: x[ix::REAR_CENTRE],
+        bb_drop: 0.0,
+        reach: x[ix::REACH],
+        stack: x[ix::STACK],
+        head_angle: x[ix::HEAD_ANGLE].to_radians(),
+        head_tube: x[ix::HEAD_TUBE],
+        headset_lower: x[ix::HEADSET_LOWER],
+        a2c: x[ix::A2C],
+        offset: x[ix::OFFSET],
+        seat_angle: x[ix::SEAT_ANGLE].to_radians(),
+        seat_axis_offset: x[ix::SEAT_OFFSET],
+        seat_tube: x[ix::SEAT_TUBE],
+    };
+    p.bb_drop = p.grounded_bb_drop(radii);
+    p
+}
+
+/// The typical frame.
+pub fn typical() -> X {
+    UNKNOWNS.map(|u| u.typical)
+}

@@ -1,0 +1,107 @@
+//! One test per class of bad input: text, NaN, infinities, negative lengths, impossible
+//! combinations. Each gets a typed error naming the field, the value and what is allowed; no
+//! panic, no NaN in a report.
+
+use framewise_kernel::{evaluate, Published, Report, Scenario};
+
+fn base() -> Scenario {
+    serde_json::from_value(serde_json::json!({
+        "version": 1,
+        "bikes": [{ "label": "bad input",
+            "frame": { "reach_mm": 450, "stack_mm": 620, "head_angle_deg": 66, "head_tube_mm": 110,
+                       "fork_a2c_mm": 560, "fork_offset_mm": 44, "chainstay_mm": 435,
+                       "seat_angle_actual_deg": 75, "seat_tube_mm": 430 },
+            "wheels": { "front": "29x2.4", "rear": "29x2.4" } }]
+    }))
+    .unwrap()
+}
+
+fn with(key: &str, v: f64) -> Report {
+    let mut s = base();
+    s.bikes[0].frame.insert(key.into(), Published::Value(v));
+    evaluate(&s)
+}
+
+fn only_error(r: &Report) -> (&str, &str, &str) {
+    assert!(r.bikes.is_empty(), "no bike report on bad input");
+    assert_eq!(r.errors.len(), 1, "{:?}", r.errors);
+    let e = &r.errors[0];
+    (e.code.as_str(), e.field.as_str(), e.message.as_str())
+}
+
+#[test]
+fn text_where_a_wheel_or_key_is_expected() {
+    let mut s = base();
+    s.bikes[0].wheels.front = Some(framewise_kernel::WheelSpec::Designation("big".into()));
+    let r = evaluate(&s);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("unknown_wheel", "bikes[0].wheels.front"));
+    assert!(msg.contains("\"big\"") && msg.contains("62-622"), "{msg}");
+    let r = with("reach", 450.0);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("unknown_key", "bikes[0].frame.reach"));
+    assert!(msg.contains("reach_mm"));
+}
+
+#[test]
+fn nan() {
+    let r = with("stack_mm", f64::NAN);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("not_a_number", "bikes[0].frame.stack_mm"));
+    assert!(msg.contains("NaN") && msg.contains("250") && msg.contains("900"), "{msg}");
+}
+
+#[test]
+fn infinities() {
+    for v in [f64::INFINITY, f64::NEG_INFINITY] {
+        let r = with("head_angle_deg", v);
+        let (code, field, msg) = only_error(&r);
+        assert_eq!((code, field), ("not_a_number", "bikes[0].frame.head_angle_deg"));
+        assert!(msg.contains("inf") && msg.contains("45") && msg.contains("85"), "{msg}");
+    }
+}
+
+#[test]
+fn negative_lengths() {
+    let r = with("head_tube_mm", -110.0);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("out_of_range", "bikes[0].frame.head_tube_mm"));
+    assert!(msg.contains("-110") && msg.contains("between 30 and 400"), "{msg}");
+}
+
+#[test]
+fn impossible_combinations() {
+    // A chainstay shorter than the BB drop it must span: here the drop the tall stack, short
+    // fork and wheels imply (tyres on the ground). The hard ranges alone cannot catch it.
+    let mut s = base();
+    s.bikes[0].frame.insert("chainstay_mm".into(), Published::Value(260.0));
+    s.bikes[0].frame.insert("fork_a2c_mm".into(), Published::Value(250.0));
+    s.bikes[0].frame.insert("stack_mm".into(), Published::Value(800.0));
+    let r = evaluate(&s);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("impossible", "bikes[0].frame.chainstay_mm"));
+    assert!(msg.contains("260") && msg.contains("must be longer"), "{msg}");
+    // A wheelbase no longer than the front centre.
+    let mut s = base();
+    s.bikes[0].frame.insert("front_centre_mm".into(), Published::Value(780.0));
+    s.bikes[0].frame.insert("wheelbase_mm".into(), Published::Value(700.0));
+    let r = evaluate(&s);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("impossible", "bikes[0].frame.wheelbase_mm"));
+    assert!(msg.contains("700") && msg.contains("780"), "{msg}");
+}
+
+#[test]
+fn a_report_never_holds_a_non_finite_number() {
+    for v in [0.0, 1e300, -1e300, f64::MIN_POSITIVE, f64::NAN] {
+        for key in ["reach_mm", "seat_angle_effective_deg", "trail_mm", "bb_height_mm"] {
+            let r = with(key, v);
+            for b in &r.bikes {
+                let all = b.stock.values().chain(b.ridden.values()).chain(b.derived.values());
+                assert!(all.clone().all(|x| x.is_finite()), "{key} = {v}");
+                assert!(b.residuals.values().all(|x| x.solved.is_finite() && x.residual.is_finite()));
+            }
+            assert!(!r.bikes.is_empty() || !r.errors.is_empty());
+        }
+    }
+}
