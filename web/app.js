@@ -56,9 +56,7 @@ function applySize(size) {
   update();
 }
 
-if (typeof wasm.import_chart === 'function') {
-  attachChart(document.getElementById('chart'), wasm.import_chart, applySize);
-}
+attachChart(document.getElementById('chart'), wasm.import_chart_with_answers, applySize);
 
 form.addEventListener('input', update);
 update();

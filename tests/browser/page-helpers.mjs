@@ -4,13 +4,13 @@ import assert from 'node:assert/strict';
 /** The number in a result cell (minus sign written as U+2212). */
 export async function cell(page, key, col = 'ridden') {
   const text = await page.locator(`#results tr[data-key="${key}"] td[data-col="${col}"]`).first().textContent();
-  return Number.parseFloat(text.replace('−', '-'));
+  return Number.parseFloat(text.replace('−', '-').replace(/[^0-9.+-]/g, ''));
 }
 
 export async function waitCell(page, key, want, tol, col = 'ridden') {
   await page.waitForFunction(([k, c, w, t]) => {
     const td = document.querySelector(`#results tr[data-key="${k}"] td[data-col="${c}"]`);
-    return td && Math.abs(Number.parseFloat(td.textContent.replace('−', '-')) - w) <= t;
+    return td && Math.abs(Number.parseFloat(td.textContent.replace('−', '-').replace(/[^0-9.+-]/g, '')) - w) <= t;
   }, [key, col, want, tol], { timeout: 5000 }).catch(() => {});
   const got = await cell(page, key, col);
   assert.ok(Math.abs(got - want) <= tol, `${key} (${col}) shown ${got}, formula ${want}`);

@@ -19,36 +19,54 @@ function list(title, items, cls) {
   return el('div', { class: cls }, el('h3', {}, title), el('ul', {}, ...items.map((i) => el('li', {}, text(i)))));
 }
 
+function questionList(questions, answers, reread) {
+  if (!questions?.length) return null;
+  const items = questions.map((q, i) => {
+    const id = `chart-q-${i}`;
+    const select = el('select', { id });
+    for (const o of q.options ?? []) select.append(el('option', { value: o, selected: o === q.chosen }, o));
+    select.addEventListener('change', () => { answers[q.id] = select.value; reread(); });
+    return el('li', { class: 'question' }, el('label', { htmlFor: id }, q.message), select);
+  });
+  return el('div', { class: 'chart-questions' }, el('h3', {}, 'Questions'), el('ul', {}, ...items));
+}
+
 /**
- * Wires the paste box. `importChart(text) → JSON text` is the wasm binding; `apply(size)` fills
- * the form from `{label, frame, wheels}` and recomputes.
+ * Wires the paste box. `importChart(text, answersJson) → JSON text` is the wasm binding;
+ * `apply(size)` fills the form from `{label, frame, wheels}` and recomputes.
  */
 export function attachChart(section, importChart, apply) {
   section.hidden = false;
   const text = section.querySelector('#chart-text');
   const out = section.querySelector('#chart-out');
-  section.querySelector('#chart-read').addEventListener('click', () => {
-    const run = JSON.parse(importChart(text.value));
+  let answers = {};
+  let picked = null;
+  function read() {
+    const run = JSON.parse(importChart(text.value, JSON.stringify(answers)));
     const sizes = run.sizes ?? [];
     const parts = [];
+    if (run.error) parts.push(el('p', { class: 'chart-error', role: 'alert' }, run.error.message));
     if (sizes.length) {
-      const group = el('div', { class: 'sizes', role: 'radiogroup', 'aria-label': 'Sizes in the chart' });
+      const group = el('div', { class: 'sizes', role: 'group', 'aria-label': 'Sizes in the chart' });
       sizes.forEach((s, i) => {
-        const b = el('button', { type: 'button', class: 'size', role: 'radio', 'aria-checked': 'false', 'data-size': String(i) }, s.label || `Size ${i + 1}`);
+        const b = el('button', { type: 'button', class: 'size', 'aria-pressed': String(s.label === picked), 'data-size': s.label }, s.label || `Size ${i + 1}`);
         b.addEventListener('click', () => {
-          for (const o of group.children) o.setAttribute('aria-checked', String(o === b));
+          picked = s.label;
+          for (const o of group.children) o.setAttribute('aria-pressed', String(o === b));
           apply(s);
         });
         group.append(b);
       });
-      parts.push(el('p', { class: 'chart-count' }, `${sizes.length} size${sizes.length > 1 ? 's' : ''} found; pick one to fill in the frame numbers.`), group);
-    } else {
+      parts.push(el('p', { class: 'chart-count' }, `${sizes.length} size${sizes.length > 1 ? 's' : ''} read; pick one to fill in the frame numbers.`), group);
+      const again = sizes.find((s) => s.label === picked);
+      if (again) apply(again);
+    } else if (!run.error) {
       parts.push(el('p', { class: 'chart-none' }, 'No sizes could be read from this text.'));
     }
-    parts.push(list('Rows not recognised', run.unrecognised, 'chart-unrecognised'));
-    parts.push(list('Questions', run.questions, 'chart-questions'));
-    parts.push(list('Notes', run.notes, 'chart-notes'));
-    if (run.error) parts.push(el('p', { class: 'msg' }, run.error.message ?? String(run.error)));
+    parts.push(list('Rows not recognised (not used)', run.unrecognised, 'chart-unrecognised'));
+    parts.push(questionList(run.questions, answers, read));
+    parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : n.message)), 'chart-notes'));
     out.replaceChildren(...parts.filter(Boolean));
-  });
+  }
+  section.querySelector('#chart-read').addEventListener('click', () => { answers = {}; picked = null; read(); });
 }

@@ -9,15 +9,9 @@ use crate::units::{parse_quantity, Quantity};
 use framewise_kernel::{BikeInput, FieldError, Published, RiderInput, Scenario, WheelSpec};
 use std::collections::BTreeMap;
 
-/// Frame fields that may not be blank on the page.
-pub const REQUIRED: &[&str] = &[
-    "frame.reach_mm",
-    "frame.stack_mm",
-    "frame.head_angle_deg",
-    "frame.head_tube_mm",
-    "frame.fork_a2c_mm",
-    "frame.fork_offset_mm",
-];
+/// Frame fields that may not be blank on the page: every listing gives them, and the solver
+/// needs them to place the frame (the rest it solves or assumes, and names what is missing).
+pub const REQUIRED: &[&str] = &["frame.reach_mm", "frame.stack_mm", "frame.head_angle_deg"];
 
 /// Builds a scenario from the form. Errors carry the form field name in `field`.
 pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<FieldError>) {

@@ -1,0 +1,77 @@
+// Browser tests of the chart paste box at phone and desk sizes: paste an invented chart, pick a
+// size, see its numbers in the form and the tables; rows not recognised are listed; a question
+// about an ambiguous row can be answered and changes the reading.
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { readFileSync } from 'node:fs';
+import { startAll, openPage, SHOTS, ROOT } from './harness.mjs';
+import { cell, waitCell } from './page-helpers.mjs';
+
+let env;
+before(async () => { env = await startAll(); });
+after(async () => { await env?.stop(); });
+
+const T = { timeout: 60000 };
+const SIZES = [['phone', 360, 740], ['desk', 1280, 800]];
+const chart = (name) => readFileSync(`${ROOT}tests/charts/${name}`, 'utf8');
+const rad = (d) => (d * Math.PI) / 180;
+
+for (const [name, width, height] of SIZES) {
+  test(`${name}: paste a chart, pick a size, see its numbers`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    await page.fill('#chart-text', chart('01_web_tab_columns.txt'));
+    await page.click('#chart-read');
+    assert.deepEqual(await page.locator('#chart-out button.size').allTextContents(), ['S', 'M', 'L', 'XL']);
+    await page.click('#chart-out button.size[data-size="L"]');
+    assert.equal(await page.locator('#chart-out button.size[data-size="L"]').getAttribute('aria-pressed'), 'true');
+    // The form now holds size L's numbers from the chart text; fields the chart lacks are blank.
+    assert.equal(await page.inputValue('[name="frame.reach_mm"]'), '475');
+    assert.equal(await page.inputValue('[name="frame.wheelbase_mm"]'), '1232');
+    assert.equal(await page.inputValue('[name="frame.head_tube_mm"]'), '');
+    assert.equal(await page.inputValue('[name="label"]'), 'Chart size L');
+    // The table shows them as published (values from the chart text above).
+    await waitCell(page, 'reach_mm', 475, 0.05, 'given');
+    await waitCell(page, 'stack_mm', 628, 0.05, 'given');
+    await waitCell(page, 'head_angle_deg', 64.5, 0.05, 'given');
+    // The solved frame is a frame: its trail follows the published formula from its own solved
+    // head angle and offset. Source: T = (R·cos h − o)/sin h, R = 622/2 + 2.4·25.4 mm for 29x2.4
+    // (Wikipedia, "Bicycle and motorcycle geometry"; ISO 5775 section-height estimate).
+    const h = rad(await cell(page, 'head_angle_deg', 'stock'));
+    const o = await cell(page, 'fork_offset_mm', 'stock');
+    const R = 622 / 2 + 2.4 * 25.4;
+    await waitCell(page, 'trail_mm', (R * Math.cos(h) - o) / Math.sin(h), 0.15, 'stock');
+    // What the chart did not give is asked for by name.
+    assert.match(await page.locator('#results .missing').textContent(), /Fork axle-to-crown/);
+    await page.locator('#chart').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/page-${name}-chart.png` });
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
+  test(`${name}: rows not recognised are listed and questions can be answered`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    await page.fill('#chart-text', chart('09_unknown_rows.txt'));
+    await page.click('#chart-read');
+    const unknown = await page.locator('#chart-out .chart-unrecognised li').allTextContents();
+    assert.ok(unknown.some((t) => /Stem length/.test(t)), unknown.join(' | '));
+    assert.ok(unknown.some((t) => /Rider height/.test(t)), unknown.join(' | '));
+    await page.fill('#chart-text', 'Size\tS\tM\nReach\t450\t475\nStack\t620\t630\nHTA\t65\t65\nSTA\t76\t76\n');
+    await page.click('#chart-read');
+    await page.click('#chart-out button.size[data-size="M"]');
+    const q = page.locator('#chart-out .chart-questions select').first();
+    assert.deepEqual(await q.locator('option').allTextContents(), ['effective', 'actual']);
+    assert.equal(await page.inputValue('[name="frame.seat_angle_effective_deg"]'), '76');
+    await q.selectOption('actual');
+    await page.waitForFunction(() => document.querySelector('[name="frame.seat_angle_actual_deg"]').value === '76', null, { timeout: 5000 });
+    assert.equal(await page.inputValue('[name="frame.seat_angle_effective_deg"]'), '');
+    await waitCell(page, 'seat_angle_actual_deg', 76, 0.05, 'given');
+    // Nonsense gets a plain message and leaves the bike alone.
+    const svg = await page.locator('#drawing svg').innerHTML();
+    await page.fill('#chart-text', 'hello');
+    await page.click('#chart-read');
+    assert.ok((await page.locator('#chart-out .chart-error').textContent()).length > 10);
+    assert.equal(await page.locator('#drawing svg').innerHTML(), svg);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+}
