@@ -152,6 +152,7 @@ for (const [name, width, height] of SIZES) {
         (els) => els.filter((e) => e.getBoundingClientRect().height > 0 && e.getBoundingClientRect().height < 44)
           .map((e) => `${e.tagName} ${e.id || e.name || e.textContent.trim().slice(0, 20)}`));
       assert.deepEqual(small, [], 'touch targets at least 44 px high');
+      await page.evaluate(() => window.scrollTo(0, 0));
       await page.screenshot({ path: `${SHOTS}/page-${name}-${scheme}.png` });
       await page.locator('#results').scrollIntoViewIfNeeded();
       await page.screenshot({ path: `${SHOTS}/page-${name}-${scheme}-numbers.png` });

@@ -35,7 +35,8 @@ function term(key, scope, words) {
     'data-term': key, 'data-scope': scope,
   }, label);
   const unit = unitOf(key)[1];
-  return unit ? [btn, el('span', { class: 'u' }, unit)] : [btn];
+  if (unit) btn.append(el('span', { class: 'u' }, unit));
+  return [btn];
 }
 
 function defRow(key, words, span) {
@@ -114,7 +115,7 @@ function model(bike, notes, catalogue) {
 function shapeOf(blocks) {
   return JSON.stringify(blocks.map((b) => (b.type === 'table'
     ? [b.caption, b.cols, b.rows.map((r) => [r.key, Boolean(r.note)])]
-    : [b.type, b.keys ?? b.items.length])));
+    : [b.type, b.keys ?? b.items.map((i) => i.cls)])));
 }
 
 /** Every changeable value in render order: row classes, cell texts, notes, list items. */
@@ -153,17 +154,25 @@ function buildTable(b, words, refs) {
 }
 
 function buildItems(b, refs) {
-  const items = b.items.map((i) => {
+  const main = el('ul');
+  const minor = el('ul');
+  for (const i of b.items) {
     const text = el('span', { class: 'item-text' }, i.text);
     const source = el('small', { class: 'source' }, i.source ? `Source: ${i.source}` : '');
     const li = b.type === 'checks'
       ? el('li', { class: i.cls }, el('span', { class: 'check-mark', 'aria-hidden': 'true' }), el('span', {}, text, ' ', source))
       : el('li', { class: i.cls }, text);
     refs.push([li, 'class'], [text, 'text'], [source, b.type === 'checks' ? 'source' : 'none']);
-    return li;
-  });
+    (b.type === 'warnings' && i.cls === 'note' ? minor : main).append(li);
+  }
   const title = b.type === 'checks' ? 'Fit and safety checks' : 'Warnings and cautions';
-  return el('div', { class: b.type }, el('h3', {}, title), el('ul', {}, ...items));
+  const box = el('div', { class: b.type });
+  if (main.children.length) box.append(el('h3', {}, title), main);
+  if (minor.children.length) {
+    box.append(el('details', { class: 'notes' },
+      el('summary', {}, `Assumptions and notes (${minor.children.length})`), minor));
+  }
+  return box;
 }
 
 function buildMissing(b, words) {
