@@ -6,8 +6,10 @@
 
 pub mod form;
 pub mod json;
+pub mod link;
 pub mod units;
 
 pub use form::scenario_from_form;
+pub use link::{decode_link, encode_link, LinkError, LINK_VERSION};
 pub use json::{report_to_json, scenario_from_json};
 pub use units::{parse_quantity, Quantity, UnitError};
