@@ -76,11 +76,11 @@ pub fn fragment_of(link: &str) -> &str {
 /// Empty, too long, not base64url, cut short, damaged (check byte or contents), or written by a
 /// newer version: each a [`LinkError`] whose message says what is wrong.
 pub fn decode_link(link: &str) -> Result<Scenario, LinkError> {
+    if link.contains("://") && !link.contains('#') {
+        return Err(LinkError::NoFragment);
+    }
     let frag = fragment_of(link);
     if frag.is_empty() {
-        if link.contains("://") && !link.contains('#') {
-            return Err(LinkError::NoFragment);
-        }
         return Err(LinkError::Empty);
     }
     if frag.len() > MAX_FRAGMENT_CHARS {

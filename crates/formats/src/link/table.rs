@@ -67,7 +67,8 @@ pub(crate) struct Field {
 /// A group of fields: a JSON object.
 #[derive(Debug)]
 pub(crate) struct Group {
-    /// Path name for messages.
+    /// The group's name (for tests and debugging).
+    #[allow(dead_code)]
     pub name: &'static str,
     /// The fields in link order.
     pub fields: &'static [Field],
