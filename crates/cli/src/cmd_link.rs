@@ -44,6 +44,8 @@ mod tests {
         let back = scenario_from_json(&open(&url).unwrap()).unwrap();
         let want = scenario_from_json(&json).unwrap();
         assert_eq!(back, want);
-        assert!(open("#@@").unwrap_err().starts_with("cannot open the link: the link is damaged"));
+        assert!(open("#@@")
+            .unwrap_err()
+            .starts_with("cannot open the link: the link is damaged"));
     }
 }

@@ -48,7 +48,8 @@ pub fn form_view(scenario: &Scenario) -> FormView {
 
 fn first_bike(out: &mut FormView, bike: &BikeInput) {
     if !bike.label.trim().is_empty() {
-        out.fields.insert("label".into(), bike.label.trim().to_string());
+        out.fields
+            .insert("label".into(), bike.label.trim().to_string());
     }
     for (key, p) in &bike.frame {
         out.fields
@@ -148,7 +149,11 @@ mod tests {
         assert_eq!(v.bikes, 2);
         assert!(!v.fields.contains_key("wheels.front"));
         for path in ["wheels.front", "setup.bar_type", "bikes[1]"] {
-            assert!(v.omitted.iter().any(|p| p == path), "{path}: {:?}", v.omitted);
+            assert!(
+                v.omitted.iter().any(|p| p == path),
+                "{path}: {:?}",
+                v.omitted
+            );
         }
     }
 }

@@ -1,6 +1,13 @@
 //! Link length budgets (issue 6): one bike with its setup and a rider in at most 120 characters
 //! of fragment, four bikes and a rider in at most 400. Prints the measured length against the
 //! information bound (`cargo test -p framewise-formats --test link_budget -- --nocapture`).
+// Test helpers outside #[test] functions may unwrap, index and panic too (clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
 
 mod link_common;
 
@@ -25,7 +32,10 @@ fn measure(name: &str, s: &Scenario) -> usize {
     );
     // The bound is a bound: no code of these fields fits in fewer bits than it when values
     // spread over their ranges; ours must not be absurdly above it either.
-    assert!(bound > 0.0 && ((bytes - 2) * 8) as f64 <= bound * 2.0, "{name}");
+    assert!(
+        bound > 0.0 && ((bytes - 2) * 8) as f64 <= bound * 2.0,
+        "{name}"
+    );
     frag.len()
 }
 

@@ -1,5 +1,12 @@
 //! Links that cannot be read get a typed error with a message that says what is wrong; nothing
 //! panics, whatever the text.
+// Test helpers outside #[test] functions may unwrap, index and panic too (clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
 
 mod link_common;
 
@@ -41,7 +48,10 @@ fn truncated_links_say_they_are_cut_short_or_damaged() {
     for cut in [1, 2, 5, 20, frag.len() - 1] {
         let e = decode_link(&frag[..frag.len() - cut]).unwrap_err();
         assert!(
-            matches!(e, LinkError::Truncated | LinkError::Checksum | LinkError::NotBase64(_)),
+            matches!(
+                e,
+                LinkError::Truncated | LinkError::Checksum | LinkError::NotBase64(_)
+            ),
             "cut {cut}: {e:?}"
         );
         assert!(e.to_string().contains("copy the whole link again"), "{e}");
@@ -82,26 +92,44 @@ fn oversized_links_are_refused_before_decoding() {
     let long = "A".repeat(MAX_FRAGMENT_CHARS + 1);
     assert_eq!(
         decode_link(&long),
-        Err(LinkError::TooLong { chars: MAX_FRAGMENT_CHARS + 1, max: MAX_FRAGMENT_CHARS })
+        Err(LinkError::TooLong {
+            chars: MAX_FRAGMENT_CHARS + 1,
+            max: MAX_FRAGMENT_CHARS
+        })
     );
-    assert!(decode_link(&long).unwrap_err().to_string().contains("at most 4096"));
+    assert!(decode_link(&long)
+        .unwrap_err()
+        .to_string()
+        .contains("at most 4096"));
 }
 
 #[test]
 fn future_and_unknown_versions_say_so() {
     let future = with_check(vec![LINK_VERSION + 1, 0xAB, 0xCD]);
     let e = decode_link(&future).unwrap_err();
-    assert_eq!(e, LinkError::FutureVersion { found: LINK_VERSION + 1, newest: LINK_VERSION });
+    assert_eq!(
+        e,
+        LinkError::FutureVersion {
+            found: LINK_VERSION + 1,
+            newest: LINK_VERSION
+        }
+    );
     assert!(e.to_string().contains("newer version"), "{e}");
     assert!(e.to_string().contains("reload the page"), "{e}");
-    assert_eq!(decode_link(&with_check(vec![0, 1])), Err(LinkError::UnknownVersion(0)));
+    assert_eq!(
+        decode_link(&with_check(vec![0, 1])),
+        Err(LinkError::UnknownVersion(0))
+    );
 }
 
 #[test]
 fn empty_links_and_urls_without_a_fragment_are_explained() {
     assert_eq!(decode_link(""), Err(LinkError::Empty));
     assert_eq!(decode_link("#"), Err(LinkError::Empty));
-    assert_eq!(decode_link("https://example.org/"), Err(LinkError::NoFragment));
+    assert_eq!(
+        decode_link("https://example.org/"),
+        Err(LinkError::NoFragment)
+    );
 }
 
 #[test]
@@ -118,7 +146,10 @@ fn data_after_the_scenario_is_garbled_even_with_a_good_check_byte() {
 fn too_many_bikes_are_refused_when_writing() {
     let bikes: Vec<_> = (0..17).map(|_| trail_bike("x", 470.0)).collect();
     let s = scenario(serde_json::json!({ "bikes": bikes }));
-    assert_eq!(encode_link(&s), Err(LinkError::TooManyBikes { count: 17, max: 16 }));
+    assert_eq!(
+        encode_link(&s),
+        Err(LinkError::TooManyBikes { count: 17, max: 16 })
+    );
 }
 
 proptest! {

@@ -2,6 +2,13 @@
 //! the `.json` file beside it (written by hand, not by the codec). While the writer's version is
 //! 1 it must also produce the same fragment byte for byte. Refresh the fragments only with
 //! `UPDATE_LINKS=1 cargo test -p framewise-formats --test link_golden` and say why in the commit.
+// Test helpers outside #[test] functions may unwrap, index and panic too (clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
 
 use framewise_formats::{decode_link, encode_link, LINK_VERSION};
 use framewise_kernel::Scenario;
@@ -38,7 +45,11 @@ fn version_1_golden_links_decode_to_their_scenarios() {
         let decoded = decode_link(&link).unwrap_or_else(|e| panic!("{name}: {e}"));
         assert_eq!(decoded, scenario, "{name}");
         if LINK_VERSION == 1 {
-            assert_eq!(format!("#{}", encode_link(&scenario).unwrap()), link.trim(), "{name}");
+            assert_eq!(
+                format!("#{}", encode_link(&scenario).unwrap()),
+                link.trim(),
+                "{name}"
+            );
         }
     }
 }

@@ -1,6 +1,13 @@
 //! Round trips: every field of the scenario types has a slot in the link (a field added to
 //! `Setup`, `RiderInput`, `Changes`, … without one fails here), and random scenarios come back
 //! exactly at the link's resolution.
+// Test helpers outside #[test] functions may unwrap, index and panic too (clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
 
 mod link_common;
 
@@ -14,10 +21,16 @@ use serde_json::{json, Map, Value};
 
 /// Steps per unit the link keeps, by key suffix (docs/LINKS.md).
 fn denom(key: &str) -> Option<f64> {
-    [("_mm", 2.0), ("_deg", 20.0), ("_kg", 10.0), ("_pct", 10.0), ("_g", 100.0)]
-        .iter()
-        .find(|(s, _)| key.ends_with(s))
-        .map(|(_, d)| *d)
+    [
+        ("_mm", 2.0),
+        ("_deg", 20.0),
+        ("_kg", 10.0),
+        ("_pct", 10.0),
+        ("_g", 100.0),
+    ]
+    .iter()
+    .find(|(s, _)| key.ends_with(s))
+    .map(|(_, d)| *d)
 }
 
 /// Text fields and their usual words.
@@ -45,7 +58,9 @@ fn fill(keys: &[String], i: i64) -> Map<String, Value> {
                 match k.as_str() {
                     "dimensions" | "ghost" => json!(i % 2 == 0),
                     "selected" => json!(i),
-                    other => panic!("field {other}: unknown kind, add it to the link table and here"),
+                    other => {
+                        panic!("field {other}: unknown kind, add it to the link table and here")
+                    }
                 }
             };
             (k.clone(), v)
@@ -54,17 +69,33 @@ fn fill(keys: &[String], i: i64) -> Map<String, Value> {
 }
 
 fn without(keys: Vec<String>, skip: &[&str]) -> Vec<String> {
-    keys.into_iter().filter(|k| !skip.contains(&k.as_str())).collect()
+    keys.into_iter()
+        .filter(|k| !skip.contains(&k.as_str()))
+        .collect()
 }
 
 /// A scenario with every field of every type set.
 fn everything() -> Value {
     let wheels = |f: &str, r: &str| json!({ "front": f, "rear": r });
     assert_eq!(field_names::<WheelsInput>(), ["front", "rear"]);
-    assert_eq!(field_names::<Scenario>(), ["version", "rider", "bikes", "view"]);
+    assert_eq!(
+        field_names::<Scenario>(),
+        ["version", "rider", "bikes", "view"]
+    );
     let bike_keys = field_names::<BikeInput>();
-    let known = ["label", "frame", "seat_angle_ref_mm", "wheels", "setup", "changes", "load"];
-    assert!(bike_keys.iter().all(|k| known.contains(&k.as_str())), "new bike field: {bike_keys:?}");
+    let known = [
+        "label",
+        "frame",
+        "seat_angle_ref_mm",
+        "wheels",
+        "setup",
+        "changes",
+        "load",
+    ];
+    assert!(
+        bike_keys.iter().all(|k| known.contains(&k.as_str())),
+        "new bike field: {bike_keys:?}"
+    );
     let mut changes = fill(&without(field_names::<Changes>(), &["wheels"]), 3);
     changes.insert("wheels".into(), wheels("27.5x2.5", "62-584"));
     let frame: Map<String, Value> = CATALOGUE
@@ -72,7 +103,11 @@ fn everything() -> Value {
         .enumerate()
         .map(|(i, m)| {
             let v = (200 + i) as f64 / 2.0;
-            let p = if i % 3 == 0 { json!({ "value": v, "tolerance": 0.5 }) } else { json!(v) };
+            let p = if i % 3 == 0 {
+                json!({ "value": v, "tolerance": 0.5 })
+            } else {
+                json!(v)
+            };
             (m.key.to_string(), p)
         })
         .collect();
@@ -123,7 +158,9 @@ fn a_frame_key_outside_the_table_is_refused_by_name() {
     let s = scenario(json!({ "bikes": [{ "frame": { "reach_mm": 470, "mystery_mm": 1 } }] }));
     assert_eq!(
         encode_link(&s),
-        Err(LinkError::NotCovered { path: "bikes[0].frame.mystery_mm".into() })
+        Err(LinkError::NotCovered {
+            path: "bikes[0].frame.mystery_mm".into()
+        })
     );
 }
 
@@ -146,7 +183,9 @@ fn values_between_steps_round_to_the_nearest_step() {
 
 fn on_grid(key: &str) -> BoxedStrategy<Value> {
     let d = denom(key).unwrap_or(1.0);
-    (-200_000i64..200_000).prop_map(move |q| json!(q as f64 / d)).boxed()
+    (-200_000i64..200_000)
+        .prop_map(move |q| json!(q as f64 / d))
+        .boxed()
 }
 
 fn random_group(keys: Vec<String>) -> BoxedStrategy<Value> {
@@ -186,7 +225,10 @@ fn random_wheel() -> BoxedStrategy<Value> {
 }
 
 fn random_wheels() -> BoxedStrategy<Value> {
-    (proptest::option::of(random_wheel()), proptest::option::of(random_wheel()))
+    (
+        proptest::option::of(random_wheel()),
+        proptest::option::of(random_wheel()),
+    )
         .prop_map(|(f, r)| {
             let mut m = Map::new();
             if let Some(f) = f {
@@ -230,22 +272,27 @@ fn random_bike() -> BoxedStrategy<Value> {
         proptest::option::of(on_grid("_mm")),
         random_wheels(),
         random_group(field_names::<Setup>()),
-        (random_group(without(field_names::<Changes>(), &["wheels"])), random_wheels()),
+        (
+            random_group(without(field_names::<Changes>(), &["wheels"])),
+            random_wheels(),
+        ),
         proptest::option::of(random_group(field_names::<Load>())),
     )
-        .prop_map(|(label, frame, sref, wheels, setup, (mut changes, cw), load)| {
-            changes["wheels"] = cw;
-            let mut b = json!({ "label": label.trim(), "frame": frame, "wheels": wheels,
+        .prop_map(
+            |(label, frame, sref, wheels, setup, (mut changes, cw), load)| {
+                changes["wheels"] = cw;
+                let mut b = json!({ "label": label.trim(), "frame": frame, "wheels": wheels,
                                 "setup": setup, "changes": changes });
-            if let Some(r) = sref {
-                b["seat_angle_ref_mm"] = r;
-            }
-            // A load needs all three numbers.
-            if let Some(l) = load.filter(|l| l.as_object().is_some_and(|m| m.len() == 3)) {
-                b["load"] = l;
-            }
-            b
-        })
+                if let Some(r) = sref {
+                    b["seat_angle_ref_mm"] = r;
+                }
+                // A load needs all three numbers.
+                if let Some(l) = load.filter(|l| l.as_object().is_some_and(|m| m.len() == 3)) {
+                    b["load"] = l;
+                }
+                b
+            },
+        )
         .boxed()
 }
 

@@ -143,7 +143,10 @@ mod tests {
     #[test]
     fn a_hostile_label_from_a_link_is_inert_in_the_drawing() {
         // The label is shown in the drawing's <title> and aria-label: the svg crate must escape it.
-        for label in ["<script>alert(1)</script>", "\"><img src=x onerror=alert(1)>"] {
+        for label in [
+            "<script>alert(1)</script>",
+            "\"><img src=x onerror=alert(1)>",
+        ] {
             let mut s = framewise_formats::decode_link(
                 &std::fs::read_to_string(concat!(
                     env!("CARGO_MANIFEST_DIR"),

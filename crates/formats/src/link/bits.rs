@@ -29,7 +29,7 @@ impl BitWriter {
 
     /// Writes one bit.
     pub(crate) fn bit(&mut self, on: bool) {
-        if self.used % 8 == 0 {
+        if self.used.is_multiple_of(8) {
             self.bytes.push(0);
         }
         if on {
@@ -94,7 +94,9 @@ impl<'a> BitReader<'a> {
         while !self.bit()? {
             zeros += 1;
             if zeros > MAX_ZEROS {
-                return Err(LinkError::Garbled("a number is longer than any field allows".into()));
+                return Err(LinkError::Garbled(
+                    "a number is longer than any field allows".into(),
+                ));
             }
         }
         let rest = self.bits(zeros + k)?;
@@ -145,7 +147,9 @@ mod tests {
     fn golomb_codes_match_the_textbook_table() {
         // Source: order-0 exp-Golomb table (ITU-T H.264 Table 9-2): 0 → 1, 1 → 010, 2 → 011,
         // 3 → 00100, 4 → 00101.
-        let expect = ["1", "010", "011", "00100", "00101", "00110", "00111", "0001000"];
+        let expect = [
+            "1", "010", "011", "00100", "00101", "00110", "00111", "0001000",
+        ];
         for (n, want) in expect.iter().enumerate() {
             let mut w = BitWriter::default();
             w.golomb(n as u64, 0);
@@ -161,7 +165,19 @@ mod tests {
 
     #[test]
     fn signed_numbers_round_trip_for_every_order() {
-        let values = [0i64, 1, -1, 2, -2, 127, -128, 1000, -1_000_000, 1 << 35, -(1 << 35)];
+        let values = [
+            0i64,
+            1,
+            -1,
+            2,
+            -2,
+            127,
+            -128,
+            1000,
+            -1_000_000,
+            1 << 35,
+            -(1 << 35),
+        ];
         for k in 0..10 {
             let mut w = BitWriter::default();
             for &v in &values {

@@ -31,7 +31,9 @@ fn steps(num: &Num) -> f64 {
 }
 
 fn log2_choose(n: usize, k: usize) -> f64 {
-    (0..k).map(|i| ((n - i) as f64 / (i + 1) as f64).log2()).sum()
+    (0..k)
+        .map(|i| ((n - i) as f64 / (i + 1) as f64).log2())
+        .sum()
 }
 
 fn text_bits(s: &str) -> f64 {

@@ -68,7 +68,10 @@ pub(crate) fn write_group(
     obj: &Map<String, Value>,
     path: &str,
 ) -> Result<(), LinkError> {
-    if let Some(key) = obj.keys().find(|k| !group.fields.iter().any(|f| f.key == *k)) {
+    if let Some(key) = obj
+        .keys()
+        .find(|k| !group.fields.iter().any(|f| f.key == *k))
+    {
         return Err(LinkError::NotCovered {
             path: join(path, key),
         });
@@ -122,8 +125,7 @@ fn write_value(
         }
         Kind::Text => write_text(w, v.as_str().ok_or_else(|| wrong(path, v))?),
         Kind::Wheel => {
-            let spec: WheelSpec =
-                serde_json::from_value(v.clone()).map_err(|_| wrong(path, v))?;
+            let spec: WheelSpec = serde_json::from_value(v.clone()).map_err(|_| wrong(path, v))?;
             write_wheel(w, &spec, path)?;
         }
         Kind::Published(num, tol) => {
@@ -180,7 +182,10 @@ pub(crate) fn read_group(
     let mut obj = Map::new();
     for (field, on) in fields.iter().zip(mask) {
         if on {
-            obj.insert(field.key.to_string(), read_value(r, field, version, tolerances)?);
+            obj.insert(
+                field.key.to_string(),
+                read_value(r, field, version, tolerances)?,
+            );
         }
     }
     Ok(obj)
@@ -205,8 +210,9 @@ fn read_value(
             }
         }
         Kind::Text => Value::from(read_text(r)?),
-        Kind::Wheel => serde_json::to_value(read_wheel(r)?)
-            .map_err(|e| LinkError::Garbled(e.to_string()))?,
+        Kind::Wheel => {
+            serde_json::to_value(read_wheel(r)?).map_err(|e| LinkError::Garbled(e.to_string()))?
+        }
         Kind::Published(num, tol) => {
             let value = Value::from(unquantise(r.signed(num.k)?, &num));
             if tolerances && r.bit()? {

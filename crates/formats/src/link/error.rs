@@ -107,23 +107,28 @@ impl fmt::Display for LinkError {
                  page reads formats 1 to {newest}); reload the page to update it"
             ),
             LinkError::UnknownVersion(v) => {
-                write!(f, "the link has format {v}, which no version of this page wrote")
+                write!(
+                    f,
+                    "the link has format {v}, which no version of this page wrote"
+                )
             }
             LinkError::NotCovered { path } => write!(
                 f,
                 "{path} cannot be put in a link: the link table has no slot for it"
             ),
             LinkError::NotFinite { path } => {
-                write!(f, "{path} is not a finite number, so it cannot go in a link")
+                write!(
+                    f,
+                    "{path} is not a finite number, so it cannot go in a link"
+                )
             }
             LinkError::OutOfRange { path, value } => write!(
                 f,
                 "{path} = {value} is too large for a link (no bicycle measurement is that large)"
             ),
-            LinkError::TooManyBikes { count, max } => write!(
-                f,
-                "a link holds at most {max} bikes, this one has {count}"
-            ),
+            LinkError::TooManyBikes { count, max } => {
+                write!(f, "a link holds at most {max} bikes, this one has {count}")
+            }
         }
     }
 }

@@ -165,7 +165,10 @@ mod tests {
             keys.sort_unstable();
             keys.dedup();
             assert_eq!(keys.len(), g.fields.len(), "{}", g.name);
-            assert!(g.fields.iter().all(|f| f.since >= 1 && f.since <= LINK_VERSION));
+            assert!(g
+                .fields
+                .iter()
+                .all(|f| f.since >= 1 && f.since <= LINK_VERSION));
         }
     }
 }

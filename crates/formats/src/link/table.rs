@@ -284,7 +284,10 @@ pub(crate) static LOAD: Group = Group {
 pub(crate) static VIEW: Group = Group {
     name: "view",
     fields: &[
-        f("align", Kind::Choice(&["bb", "rear_axle", "front_axle", "grip"])),
+        f(
+            "align",
+            Kind::Choice(&["bb", "rear_axle", "front_axle", "grip"]),
+        ),
         f("units", Kind::Choice(&["mm", "in"])),
         f("posture", Kind::Choice(&["seated", "standing"])),
         f("dimensions", Kind::Bool),

@@ -83,10 +83,38 @@ fn read_utf8_char(r: &mut BitReader) -> Result<char, LinkError> {
 /// Common wheel designations, exactly as people type them; a link stores the index (5 bits).
 /// Frozen at version 1: append only in a later version.
 const COMMON_WHEELS: [&str; 32] = [
-    "29x2.4", "29x2.5", "29x2.6", "29x2.3", "29x2.2", "29x2.1", "29x2.35", "29x2.25",
-    "27.5x2.5", "27.5x2.4", "27.5x2.6", "27.5x2.3", "27.5x2.8", "27.5x2.35", "26x2.3", "26x2.5",
-    "26x2.1", "700x23c", "700x25c", "700x28c", "700x30c", "700x32c", "700x35c", "700x38c",
-    "700x40c", "700x45c", "650bx47", "650bx42", "24x2.2", "20x1.75", "29x3.0", "27.5x3.0",
+    "29x2.4",
+    "29x2.5",
+    "29x2.6",
+    "29x2.3",
+    "29x2.2",
+    "29x2.1",
+    "29x2.35",
+    "29x2.25",
+    "27.5x2.5",
+    "27.5x2.4",
+    "27.5x2.6",
+    "27.5x2.3",
+    "27.5x2.8",
+    "27.5x2.35",
+    "26x2.3",
+    "26x2.5",
+    "26x2.1",
+    "700x23c",
+    "700x25c",
+    "700x28c",
+    "700x30c",
+    "700x32c",
+    "700x35c",
+    "700x38c",
+    "700x40c",
+    "700x45c",
+    "650bx47",
+    "650bx42",
+    "24x2.2",
+    "20x1.75",
+    "29x3.0",
+    "27.5x3.0",
 ];
 
 /// Wheel kinds (2 bits): common code, ETRTO `W-BSD` in whole millimetres, diameter, text.
@@ -96,7 +124,11 @@ const W_DIAMETER: u64 = 2;
 const W_TEXT: u64 = 3;
 
 /// Writes a wheel as one of the four kinds. Designations are kept as typed (trimmed).
-pub(crate) fn write_wheel(w: &mut BitWriter, spec: &WheelSpec, path: &str) -> Result<(), LinkError> {
+pub(crate) fn write_wheel(
+    w: &mut BitWriter,
+    spec: &WheelSpec,
+    path: &str,
+) -> Result<(), LinkError> {
     match spec {
         WheelSpec::Diameter { diameter_mm } => {
             w.bits(W_DIAMETER, 2);

@@ -1,5 +1,10 @@
 //! Shared pieces of the link tests: invented scenarios and the field lists of the scenario types.
-#![allow(dead_code)]
+#![allow(
+    dead_code,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
 
 use framewise_kernel::Scenario;
 use serde_json::{json, Value};
