@@ -140,3 +140,27 @@ test('the QR code of the link is drawn as SVG and the page asks nothing of other
   }
   await context.close();
 });
+
+test('view choices and values the page has no input for survive an edit', T, async () => {
+  const name = 'v1-changes-and-view';
+  const want = goldenJson(name);
+  const { page, context, problems } = await openPage(env, { hash: golden(name) });
+  const note = await page.locator('#share-msg').textContent();
+  // The page names what it cannot show (here: tolerances, the diameter wheel, the load, …).
+  assert.match(note, /does not show \d+ of its values yet/);
+  assert.match(note, /bikes\[0\]\.load/);
+  await page.fill('input[name="frame.reach_mm"]', '485');
+  await page.waitForFunction((old) => location.hash !== old, golden(name), { timeout: 5000 });
+  const opened = await page.evaluate(async () => {
+    const m = await import('./pkg/framewise.js');
+    return JSON.parse(m.form_from_link(location.hash));
+  });
+  assert.deepEqual(opened.view, want.view);
+  assert.equal(opened.fields['frame.reach_mm'], '485');
+  assert.equal(opened.fields['rider.height_mm'], String(want.rider.height_mm));
+  assert.equal(opened.fields['setup.bike_mass_kg'], String(want.bikes[0].setup.bike_mass_kg));
+  assert.equal(opened.fields['changes.front_sag_pct'], String(want.bikes[0].changes.front_sag_pct));
+  assert.equal(opened.fields['changes.wheels.rear'], want.bikes[0].changes.wheels.rear);
+  assert.deepEqual(problems, []);
+  await context.close();
+});
