@@ -57,7 +57,7 @@ fn fill(keys: &[String], i: i64) -> Map<String, Value> {
             } else {
                 match k.as_str() {
                     "dimensions" | "ghost" => json!(i % 2 == 0),
-                    "selected" => json!(i),
+                    "selected" | "target_grip_bike" => json!(i),
                     other => {
                         panic!("field {other}: unknown kind, add it to the link table and here")
                     }
@@ -200,7 +200,7 @@ fn random_group(keys: Vec<String>) -> BoxedStrategy<Value> {
                     "[a-z_]{0,12}".prop_map(|s| json!(s)),
                 ]
                 .boxed()
-            } else if k == "selected" {
+            } else if k == "selected" || k == "target_grip_bike" {
                 (0u32..20).prop_map(|n| json!(n)).boxed()
             } else {
                 any::<bool>().prop_map(|b| json!(b)).boxed()

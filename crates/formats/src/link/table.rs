@@ -166,6 +166,8 @@ pub(crate) static RIDER: Group = Group {
         f("standing_knee_bend_deg", deg(20.0, 8, 0.0, 60.0)),
         f("braking_g", g(0.6, 5, 0.1, 1.2)),
         f("slope_deg", deg(0.0, 8, -30.0, 30.0)),
+        // Added by the rider work (issue 4) before version 1 was published.
+        f("standing_torso_deg", deg(40.0, 8, 0.0, 90.0)),
     ],
 };
 
@@ -250,6 +252,11 @@ pub(crate) static SETUP: Group = Group {
         f("bike_com_y_mm", mm(300.0, 7, 0.0, 600.0)),
         f("crank_mm", mm(170.0, 4, 110.0, 185.0)),
         f("saddle_height_mm", mm(720.0, 8, 450.0, 950.0)),
+        // Added by the rider and cockpit work (issue 4) before version 1 was published.
+        f("pedal_outer_mm", mm(180.0, 6, 140.0, 220.0)),
+        f("target_grip_x_mm", mm(450.0, 8, 200.0, 700.0)),
+        f("target_grip_y_mm", mm(600.0, 8, 300.0, 900.0)),
+        f("target_grip_bike", Kind::Count { k: 0, max: 15 }),
     ],
 };
 
