@@ -40,21 +40,26 @@ self.addEventListener('activate', (event) => {
   );
 });
 
+// Answers from the cache at once (works with no network), then refreshes that cached copy from
+// the network in the background, so a rebuilt page shows on the next load even without a VERSION
+// bump; with no network the refresh simply fails and the cached copy stays.
+function fromCache(event, key) {
+  const request = event.request;
+  event.respondWith(caches.open(CACHE).then(async (cache) => {
+    const hit = await cache.match(key, { ignoreSearch: true });
+    if (!hit) return fetch(request);
+    event.waitUntil(
+      fetch(key, { cache: 'no-cache' })
+        .then((fresh) => (fresh.ok ? cache.put(key, fresh) : undefined))
+        .catch(() => {}),
+    );
+    return hit;
+  }));
+}
+
 self.addEventListener('fetch', (event) => {
   const request = event.request;
   if (request.method !== 'GET' || new URL(request.url).origin !== self.location.origin) return;
-  if (request.mode === 'navigate') {
-    // Every navigation gets the cached shell; the scenario is in the fragment, never sent.
-    event.respondWith(
-      caches.open(CACHE)
-        .then((cache) => cache.match('index.html'))
-        .then((shell) => shell ?? fetch(request)),
-    );
-    return;
-  }
-  event.respondWith(
-    caches.open(CACHE)
-      .then((cache) => cache.match(request, { ignoreSearch: true }))
-      .then((hit) => hit ?? fetch(request)),
-  );
+  // Every navigation gets the cached shell; the scenario is in the fragment, never sent.
+  fromCache(event, request.mode === 'navigate' ? 'index.html' : request.url);
 });

@@ -133,9 +133,14 @@ test('the QR code of the link is drawn as SVG and the page asks nothing of other
   await page.fill('input[name="frame.stack_mm"]', '640');
   await page.waitForTimeout(500);
   const own = new URL(env.base).origin;
+  // The page's own static files: the service worker's precache list (plus the worker itself).
+  const sw = readFileSync(`${ROOT}web/sw.js`, 'utf8');
+  const files = [...sw.match(/const PRECACHE = \[([^\]]*)\]/)[1].matchAll(/'([^']*)'/g)]
+    .map((m) => new URL(m[1], env.base).pathname).concat('/sw.js');
   assert.ok(requests.length >= 4, `requests: ${requests}`);
   for (const u of requests) {
     assert.equal(new URL(u).origin, own, `request to ${u}`);
+    assert.ok(files.includes(new URL(u).pathname), `not one of the page's files: ${u}`);
     assert.ok(!u.includes('#'), `a fragment was sent: ${u}`);
   }
   await context.close();
