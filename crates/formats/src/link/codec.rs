@@ -125,7 +125,11 @@ fn write_value(
         }
         Kind::Text => write_text(w, v.as_str().ok_or_else(|| wrong(path, v))?),
         Kind::Wheel => {
-            let spec: WheelSpec = serde_json::from_value(v.clone()).map_err(|_| wrong(path, v))?;
+            let spec = match (v.as_str(), v.get("diameter_mm").and_then(Value::as_f64)) {
+                (Some(text), _) => WheelSpec::Designation(text.to_string()),
+                (None, Some(diameter_mm)) => WheelSpec::Diameter { diameter_mm },
+                _ => return Err(wrong(path, v)),
+            };
             write_wheel(w, &spec, path)?;
         }
         Kind::Published(num, tol) => {
@@ -210,9 +214,12 @@ fn read_value(
             }
         }
         Kind::Text => Value::from(read_text(r)?),
-        Kind::Wheel => {
-            serde_json::to_value(read_wheel(r)?).map_err(|e| LinkError::Garbled(e.to_string()))?
-        }
+        Kind::Wheel => match read_wheel(r)? {
+            WheelSpec::Designation(text) => Value::from(text),
+            WheelSpec::Diameter { diameter_mm } => {
+                serde_json::json!({ "diameter_mm": diameter_mm })
+            }
+        },
         Kind::Published(num, tol) => {
             let value = Value::from(unquantise(r.signed(num.k)?, &num));
             if tolerances && r.bit()? {
