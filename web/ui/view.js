@@ -14,8 +14,29 @@ export function attachView(container) {
     dims.parentElement.classList.toggle('on', dims.checked);
     ghost.parentElement.classList.toggle('on', ghost.checked);
   }
-  for (const p of posture) p.addEventListener('change', sync);
-  dims.addEventListener('change', sync);
-  ghost.addEventListener('change', sync);
+  const changed = () => { sync(); document.dispatchEvent(new CustomEvent('framewise:view')); };
+  for (const p of posture) p.addEventListener('change', changed);
+  dims.addEventListener('change', changed);
+  ghost.addEventListener('change', changed);
   sync();
+  resync = sync;
+}
+
+let resync = () => {};
+
+/** The view choices for a share link (scenario `view`). */
+export function getView() {
+  return {
+    posture: document.getElementById('posture-standing').checked ? 'standing' : 'seated',
+    dimensions: document.getElementById('show-dims').checked,
+    ghost: document.getElementById('show-ghost').checked,
+  };
+}
+
+/** Applies the view choices of an opened link. */
+export function applyView(view) {
+  if (view.posture) document.getElementById(`posture-${view.posture === 'standing' ? 'standing' : 'seated'}`).checked = true;
+  if (typeof view.dimensions === 'boolean') document.getElementById('show-dims').checked = view.dimensions;
+  if (typeof view.ghost === 'boolean') document.getElementById('show-ghost').checked = view.ghost;
+  resync();
 }
