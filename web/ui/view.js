@@ -23,10 +23,12 @@ export function attachView(container) {
 }
 
 let resync = () => {};
+let opened = {}; // the opened link's view: choices this page has no control for are kept
 
 /** The view choices for a share link (scenario `view`). */
 export function getView() {
   return {
+    ...opened,
     posture: document.getElementById('posture-standing').checked ? 'standing' : 'seated',
     dimensions: document.getElementById('show-dims').checked,
     ghost: document.getElementById('show-ghost').checked,
@@ -35,6 +37,7 @@ export function getView() {
 
 /** Applies the view choices of an opened link. */
 export function applyView(view) {
+  opened = { ...view };
   if (view.posture) document.getElementById(`posture-${view.posture === 'standing' ? 'standing' : 'seated'}`).checked = true;
   if (typeof view.dimensions === 'boolean') document.getElementById('show-dims').checked = view.dimensions;
   if (typeof view.ghost === 'boolean') document.getElementById('show-ghost').checked = view.ghost;

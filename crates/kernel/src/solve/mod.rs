@@ -30,7 +30,7 @@ use fit::{fit, Fitted};
 use model::{Model, Row};
 use serde::Serialize;
 use std::collections::BTreeMap;
-use unknowns::{ix, to_params, typical, X, UNKNOWNS};
+use unknowns::{ix, to_params, typical, UNKNOWNS, X};
 
 /// One published value, validated: value and tolerance in catalogue units (mm or degrees).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -88,7 +88,10 @@ pub struct SolveInput<'a> {
 /// centre longer than the chainstay, a wheelbase no longer than the front or rear centre), for
 /// numbers that together imply a frame outside the catalogue's hard ranges, or when no start
 /// converges.
-pub fn solve(given: &BTreeMap<String, Given>, input: SolveInput<'_>) -> Result<Solution, FieldError> {
+pub fn solve(
+    given: &BTreeMap<String, Given>,
+    input: SolveInput<'_>,
+) -> Result<Solution, FieldError> {
     let prefix = input.field_prefix;
     precheck(given, prefix)?;
     let model = Model {

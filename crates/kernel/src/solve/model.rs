@@ -114,7 +114,6 @@ pub fn free_columns(j: &DMatrix<f64>) -> Vec<bool> {
         .collect()
 }
 
-
 /// Leverages `h_i` (diagonal of the hat matrix `J (JᵀJ)⁺ Jᵀ`) of the rows of the weighted
 /// Jacobian `j`: how much of value `i` the fit takes from value `i` itself. A value nothing else
 /// checks has leverage 1.
