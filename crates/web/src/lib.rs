@@ -136,12 +136,26 @@ pub mod framewise_web_core {
                 seated: limits("seated"),
                 standing: limits("standing"),
             });
-            out["svg"] = svg.into();
-            out["notes"] = serde_json::to_value(framewise_formats::fields::residual_notes(bike))
-                .unwrap_or_default();
+            set(&mut out, "svg", svg.into());
+            set(
+                &mut out,
+                "notes",
+                serde_json::to_value(framewise_formats::fields::residual_notes(bike))
+                    .unwrap_or_default(),
+            );
         }
-        out["field_errors"] = serde_json::to_value(field_errors).unwrap_or_default();
+        set(
+            &mut out,
+            "field_errors",
+            serde_json::to_value(field_errors).unwrap_or_default(),
+        );
         out.to_string()
+    }
+
+    fn set(out: &mut serde_json::Value, key: &str, value: serde_json::Value) {
+        if let Some(o) = out.as_object_mut() {
+            o.insert(key.to_string(), value);
+        }
     }
 
     /// The handling limits of one posture from the report (`handling.<posture>`), when the
@@ -194,6 +208,44 @@ mod tests {
             "Head tube angle must be between 45 and 85 °, got 95"
         );
         assert!(v["svg"].is_null());
+    }
+
+    #[test]
+    fn an_inconsistent_published_value_is_explained_and_the_drawing_has_every_layer() {
+        // Reach, stack, head angle, head tube, fork and offset fix the front; a wheelbase 40 mm
+        // longer than the frame with a 435 mm chainstay allows cannot also hold.
+        let json = evaluate_form_to_json(
+            r#"{"frame.reach_mm":"470","frame.stack_mm":"635","frame.head_angle_deg":"65",
+            "frame.head_tube_mm":"110","frame.fork_a2c_mm":"561","frame.fork_offset_mm":"44",
+            "frame.chainstay_mm":"435","frame.bb_drop_mm":"35","frame.wheelbase_mm":"1272",
+            "setup.stem_mm":"45","setup.saddle_height_mm":"735","setup.crank_mm":"170",
+            "rider.height_mm":"1780","rider.mass_kg":"74","setup.bar_type":"flat"}"#,
+        );
+        let v: serde_json::Value = serde_json::from_str(&json).unwrap_or_default();
+        assert_eq!(
+            v["field_errors"].as_array().map(Vec::len),
+            Some(0),
+            "{json}"
+        );
+        let note = v["notes"]["wheelbase_mm"].as_str().unwrap_or_default();
+        assert!(
+            note.starts_with("Wheelbase is published as 1272 mm"),
+            "{note}"
+        );
+        let svg = v["svg"].as_str().unwrap_or_default();
+        for class in [
+            "fork fork-leg",
+            "posture seated",
+            "posture standing",
+            "stem",
+            "saddle",
+        ] {
+            assert!(svg.contains(&format!("class=\"{class}\"")), "{class}");
+        }
+        assert!(
+            svg.contains("braking limit"),
+            "handling numbers label the centre of mass"
+        );
     }
 
     #[test]
