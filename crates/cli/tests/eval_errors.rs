@@ -11,7 +11,12 @@ fn eval(text: &str) -> (bool, String, String) {
         .stderr(Stdio::piped())
         .spawn()
         .unwrap();
-    child.stdin.take().unwrap().write_all(text.as_bytes()).unwrap();
+    child
+        .stdin
+        .take()
+        .unwrap()
+        .write_all(text.as_bytes())
+        .unwrap();
     let out = child.wait_with_output().unwrap();
     (
         out.status.success(),
@@ -29,9 +34,8 @@ fn text_for_a_number_fails_with_the_field() {
 
 #[test]
 fn negative_length_is_in_the_reports_errors_and_exits_non_zero() {
-    let (ok, out, err) = eval(
-        r#"{"version":1,"bikes":[{"label":"x","frame":{"reach_mm":-450,"stack_mm":620}}]}"#,
-    );
+    let (ok, out, err) =
+        eval(r#"{"version":1,"bikes":[{"label":"x","frame":{"reach_mm":-450,"stack_mm":620}}]}"#);
     assert!(!ok);
     let v: serde_json::Value = serde_json::from_str(&out).unwrap();
     let e = &v["errors"][0];

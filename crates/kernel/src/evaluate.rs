@@ -292,7 +292,10 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str) -> Result<BikeReport, Vec<Field
     let ridden = to_numbers(&ridden_geom);
     let effects = change_effects(&params, stock_radii, &changes, &ridden, &stock);
     let derived = derived(&ridden_geom);
-    warnings.extend(iso_window_info(&derived, ridden_geom.head_angle().to_degrees()));
+    warnings.extend(iso_window_info(
+        &derived,
+        ridden_geom.head_angle().to_degrees(),
+    ));
     cautions(&changes, &params, &mut warnings);
     let report = BikeReport {
         label: bike.label.clone(),
@@ -404,10 +407,7 @@ fn derived(g: &Geometry) -> Numbers {
 /// Long-travel mountain bikes often do.
 fn iso_window_info(d: &Numbers, head_angle_deg: f64) -> Option<Warning> {
     let height = *d.get("steer_axis_height_at_axle_mm")?;
-    let (lo, hi) = (
-        *d.get("iso_window_min_mm")?,
-        *d.get("iso_window_max_mm")?,
-    );
+    let (lo, hi) = (*d.get("iso_window_min_mm")?, *d.get("iso_window_max_mm")?);
     let angle_in = (65.0..=75.0).contains(&head_angle_deg);
     let height_in = (lo..=hi).contains(&height);
     (!(angle_in && height_in)).then(|| {

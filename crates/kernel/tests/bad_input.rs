@@ -48,7 +48,10 @@ fn nan() {
     let r = with("stack_mm", f64::NAN);
     let (code, field, msg) = only_error(&r);
     assert_eq!((code, field), ("not_a_number", "bikes[0].frame.stack_mm"));
-    assert!(msg.contains("NaN") && msg.contains("250") && msg.contains("900"), "{msg}");
+    assert!(
+        msg.contains("NaN") && msg.contains("250") && msg.contains("900"),
+        "{msg}"
+    );
 }
 
 #[test]
@@ -56,8 +59,14 @@ fn infinities() {
     for v in [f64::INFINITY, f64::NEG_INFINITY] {
         let r = with("head_angle_deg", v);
         let (code, field, msg) = only_error(&r);
-        assert_eq!((code, field), ("not_a_number", "bikes[0].frame.head_angle_deg"));
-        assert!(msg.contains("inf") && msg.contains("45") && msg.contains("85"), "{msg}");
+        assert_eq!(
+            (code, field),
+            ("not_a_number", "bikes[0].frame.head_angle_deg")
+        );
+        assert!(
+            msg.contains("inf") && msg.contains("45") && msg.contains("85"),
+            "{msg}"
+        );
     }
 }
 
@@ -65,8 +74,14 @@ fn infinities() {
 fn negative_lengths() {
     let r = with("head_tube_mm", -110.0);
     let (code, field, msg) = only_error(&r);
-    assert_eq!((code, field), ("out_of_range", "bikes[0].frame.head_tube_mm"));
-    assert!(msg.contains("-110") && msg.contains("between 30 and 400"), "{msg}");
+    assert_eq!(
+        (code, field),
+        ("out_of_range", "bikes[0].frame.head_tube_mm")
+    );
+    assert!(
+        msg.contains("-110") && msg.contains("between 30 and 400"),
+        "{msg}"
+    );
 }
 
 #[test]
@@ -74,17 +89,30 @@ fn impossible_combinations() {
     // A chainstay shorter than the BB drop it must span: here the drop the tall stack, short
     // fork and wheels imply (tyres on the ground). The hard ranges alone cannot catch it.
     let mut s = base();
-    s.bikes[0].frame.insert("chainstay_mm".into(), Published::Value(260.0));
-    s.bikes[0].frame.insert("fork_a2c_mm".into(), Published::Value(250.0));
-    s.bikes[0].frame.insert("stack_mm".into(), Published::Value(800.0));
+    s.bikes[0]
+        .frame
+        .insert("chainstay_mm".into(), Published::Value(260.0));
+    s.bikes[0]
+        .frame
+        .insert("fork_a2c_mm".into(), Published::Value(250.0));
+    s.bikes[0]
+        .frame
+        .insert("stack_mm".into(), Published::Value(800.0));
     let r = evaluate(&s);
     let (code, field, msg) = only_error(&r);
     assert_eq!((code, field), ("impossible", "bikes[0].frame.chainstay_mm"));
-    assert!(msg.contains("260") && msg.contains("must be longer"), "{msg}");
+    assert!(
+        msg.contains("260") && msg.contains("must be longer"),
+        "{msg}"
+    );
     // A wheelbase no longer than the front centre.
     let mut s = base();
-    s.bikes[0].frame.insert("front_centre_mm".into(), Published::Value(780.0));
-    s.bikes[0].frame.insert("wheelbase_mm".into(), Published::Value(700.0));
+    s.bikes[0]
+        .frame
+        .insert("front_centre_mm".into(), Published::Value(780.0));
+    s.bikes[0]
+        .frame
+        .insert("wheelbase_mm".into(), Published::Value(700.0));
     let r = evaluate(&s);
     let (code, field, msg) = only_error(&r);
     assert_eq!((code, field), ("impossible", "bikes[0].frame.wheelbase_mm"));
@@ -94,12 +122,24 @@ fn impossible_combinations() {
 #[test]
 fn a_report_never_holds_a_non_finite_number() {
     for v in [0.0, 1e300, -1e300, f64::MIN_POSITIVE, f64::NAN] {
-        for key in ["reach_mm", "seat_angle_effective_deg", "trail_mm", "bb_height_mm"] {
+        for key in [
+            "reach_mm",
+            "seat_angle_effective_deg",
+            "trail_mm",
+            "bb_height_mm",
+        ] {
             let r = with(key, v);
             for b in &r.bikes {
-                let all = b.stock.values().chain(b.ridden.values()).chain(b.derived.values());
+                let all = b
+                    .stock
+                    .values()
+                    .chain(b.ridden.values())
+                    .chain(b.derived.values());
                 assert!(all.clone().all(|x| x.is_finite()), "{key} = {v}");
-                assert!(b.residuals.values().all(|x| x.solved.is_finite() && x.residual.is_finite()));
+                assert!(b
+                    .residuals
+                    .values()
+                    .all(|x| x.solved.is_finite() && x.residual.is_finite()));
             }
             assert!(!r.bikes.is_empty() || !r.errors.is_empty());
         }

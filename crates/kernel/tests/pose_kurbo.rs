@@ -72,9 +72,15 @@ fn expected(c: Changes) -> BTreeMap<&'static str, f64> {
             let rho = v.hypot();
             let a0 = v.y.atan2(v.x);
             let s = ((rear.y + r - p.y) / rho).asin();
-            let pick = [s - a0, std::f64::consts::PI - s - a0]
-                .map(|x| (x + std::f64::consts::PI).rem_euclid(2.0 * std::f64::consts::PI) - std::f64::consts::PI);
-            let phi = if pick[0].abs() <= pick[1].abs() { pick[0] } else { pick[1] };
+            let pick = [s - a0, std::f64::consts::PI - s - a0].map(|x| {
+                (x + std::f64::consts::PI).rem_euclid(2.0 * std::f64::consts::PI)
+                    - std::f64::consts::PI
+            });
+            let phi = if pick[0].abs() <= pick[1].abs() {
+                pick[0]
+            } else {
+                pick[1]
+            };
             Affine::rotate_about(phi, p) * rear
         }
     };
@@ -141,7 +147,10 @@ fn scenario(changes: serde_json::Value) -> Scenario {
 fn compare(label: &str, got: &BTreeMap<String, f64>, want: &BTreeMap<&str, f64>) {
     for (k, w) in want {
         let g = got.get(*k).copied().unwrap_or(f64::NAN);
-        assert!((g - w).abs() < 1e-6, "{label} {k}: kernel {g}, independent {w}");
+        assert!(
+            (g - w).abs() < 1e-6,
+            "{label} {k}: kernel {g}, independent {w}"
+        );
     }
 }
 
@@ -161,34 +170,55 @@ fn every_change_alone_and_all_together() {
         (
             "fork",
             serde_json::json!({ "fork_a2c_delta_mm": 10, "fork_offset_mm": 51 }),
-            Changes { a2c_delta: 10.0, offset: Some(51.0), ..Changes::default() },
+            Changes {
+                a2c_delta: 10.0,
+                offset: Some(51.0),
+                ..Changes::default()
+            },
         ),
         (
             "headset_cups",
             serde_json::json!({ "headset_angle_deg": -1.5 }),
-            Changes { cups_deg: -1.5, ..Changes::default() },
+            Changes {
+                cups_deg: -1.5,
+                ..Changes::default()
+            },
         ),
         (
             "wheels",
             // Mixed the other way round: 27.5x2.5 front (292 + 63.5), 29x2.3 rear (311 + 58.42).
             serde_json::json!({ "wheels": { "front": "27.5x2.5", "rear": "29x2.3" } }),
-            Changes { r_front: Some(292.0 + 63.5), r_rear: Some(311.0 + 58.42), ..Changes::default() },
+            Changes {
+                r_front: Some(292.0 + 63.5),
+                r_rear: Some(311.0 + 58.42),
+                ..Changes::default()
+            },
         ),
         (
             "front_sag",
             serde_json::json!({ "fork_travel_mm": 160, "front_sag_pct": 20 }),
-            Changes { front_sag: 32.0, ..Changes::default() },
+            Changes {
+                front_sag: 32.0,
+                ..Changes::default()
+            },
         ),
         (
             "rear_sag",
             serde_json::json!({ "rear_travel_mm": 150, "rear_sag_pct": 30 }),
-            Changes { rear_rise: 45.0, ..Changes::default() },
+            Changes {
+                rear_rise: 45.0,
+                ..Changes::default()
+            },
         ),
         (
             "rear_sag",
             serde_json::json!({ "rear_travel_mm": 150, "rear_sag_pct": 30,
                                 "pivot_x_mm": pivot.x, "pivot_y_mm": pivot.y }),
-            Changes { rear_rise: 45.0, pivot: Some(pivot), ..Changes::default() },
+            Changes {
+                rear_rise: 45.0,
+                pivot: Some(pivot),
+                ..Changes::default()
+            },
         ),
     ];
     let stock = expected(Changes::default());

@@ -34,9 +34,21 @@ fn trail_mechanical_trail_and_flop_table() {
     ];
     for (r, h, o, t, tm, flop) in table {
         let d = derived(r, h, o);
-        assert!((d["trail_mm"] - t).abs() < 1e-3, "trail {r} {h} {o}: {}", d["trail_mm"]);
-        assert!((d["mechanical_trail_mm"] - tm).abs() < 1e-3, "Tm {}", d["mechanical_trail_mm"]);
-        assert!((d["wheel_flop_mm"] - flop).abs() < 1e-3, "flop {}", d["wheel_flop_mm"]);
+        assert!(
+            (d["trail_mm"] - t).abs() < 1e-3,
+            "trail {r} {h} {o}: {}",
+            d["trail_mm"]
+        );
+        assert!(
+            (d["mechanical_trail_mm"] - tm).abs() < 1e-3,
+            "Tm {}",
+            d["mechanical_trail_mm"]
+        );
+        assert!(
+            (d["wheel_flop_mm"] - flop).abs() < 1e-3,
+            "flop {}",
+            d["wheel_flop_mm"]
+        );
     }
 }
 
@@ -45,11 +57,21 @@ fn trail_mechanical_trail_and_flop_table() {
 /// Also the bead seat diameters [read]: 622, 584, 559, 507, 406, 305.
 #[test]
 fn iso_5775_radii_and_bead_seats() {
-    let radius = |s: &str| WheelSpec::Designation(s.into()).resolve("w").unwrap().radius_mm;
+    let radius = |s: &str| {
+        WheelSpec::Designation(s.into())
+            .resolve("w")
+            .unwrap()
+            .radius_mm
+    };
     assert_eq!(radius("61-622"), 372.0);
     assert_eq!(radius("61-584"), 353.0);
     assert_eq!(radius("25-622"), 338.5);
-    let bsd = |s: &str| WheelSpec::Designation(s.into()).resolve("w").unwrap().bsd_mm;
+    let bsd = |s: &str| {
+        WheelSpec::Designation(s.into())
+            .resolve("w")
+            .unwrap()
+            .bsd_mm
+    };
     for (name, b) in [
         ("29x2.4", 622.0),
         ("700x32c", 622.0),
@@ -96,5 +118,8 @@ fn outside_the_annex_a_window_is_information() {
     });
     let rep = evaluate(&serde_json::from_value(json).unwrap());
     assert!(rep.errors.is_empty());
-    assert!(rep.bikes[0].warnings.iter().any(|w| w.code == "info_iso_window"));
+    assert!(rep.bikes[0]
+        .warnings
+        .iter()
+        .any(|w| w.code == "info_iso_window"));
 }

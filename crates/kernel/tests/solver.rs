@@ -29,7 +29,11 @@ fn assert_recovered(truth: &Frame, sol: &Solution, skip: &[usize]) {
         if skip.contains(&i) {
             continue;
         }
-        let tol = if PARAM_NAMES[i].ends_with("deg") { 0.001 } else { 0.01 };
+        let tol = if PARAM_NAMES[i].ends_with("deg") {
+            0.001
+        } else {
+            0.01
+        };
         assert!(
             (g - t).abs() <= tol,
             "{}: solved {g}, true {t}",
@@ -131,7 +135,11 @@ fn one_wrong_value_is_named() {
     g.get_mut("reach_mm").unwrap().value += 8.0;
     let sol = run(&f, &g);
     assert!(!sol.residuals["reach_mm"].consistent);
-    let w = sol.warnings.iter().find(|w| w.code == "inconsistent").unwrap();
+    let w = sol
+        .warnings
+        .iter()
+        .find(|w| w.code == "inconsistent")
+        .unwrap();
     assert!(
         w.message.contains("Most likely wrong: Reach (reach_mm)"),
         "{}",
@@ -151,7 +159,10 @@ fn a_value_may_carry_its_own_tolerance() {
             tolerance: 0.5,
         },
     );
-    g.insert("bb_height_mm".into(), givens(&f.published(), &["bb_height_mm"], false)["bb_height_mm"]);
+    g.insert(
+        "bb_height_mm".into(),
+        givens(&f.published(), &["bb_height_mm"], false)["bb_height_mm"],
+    );
     let sol = run(&f, &g);
     assert!(sol.residuals["head_angle_deg"].consistent);
 }
@@ -164,29 +175,36 @@ fn frame_strategy() -> impl Strategy<Value = Frame> {
         Just((338.5, 338.5)),
     ];
     (
-        (400.0..460.0f64, 380.0..520.0f64, 15.0..75.0f64, 62.0..74.0f64),
+        (
+            400.0..460.0f64,
+            380.0..520.0f64,
+            15.0..75.0f64,
+            62.0..74.0f64,
+        ),
         (90.0..150.0f64, 0.0..15.0f64, 480.0..560.0f64, 35.0..55.0f64),
         (72.0..79.0f64, -20.0..20.0f64, 380.0..500.0f64),
         radii,
     )
-        .prop_map(|((rc, reach, drop, ha), (ht, hl, a2c, off), (sa, sao, st), (rf, rr))| Frame {
-            rear_centre: rc,
-            reach,
-            // Stack from a plausible BB drop: drop = F.y − (r_front − r_rear) (§8a). A drop near
-            // 0 is ambiguous when only chainstay and rear centre fix it (they give only |drop|).
-            stack: drop + (rf - rr) + (ht + hl + a2c) * ha.to_radians().sin()
-                - off * ha.to_radians().cos(),
-            head_angle_deg: ha,
-            head_tube: ht,
-            headset_lower: hl,
-            a2c,
-            offset: off,
-            seat_angle_deg: sa,
-            seat_axis_offset: sao,
-            seat_tube: st,
-            r_front: rf,
-            r_rear: rr,
-        })
+        .prop_map(
+            |((rc, reach, drop, ha), (ht, hl, a2c, off), (sa, sao, st), (rf, rr))| Frame {
+                rear_centre: rc,
+                reach,
+                // Stack from a plausible BB drop: drop = F.y − (r_front − r_rear) (§8a). A drop near
+                // 0 is ambiguous when only chainstay and rear centre fix it (they give only |drop|).
+                stack: drop + (rf - rr) + (ht + hl + a2c) * ha.to_radians().sin()
+                    - off * ha.to_radians().cos(),
+                head_angle_deg: ha,
+                head_tube: ht,
+                headset_lower: hl,
+                a2c,
+                offset: off,
+                seat_angle_deg: sa,
+                seat_axis_offset: sao,
+                seat_tube: st,
+                r_front: rf,
+                r_rear: rr,
+            },
+        )
 }
 
 /// Drops keys in the order given by `order` while the rest still determine the frame.

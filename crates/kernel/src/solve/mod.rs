@@ -30,7 +30,7 @@ use fit::{fit, Fitted};
 use model::{Model, Row};
 use serde::Serialize;
 use std::collections::BTreeMap;
-use unknowns::{ix, to_params, typical, X, UNKNOWNS};
+use unknowns::{ix, to_params, typical, UNKNOWNS, X};
 
 /// One published value, validated: value and tolerance in catalogue units (mm or degrees).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -88,7 +88,10 @@ pub struct SolveInput<'a> {
 /// centre longer than the chainstay, a wheelbase no longer than the front or rear centre), for
 /// numbers that together imply a frame outside the catalogue's hard ranges, or when no start
 /// converges.
-pub fn solve(given: &BTreeMap<String, Given>, input: SolveInput<'_>) -> Result<Solution, FieldError> {
+pub fn solve(
+    given: &BTreeMap<String, Given>,
+    input: SolveInput<'_>,
+) -> Result<Solution, FieldError> {
     let prefix = input.field_prefix;
     precheck(given, prefix)?;
     let model = Model {
@@ -193,6 +196,18 @@ fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X) -> Option<Fitte
         within_hard_ranges(model, &f.x) && diagnose::all_consistent(model, &f.x, rows, free)
     };
     let first = fit(model, rows, free, x0);
+    // A fit whose residuals are all within the tolerance needs no other start (cheap test first).
+    let small = |f: &Fitted| {
+        model
+            .residuals(&f.x, rows)
+            .is_some_and(|r| r.iter().all(|v| v.abs() <= 1.0))
+    };
+    if first
+        .as_ref()
+        .is_some_and(|f| small(f) && within_hard_ranges(model, &f.x))
+    {
+        return first;
+    }
     if first.as_ref().is_some_and(good) {
         return first;
     }

@@ -2,7 +2,7 @@
 //! pinned to a typical value, and which measurements would fix those (`missing`).
 
 use super::model::{free_columns, rank, Model, Row};
-use super::unknowns::{X, N_UNKNOWNS, PIN_ORDER, UNKNOWNS};
+use super::unknowns::{N_UNKNOWNS, PIN_ORDER, UNKNOWNS, X};
 use crate::geometry::{measured_index, MEASURED_KEYS};
 
 /// The outcome of the rank analysis.
