@@ -1,4 +1,5 @@
 //! `framewise eval` with bad input: the errors are in the report and the exit status is non-zero.
+#![allow(clippy::unwrap_used, clippy::indexing_slicing, clippy::panic)]
 
 use std::io::Write;
 use std::process::{Command, Stdio};

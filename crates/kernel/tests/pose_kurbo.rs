@@ -3,6 +3,7 @@
 //! numbers and per-change `effects`. No kernel geometry code is used on the expected side.
 //!
 //! Source: DESIGN.md §8a (definitions); kurbo's `Affine::rotate_about` and `Line` for the maths.
+#![allow(clippy::unwrap_used, clippy::indexing_slicing, clippy::panic)]
 
 use framewise_kernel::{evaluate, Scenario};
 use kurbo::{Affine, Line, Point, Vec2};
@@ -65,7 +66,7 @@ fn expected(c: Changes) -> BTreeMap<&'static str, f64> {
     front -= d2 * c.front_sag;
     // Rear sag: straight up, or on the arc about the pivot (smaller rotation).
     let rear2 = match (c.rear_rise, c.pivot) {
-        (r, _) if r == 0.0 => rear,
+        (0.0, _) => rear,
         (r, None) => Point::new(rear.x, rear.y + r),
         (r, Some(p)) => {
             let v = rear - p;

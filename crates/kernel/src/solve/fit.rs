@@ -80,9 +80,9 @@ pub fn fit(model: &Model, rows: &[Row], free: &[usize], start: &X) -> Option<Fit
         *start
     } else {
         let (done, report) = LevenbergMarquardt::new()
-            .with_ftol(1e-14)
-            .with_xtol(1e-12)
-            .with_gtol(1e-12)
+            .with_ftol(1e-10)
+            .with_xtol(1e-10)
+            .with_gtol(1e-10)
             .minimize(problem);
         if !report.termination.was_successful() {
             return None;

@@ -196,6 +196,18 @@ fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X) -> Option<Fitte
         within_hard_ranges(model, &f.x) && diagnose::all_consistent(model, &f.x, rows, free)
     };
     let first = fit(model, rows, free, x0);
+    // A fit whose residuals are all within the tolerance needs no other start (cheap test first).
+    let small = |f: &Fitted| {
+        model
+            .residuals(&f.x, rows)
+            .is_some_and(|r| r.iter().all(|v| v.abs() <= 1.0))
+    };
+    if first
+        .as_ref()
+        .is_some_and(|f| small(f) && within_hard_ranges(model, &f.x))
+    {
+        return first;
+    }
     if first.as_ref().is_some_and(good) {
         return first;
     }

@@ -25,8 +25,9 @@ pub struct Model {
     pub seat_ref: Option<f64>,
 }
 
-/// Finite-difference step for the Jacobian (mm or degrees).
-const STEP: f64 = 1e-5;
+/// Finite-difference step for the Jacobian (mm or degrees). Forward differences: the Jacobian
+/// steers the search and the rank test; the solution itself is where the residuals are least.
+const STEP: f64 = 1e-6;
 
 impl Model {
     /// Every derivable number for `x`; `None` when a number is degenerate or not finite.
@@ -50,7 +51,7 @@ impl Model {
     }
 
     /// Jacobian of the predictions of `indices` (each row divided by `weights_inv`) with respect
-    /// to the unknowns `cols`, by central differences.
+    /// to the unknowns `cols`, by forward differences.
     pub fn jacobian(
         &self,
         x: &X,
@@ -59,15 +60,13 @@ impl Model {
         cols: &[usize],
     ) -> Option<DMatrix<f64>> {
         let mut j = DMatrix::zeros(indices.len(), cols.len());
+        let pd = self.predict(x)?;
         for (c, &col) in cols.iter().enumerate() {
             let mut up = *x;
-            let mut down = *x;
             *up.get_mut(col)? += STEP;
-            *down.get_mut(col)? -= STEP;
             let pu = self.predict(&up)?;
-            let pd = self.predict(&down)?;
             for (r, (&i, &tol)) in indices.iter().zip(tolerances).enumerate() {
-                let d = (pu.get(i)? - pd.get(i)?) / (2.0 * STEP * tol);
+                let d = (pu.get(i)? - pd.get(i)?) / (STEP * tol);
                 if let Some(e) = j.get_mut((r, c)) {
                     *e = d;
                 }

@@ -1,6 +1,6 @@
 //! Test helpers: an independent implementation of the §8a definitions (plain trigonometry, no
 //! kernel code), used to make published sets and to check the kernel's numbers.
-#![allow(dead_code)]
+#![allow(dead_code, clippy::indexing_slicing, clippy::unwrap_used)]
 
 use framewise_kernel::{FrameParams, Given};
 use std::collections::BTreeMap;
