@@ -438,3 +438,25 @@ fn json_has_the_design_shape() {
     assert_eq!(v["error"]["code"], "empty_chart");
     assert_eq!(v["sizes"].as_array().map(Vec::len), Some(0));
 }
+
+#[test]
+fn size_names_of_every_kind() {
+    let c = import_chart("Frame size\tSize 1\tSize 2\t52 cm\t54cm\nReach\t400\t420\t440\t460\n")
+        .unwrap();
+    assert_eq!(labels(&c), ["Size 1", "Size 2", "52 cm", "54cm"]);
+    let c = import_chart("\tXS¹\tM\tM\t\nReach\t400\t420\t440\t460\n").unwrap();
+    // A footnote mark is dropped, a repeated name is numbered, a blank one is named by place.
+    assert_eq!(labels(&c), ["XS", "M", "M (3)", "Size 4"]);
+}
+
+#[test]
+fn sizes_as_rows_with_a_units_row_under_the_labels() {
+    let text = "Size;Reach;Stack;Head angle;Chainstay\n;cm;cm;deg;mm\nS;43;60,5;66;435\nM;45,5;61,5;66;435\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0]);
+    assert_row(&c, "head_angle_deg", &[66.0, 66.0]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0]);
+    assert!(has_note(&c, "", "units column"));
+}
