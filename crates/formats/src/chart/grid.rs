@@ -186,7 +186,7 @@ fn is_unit_token(t: &str) -> bool {
 
 /// A size name written as one token: `XS`…`XXL`, `S1`…`S9`, `52cm`, `15"`.
 pub fn is_size_token(t: &str) -> bool {
-    let u = t.trim().to_uppercase();
+    let u = t.trim().to_ascii_uppercase();
     let letters = [
         "XXS", "XS", "S", "SM", "M", "MD", "ML", "L", "LG", "XL", "XXL", "XXXL", "2XL", "3XL",
         "S/M", "M/L", "L/XL",
