@@ -460,3 +460,25 @@ fn sizes_as_rows_with_a_units_row_under_the_labels() {
     assert_row(&c, "chainstay_mm", &[435.0, 435.0]);
     assert!(has_note(&c, "", "units column"));
 }
+
+#[test]
+fn one_cell_per_line_phone_copy() {
+    let c = chart("14_one_cell_per_line.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[432.0, 457.0, 482.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 3]);
+    assert_row(&c, "chainstay_mm", &[436.0; 3]);
+    assert!(has_note(&c, "", "one cell per line"));
+}
+
+#[test]
+fn windows_and_old_mac_line_ends() {
+    for eol in ["\r\n", "\r"] {
+        let text = ["Size\tS\tM", "Reach\t430\t455", "Stack\t611\t620", ""].join(eol);
+        let c = import_chart(&text).unwrap();
+        assert_eq!(labels(&c), ["S", "M"]);
+        assert_row(&c, "reach_mm", &[430.0, 455.0]);
+        assert_row(&c, "stack_mm", &[611.0, 620.0]);
+    }
+}

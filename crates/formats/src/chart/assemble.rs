@@ -2,7 +2,7 @@
 //! column, a units column, the size row. The values themselves are read in `rows`.
 
 use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
-use super::grid::{is_size_token, Grid};
+use super::grid::{is_size_token, Grid, Row};
 use super::label::{classify, Kind};
 use super::rows::{fill, TableRow};
 use super::{Answers, ChartError, ChartImport, ChartSize, Note, Question, MAX_SIZES};
@@ -77,7 +77,8 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     let mut log = Log::new(answers);
     let mut global_unit = None;
     let mut table: Vec<Vec<String>> = Vec::new();
-    for row in &grid.rows {
+    let regrouped = regroup_single_column(grid, &mut log);
+    for row in regrouped.as_ref().unwrap_or(&grid.rows) {
         let filled = row.cells.iter().filter(|c| !c.is_empty()).count();
         let numeric = row
             .cells
@@ -161,6 +162,40 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         unrecognised: log.unrecognised,
         questions: log.questions,
         notes: log.notes,
+    })
+}
+
+/// A table copied from a phone's stacked layout arrives one cell per line: each label line
+/// starts a row and the lines after it are its cells ("Reach", "430", "455", "Stack", …).
+fn regroup_single_column(grid: &Grid, log: &mut Log) -> Option<Vec<Row>> {
+    let filled = |r: &Row| r.cells.iter().filter(|c| !c.is_empty()).count();
+    if grid.rows.len() < 4 || grid.rows.iter().any(|r| filled(r) > 1) {
+        return None;
+    }
+    let mut rows: Vec<Row> = Vec::new();
+    let cells = grid
+        .rows
+        .iter()
+        .filter_map(|r| r.cells.iter().find(|c| !c.is_empty()));
+    for cell in cells {
+        let kind = classify(cell).kind;
+        let starts = kind.is_measurement()
+            || (kind == Kind::Size && !cell.is_empty())
+            || (!is_value_token(cell) && !is_size_token(cell));
+        match rows.last_mut() {
+            Some(row) if !starts => row.cells.push(cell.clone()),
+            _ => rows.push(Row {
+                cells: vec![cell.clone()],
+            }),
+        }
+    }
+    let grouped = rows.iter().filter(|r| r.cells.len() > 1).count();
+    (grouped >= 2).then(|| {
+        log.note(
+            "",
+            "the chart had one cell per line; each label was read with the lines after it".into(),
+        );
+        rows
     })
 }
 
@@ -286,7 +321,8 @@ fn label_first(
     if best == 0 {
         let mut labels: Vec<String> = Vec::new();
         for r in &table {
-            let l = strip_footnotes(r.first().map_or("", String::as_str));
+            let first = r.iter().find(|c| !c.is_empty());
+            let l = strip_footnotes(first.map_or("", String::as_str));
             if !l.is_empty() && !labels.contains(&l) {
                 labels.push(shorten(&l));
             }

@@ -199,8 +199,9 @@ pub fn import_chart_with(text: &str, answers: &Answers) -> Result<ChartImport, C
     if text.len() > MAX_BYTES {
         return Err(ChartError::TooLarge { bytes: text.len() });
     }
+    // Old Mac line ends (a lone CR) count as line ends too.
     let lines: Vec<String> = text
-        .lines()
+        .split(['\n', '\r'])
         .map(clean_line)
         .filter(|l| !l.trim().is_empty() && !grid::is_rule_line(l))
         .collect();
