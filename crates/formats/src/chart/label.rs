@@ -126,6 +126,7 @@ const EXPAND: &[(&str, &[&str])] = &[
     ("a2c", &["axle", "crown"]),
     ("atc", &["axle", "crown"]),
     ("axc", &["axle", "crown"]),
+    ("ac", &["axle", "crown"]),
     ("bbh", &["bb", "height"]),
     ("bbd", &["bb", "drop"]),
     ("fc", &["front", "center"]),
@@ -338,7 +339,11 @@ fn match_words(words: &[String]) -> Kind {
             Ambiguity::SeatAngle,
         );
     }
-    if has("top") && has("tube") {
+    // "top" right before "tube": "Seat tube length (centre to top)" is no top tube.
+    if words
+        .windows(2)
+        .any(|w| w.first().is_some_and(|a| a == "top") && w.get(1).is_some_and(|b| b == "tube"))
+    {
         return qualified("top_tube_effective_mm", None, Ambiguity::TopTube);
     }
     for (needed, allowed, kind) in rules {
@@ -402,6 +407,9 @@ mod tests {
             ("Trail", "trail_mm"),
             ("Trail¹", "trail_mm"),
             ("Lower headset stack", "headset_lower_mm"),
+            ("Seat tube length (centre to top)", "seat_tube_mm"),
+            ("Fork length (A-C)", "fork_a2c_mm"),
+            ("TT length (eff)", "top_tube_effective_mm"),
         ];
         for (label, want) in cases {
             assert_eq!(key(label), Kind::Key(want), "{label}");
