@@ -482,3 +482,26 @@ fn windows_and_old_mac_line_ends() {
         assert_row(&c, "stack_mm", &[611.0, 620.0]);
     }
 }
+
+#[test]
+fn row_numbers_before_labels_and_labels_repeated_on_the_right() {
+    let text = "#\tSize\tS\tM\tL\t\n1\tReach\t430\t455\t480\tReach\n2\tStack\t611\t620\t629\tStack\n3\tHead angle\t65\t65\t\tHead angle\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    // L's head angle cell is blank: missing, not shifted.
+    assert_eq!(c.sizes[2].frame.get("head_angle_deg"), None);
+    assert_eq!(c.sizes[1].frame.get("head_angle_deg"), Some(&65.0));
+    assert!(has_note(&c, "", "column(s) before the labels"));
+    assert!(has_note(&c, "", "column 4 has no size name and no numbers"));
+}
+
+#[test]
+fn fewer_values_than_sizes_are_read_from_the_left_and_said() {
+    let c = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nStack\t611\t620\n").unwrap();
+    assert_eq!(c.sizes[0].frame.get("stack_mm"), Some(&611.0));
+    assert_eq!(c.sizes[1].frame.get("stack_mm"), Some(&620.0));
+    assert!(!c.sizes[2].frame.contains_key("stack_mm"));
+    assert!(has_note(&c, "Stack", "2 values for 3 sizes"));
+}

@@ -4,73 +4,10 @@
 use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
 use super::grid::{is_size_token, Grid, Row};
 use super::label::{classify, Kind};
+use super::log::{shorten, Log};
 use super::rows::{fill, TableRow};
-use super::{Answers, ChartError, ChartImport, ChartSize, Note, Question, MAX_SIZES};
+use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
 use std::collections::BTreeMap;
-
-/// Notes, questions and unrecognised rows, collected while reading.
-pub(super) struct Log<'a> {
-    answers: &'a Answers,
-    pub notes: Vec<Note>,
-    pub questions: Vec<Question>,
-    pub unrecognised: Vec<String>,
-}
-
-impl<'a> Log<'a> {
-    fn new(answers: &'a Answers) -> Self {
-        Self {
-            answers,
-            notes: Vec::new(),
-            questions: Vec::new(),
-            unrecognised: Vec::new(),
-        }
-    }
-
-    /// Records a note about `row` (empty for the whole chart).
-    pub fn note(&mut self, row: &str, message: String) {
-        self.notes.push(Note {
-            row: row.to_string(),
-            message,
-        });
-    }
-
-    /// Asks a question; returns the answer given for its id, else `default`.
-    pub fn ask(
-        &mut self,
-        row: &str,
-        topic: &str,
-        message: String,
-        options: &[&str],
-        default: &str,
-    ) -> String {
-        let id = format!("{row}#{topic}");
-        let chosen = self
-            .answers
-            .get(&id)
-            .filter(|a| options.contains(&a.as_str()))
-            .cloned()
-            .unwrap_or_else(|| default.to_string());
-        if !self.questions.iter().any(|q| q.id == id) {
-            self.questions.push(Question {
-                id,
-                row: row.to_string(),
-                message,
-                options: options.iter().map(|o| (*o).to_string()).collect(),
-                chosen: chosen.clone(),
-            });
-        }
-        chosen
-    }
-}
-
-/// Shortens text for a note.
-pub(super) fn shorten(text: &str) -> String {
-    let mut s: String = text.chars().take(60).collect();
-    if text.chars().count() > 60 {
-        s.push('…');
-    }
-    s
-}
 
 /// Reads the grid into a size run.
 pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, ChartError> {
@@ -157,6 +94,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         })
         .collect();
     fill(&mut sizes, rows, global_unit, grid.decimal_comma, &mut log);
+    drop_empty_sizes(&mut sizes, &header_cells, &mut log);
     Ok(ChartImport {
         sizes,
         unrecognised: log.unrecognised,
@@ -199,6 +137,29 @@ fn regroup_single_column(grid: &Grid, log: &mut Log) -> Option<Vec<Row>> {
     })
 }
 
+/// A column with no size name and no number in any row (say, labels repeated on the right)
+/// is not a size, unless no size has numbers.
+fn drop_empty_sizes(sizes: &mut Vec<ChartSize>, header: &[String], log: &mut Log) {
+    let empty =
+        |s: &ChartSize| s.frame.is_empty() && s.wheels.front.is_none() && s.wheels.rear.is_none();
+    if sizes.iter().all(empty) {
+        return;
+    }
+    let mut i = 0;
+    sizes.retain(|s| {
+        let unnamed = header.get(i).is_none_or(|h| h.trim().is_empty());
+        i += 1;
+        let keep = !(unnamed && empty(s));
+        if !keep {
+            log.note(
+                "",
+                format!("column {i} has no size name and no numbers, so it is not read as a size"),
+            );
+        }
+        keep
+    });
+}
+
 /// A unit named in a line of text such as "All measurements in mm".
 fn unit_hint(line: &str) -> Option<Mark> {
     let lower = line.to_lowercase();
@@ -231,7 +192,9 @@ fn repair_short_rows(table: &mut [Vec<String>]) {
     // Rows led by a drawing reference ("A", "1") make a header without one a cell short.
     let is_ref = |r: &Vec<String>| {
         r.first().is_some_and(|c| {
-            (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric)
+            let short =
+                (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric);
+            short || classify(c).kind == Kind::RowNumber
         })
     };
     let full = table.iter().filter(|r| r.len() == mode).count();

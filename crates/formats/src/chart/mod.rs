@@ -26,6 +26,7 @@ mod assemble;
 pub mod cell;
 mod grid;
 pub mod label;
+mod log;
 mod rows;
 pub mod wheels;
 

@@ -1,9 +1,9 @@
 //! The values of each row: labels resolved to keys, units chosen (given, or inferred from the
 //! size of the numbers), values converted to mm and degrees and written per size.
 
-use super::assemble::{shorten, Log};
 use super::cell::{parse_cell, Cell, Mark, Num, Spread};
 use super::label::{Ambiguity, Kind, Label, WheelSlot};
+use super::log::{shorten, Log};
 use super::wheels::{default_note, parse_wheel_cell};
 use super::ChartSize;
 use framewise_kernel::{lookup, Measurement, Unit, WheelSpec};
@@ -95,6 +95,12 @@ fn push_keyed(
         log.note(
             &row.label.text,
             "one value for every size; used it for all".into(),
+        );
+    }
+    if (2..n).contains(&cells.len()) {
+        log.note(
+            &row.label.text,
+            format!("{} values for {n} sizes; read from the left", cells.len()),
         );
     }
     if cells.len() > n {
