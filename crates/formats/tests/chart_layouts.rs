@@ -505,3 +505,22 @@ fn fewer_values_than_sizes_are_read_from_the_left_and_said() {
     assert!(!c.sizes[2].frame.contains_key("stack_mm"));
     assert!(has_note(&c, "Stack", "2 values for 3 sizes"));
 }
+
+#[test]
+fn pdf_single_spaces_sizes_as_rows() {
+    let c = chart("15_pdf_single_spaces_rows.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0]);
+    let fronts: Vec<String> = wheels(&c).into_iter().map(|w| w.0).collect();
+    assert_eq!(fronts, ["27.5x2.4", "29x2.4", "29x2.4"]);
+    assert!(has_note(
+        &c,
+        "",
+        "ignored a line of text: \"Geometry 2027\""
+    ));
+    assert!(c.unrecognised.is_empty());
+}

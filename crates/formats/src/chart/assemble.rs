@@ -2,10 +2,11 @@
 //! column, a units column, the size row. The values themselves are read in `rows`.
 
 use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
-use super::grid::{is_size_token, Grid, Row};
+use super::grid::{is_size_token, Grid, Row, Sep};
 use super::label::{classify, Kind};
 use super::log::{shorten, Log};
 use super::rows::{fill, TableRow};
+use super::segment::split_header;
 use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
 use std::collections::BTreeMap;
 
@@ -14,14 +15,22 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     let mut log = Log::new(answers);
     let mut global_unit = None;
     let mut table: Vec<Vec<String>> = Vec::new();
-    let regrouped = regroup_single_column(grid, &mut log);
-    for row in regrouped.as_ref().unwrap_or(&grid.rows) {
+    let rows = regroup_single_column(grid, &mut log).unwrap_or_else(|| split_headers(grid));
+    let widest = rows.iter().map(|r| r.cells.len()).max().unwrap_or(0);
+    for row in &rows {
         let filled = row.cells.iter().filter(|c| !c.is_empty()).count();
         let numeric = row
             .cells
             .iter()
             .any(|c| matches!(parse_cell(c, grid.decimal_comma), Cell::Number(_)));
-        if filled <= 1 && !numeric {
+        // "Geometry 2027" above a wide table is a title, not a row with one value.
+        let titled = filled == 2
+            && widest >= 4
+            && row.cells.first().is_some_and(|c| {
+                let kind = classify(c).kind;
+                !c.is_empty() && kind == Kind::Unknown
+            });
+        if (filled <= 1 && !numeric) || titled {
             let line = row.cells.join(" ");
             let short = shorten(line.trim());
             if let Some(u) = unit_hint(&line) {
@@ -158,6 +167,31 @@ fn drop_empty_sizes(sizes: &mut Vec<ChartSize>, header: &[String], log: &mut Log
         }
         keep
     });
+}
+
+/// Space-separated text: a line of labels with single spaces ("Size Reach Stack HTA") is split
+/// into as many labels as the data rows have cells.
+fn split_headers(grid: &Grid) -> Vec<Row> {
+    let mut rows = grid.rows.clone();
+    if grid.sep != Sep::Spaces {
+        return rows;
+    }
+    let mut counts: BTreeMap<usize, usize> = BTreeMap::new();
+    for r in rows.iter().filter(|r| r.cells.len() >= 3) {
+        *counts.entry(r.cells.len()).or_default() += 1;
+    }
+    let Some(width) = counts.iter().max_by_key(|(_, n)| **n).map(|(w, _)| *w) else {
+        return rows;
+    };
+    for r in &mut rows {
+        let mut filled = r.cells.iter().filter(|c| !c.is_empty());
+        if let (Some(only), None) = (filled.next(), filled.next()) {
+            if let Some(cells) = split_header(only, width) {
+                r.cells = cells;
+            }
+        }
+    }
+    rows
 }
 
 /// A unit named in a line of text such as "All measurements in mm".

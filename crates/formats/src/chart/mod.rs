@@ -28,6 +28,7 @@ mod grid;
 pub mod label;
 mod log;
 mod rows;
+mod segment;
 pub mod wheels;
 
 use framewise_kernel::WheelsInput;
