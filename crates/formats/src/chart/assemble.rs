@@ -183,7 +183,8 @@ fn split_headers(grid: &Grid) -> Vec<Row> {
     let Some(width) = counts.iter().max_by_key(|(_, n)| **n).map(|(w, _)| *w) else {
         return rows;
     };
-    for r in &mut rows {
+    // Only the first few lines can be the header.
+    for r in rows.iter_mut().take(8) {
         let mut filled = r.cells.iter().filter(|c| !c.is_empty());
         if let (Some(only), None) = (filled.next(), filled.next()) {
             if let Some(cells) = split_header(only, width) {
