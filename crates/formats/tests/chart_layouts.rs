@@ -296,7 +296,11 @@ fn sizes_as_rows_with_row_numbers_and_a_range() {
     assert_eq!(labels(&c), ["S", "M", "L"]);
     // L publishes reach as 470-475: the midpoint 472.5, with a note.
     assert_row(&c, "reach_mm", &[430.0, 455.0, 472.5]);
-    assert!(has_note(&c, "Reach", "midpoint"));
+    assert!(has_note(
+        &c,
+        "Reach",
+        "L: the range 470–475 was read as its midpoint 472.5"
+    ));
     assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
     assert_row(&c, "head_angle_deg", &[65.0; 3]);
     assert_row(&c, "seat_angle_effective_deg", &[77.0; 3]);
@@ -315,7 +319,7 @@ fn quoted_csv_with_decimal_commas_in_inches_without_units() {
     assert_row(&c, "stack_mm", &[607.06, 624.84]);
     assert_row(&c, "wheelbase_mm", &[1120.14, 1148.08]);
     assert_row(&c, "head_angle_deg", &[68.5; 2]);
-    assert!(has_note(&c, "Reach", "read as in"));
+    assert!(has_note(&c, "Reach", "read as inches"));
 }
 
 #[test]

@@ -35,7 +35,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
             let short = shorten(line.trim());
             if let Some(u) = unit_hint(&line) {
                 global_unit = Some(u);
-                let name = u.name();
+                let name = u.words();
                 log.note(
                     "",
                     format!("lengths without a unit read as {name}, as \"{short}\" says"),

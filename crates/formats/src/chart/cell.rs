@@ -37,6 +37,16 @@ impl Mark {
         }
     }
 
+    /// The name used in sentences: "mm", "cm", "inches", "degrees".
+    pub fn words(self) -> &'static str {
+        match self {
+            Mark::Mm => "mm",
+            Mark::Cm => "cm",
+            Mark::In => "inches",
+            Mark::Deg => "degrees",
+        }
+    }
+
     /// Reads a unit word or mark (`mm`, `millimetres`, `cm`, `in`, `inches`, `"`, `″`, `°`, `º`,
     /// `deg`, `degrees`), ignoring case and surrounding space.
     pub fn from_word(word: &str) -> Option<Mark> {

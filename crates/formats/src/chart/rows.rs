@@ -250,7 +250,7 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
                 text,
                 format!(
                     "no unit given; read as {} from the size of the numbers",
-                    one.name()
+                    one.words()
                 ),
             );
             one
@@ -267,6 +267,7 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
         ),
         _ => {
             let names: Vec<&str> = list.iter().map(|m| m.name()).collect();
+            let words: Vec<&str> = list.iter().map(|m| m.words()).collect();
             let default = consensus
                 .filter(|c| list.contains(c))
                 .unwrap_or_else(|| nearest_mid(row, &list));
@@ -282,8 +283,8 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
                 default.name(),
                 format!(
                     "no unit given and the numbers of \"{text}\" fit {}; read as {} {why}",
-                    names.join(" or "),
-                    default.name()
+                    words.join(" or "),
+                    default.words()
                 ),
             )
         }
@@ -344,7 +345,7 @@ fn write_row(
                 format!(
                     "{}: the unit {} does not fit {}; left out",
                     size.label,
-                    unit.name(),
+                    unit.words(),
                     row.m.label
                 ),
             );
@@ -356,8 +357,8 @@ fn write_row(
                 log.note(
                     &row.text,
                     format!(
-                        "{}: the range {lo}–{hi} was read as its midpoint",
-                        size.label
+                        "{}: the range {lo}–{hi} was read as its midpoint {}",
+                        size.label, num.value
                     ),
                 );
                 num.value
