@@ -4,6 +4,8 @@ mod cmd_import;
 
 use framewise_formats::{report_to_json, scenario_from_json};
 use framewise_kernel::{evaluate, FieldError, Report};
+mod cmd_link;
+
 use std::io::Read;
 use std::process::ExitCode;
 
@@ -12,6 +14,8 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
+  link FILE|-    read a scenario and print its share link fragment (with the leading #)
+  open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
   import CHART|- read a pasted geometry chart and print its size run as JSON
   help           show this text";
 
@@ -76,6 +80,16 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 (true, None) => Err("the scenario has no bike to draw".into()),
                 _ => Ok(ExitCode::FAILURE),
             }
+        }
+        // Share links (issue 6): see cmd_link.rs.
+        Some("link") => {
+            println!("{}", cmd_link::link(&read_input(file)?)?);
+            Ok(ExitCode::SUCCESS)
+        }
+        Some("open") => {
+            let text = file.ok_or_else(|| format!("missing LINK\n\n{USAGE}"))?;
+            println!("{}", cmd_link::open(text)?);
+            Ok(ExitCode::SUCCESS)
         }
         Some("import") => cmd_import::run(file),
         Some("help" | "-h" | "--help") => {
