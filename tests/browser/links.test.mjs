@@ -134,6 +134,8 @@ test('the QR code of the link is drawn as SVG and the page asks nothing of other
   await page.click('#share-qr-toggle');
   assert.equal(await page.locator('#share-qr svg[role="img"] path').count(), 1);
   assert.equal(await page.locator('#share-qr-toggle').getAttribute('aria-expanded'), 'true');
+  await page.setViewportSize({ width: 360, height: 740 });
+  await page.locator('#share-qr').screenshot({ path: `${SHOTS}/links-qr-phone.png` });
   await page.click('#share-copy');
   await page.fill('input[name="frame.stack_mm"]', '640');
   await page.waitForTimeout(500);

@@ -116,7 +116,10 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   });
 
   // The first edit lets the address follow the page again.
-  document.addEventListener('input', () => { hold = false; }, { capture: true });
+  document.addEventListener('input', () => {
+    if (hold && msg.dataset.kind === 'bad') say('');
+    hold = false;
+  }, { capture: true });
   // A link pasted into the address bar of an open page.
   window.addEventListener('hashchange', () => { open(location.hash); });
 

@@ -14,9 +14,9 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
-  import CHART|- read a pasted geometry chart and print its size run as JSON
   link FILE|-    read a scenario and print its share link fragment (with the leading #)
   open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
+  import CHART|- read a pasted geometry chart and print its size run as JSON
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -81,7 +81,6 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 _ => Ok(ExitCode::FAILURE),
             }
         }
-        Some("import") => cmd_import::run(file),
         // Share links (issue 6): see cmd_link.rs.
         Some("link") => {
             println!("{}", cmd_link::link(&read_input(file)?)?);
@@ -92,6 +91,7 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
             println!("{}", cmd_link::open(text)?);
             Ok(ExitCode::SUCCESS)
         }
+        Some("import") => cmd_import::run(file),
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
             Ok(ExitCode::SUCCESS)

@@ -167,4 +167,8 @@ fn very_long_lines_and_many_cells() {
     check(&"[[[[((((1)))]]]]".repeat(5_000));
     check(&"\u{0}\u{1}\u{7f}\u{ffff}".repeat(10_000));
     check(&"Reach 4\u{0301}70 ¹²³ 𝟒𝟕𝟎\nStack ٤٧٠ 470".repeat(100));
+    // Headers of many label words and wide data rows: the header split must stay small.
+    let header = "Head tube angle ".repeat(20);
+    let data = format!("S {}\n", "65 ".repeat(40)).repeat(300);
+    check(&format!("{}\n{data}", [header.as_str(); 8].join("\n")));
 }

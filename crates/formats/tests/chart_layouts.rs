@@ -296,7 +296,11 @@ fn sizes_as_rows_with_row_numbers_and_a_range() {
     assert_eq!(labels(&c), ["S", "M", "L"]);
     // L publishes reach as 470-475: the midpoint 472.5, with a note.
     assert_row(&c, "reach_mm", &[430.0, 455.0, 472.5]);
-    assert!(has_note(&c, "Reach", "midpoint"));
+    assert!(has_note(
+        &c,
+        "Reach",
+        "L: the range 470–475 was read as its midpoint 472.5"
+    ));
     assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
     assert_row(&c, "head_angle_deg", &[65.0; 3]);
     assert_row(&c, "seat_angle_effective_deg", &[77.0; 3]);
@@ -315,7 +319,7 @@ fn quoted_csv_with_decimal_commas_in_inches_without_units() {
     assert_row(&c, "stack_mm", &[607.06, 624.84]);
     assert_row(&c, "wheelbase_mm", &[1120.14, 1148.08]);
     assert_row(&c, "head_angle_deg", &[68.5; 2]);
-    assert!(has_note(&c, "Reach", "read as in"));
+    assert!(has_note(&c, "Reach", "read as inches"));
 }
 
 #[test]
@@ -437,4 +441,90 @@ fn json_has_the_design_shape() {
     let v: serde_json::Value = serde_json::from_str(&e).unwrap();
     assert_eq!(v["error"]["code"], "empty_chart");
     assert_eq!(v["sizes"].as_array().map(Vec::len), Some(0));
+}
+
+#[test]
+fn size_names_of_every_kind() {
+    let c = import_chart("Frame size\tSize 1\tSize 2\t52 cm\t54cm\nReach\t400\t420\t440\t460\n")
+        .unwrap();
+    assert_eq!(labels(&c), ["Size 1", "Size 2", "52 cm", "54cm"]);
+    let c = import_chart("\tXS¹\tM\tM\t\nReach\t400\t420\t440\t460\n").unwrap();
+    // A footnote mark is dropped, a repeated name is numbered, a blank one is named by place.
+    assert_eq!(labels(&c), ["XS", "M", "M (3)", "Size 4"]);
+}
+
+#[test]
+fn sizes_as_rows_with_a_units_row_under_the_labels() {
+    let text = "Size;Reach;Stack;Head angle;Chainstay\n;cm;cm;deg;mm\nS;43;60,5;66;435\nM;45,5;61,5;66;435\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0]);
+    assert_row(&c, "head_angle_deg", &[66.0, 66.0]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0]);
+    assert!(has_note(&c, "", "units column"));
+}
+
+#[test]
+fn one_cell_per_line_phone_copy() {
+    let c = chart("14_one_cell_per_line.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[432.0, 457.0, 482.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 3]);
+    assert_row(&c, "chainstay_mm", &[436.0; 3]);
+    assert!(has_note(&c, "", "one cell per line"));
+}
+
+#[test]
+fn windows_and_old_mac_line_ends() {
+    for eol in ["\r\n", "\r"] {
+        let text = ["Size\tS\tM", "Reach\t430\t455", "Stack\t611\t620", ""].join(eol);
+        let c = import_chart(&text).unwrap();
+        assert_eq!(labels(&c), ["S", "M"]);
+        assert_row(&c, "reach_mm", &[430.0, 455.0]);
+        assert_row(&c, "stack_mm", &[611.0, 620.0]);
+    }
+}
+
+#[test]
+fn row_numbers_before_labels_and_labels_repeated_on_the_right() {
+    let text = "#\tSize\tS\tM\tL\t\n1\tReach\t430\t455\t480\tReach\n2\tStack\t611\t620\t629\tStack\n3\tHead angle\t65\t65\t\tHead angle\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    // L's head angle cell is blank: missing, not shifted.
+    assert_eq!(c.sizes[2].frame.get("head_angle_deg"), None);
+    assert_eq!(c.sizes[1].frame.get("head_angle_deg"), Some(&65.0));
+    assert!(has_note(&c, "", "column(s) before the labels"));
+    assert!(has_note(&c, "", "column 4 has no size name and no numbers"));
+}
+
+#[test]
+fn fewer_values_than_sizes_are_read_from_the_left_and_said() {
+    let c = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nStack\t611\t620\n").unwrap();
+    assert_eq!(c.sizes[0].frame.get("stack_mm"), Some(&611.0));
+    assert_eq!(c.sizes[1].frame.get("stack_mm"), Some(&620.0));
+    assert!(!c.sizes[2].frame.contains_key("stack_mm"));
+    assert!(has_note(&c, "Stack", "2 values for 3 sizes"));
+}
+
+#[test]
+fn pdf_single_spaces_sizes_as_rows() {
+    let c = chart("15_pdf_single_spaces_rows.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0]);
+    let fronts: Vec<String> = wheels(&c).into_iter().map(|w| w.0).collect();
+    assert_eq!(fronts, ["27.5x2.4", "29x2.4", "29x2.4"]);
+    assert!(has_note(
+        &c,
+        "",
+        "ignored a line of text: \"Geometry 2027\""
+    ));
+    assert!(c.unrecognised.is_empty());
 }

@@ -2,93 +2,40 @@
 //! column, a units column, the size row. The values themselves are read in `rows`.
 
 use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
-use super::grid::{is_size_token, Grid};
+use super::grid::{is_size_token, Grid, Row, Sep};
 use super::label::{classify, Kind};
+use super::log::{shorten, Log};
 use super::rows::{fill, TableRow};
-use super::{Answers, ChartError, ChartImport, ChartSize, Note, Question, MAX_SIZES};
+use super::segment::split_header;
+use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
 use std::collections::BTreeMap;
-
-/// Notes, questions and unrecognised rows, collected while reading.
-pub(super) struct Log<'a> {
-    answers: &'a Answers,
-    pub notes: Vec<Note>,
-    pub questions: Vec<Question>,
-    pub unrecognised: Vec<String>,
-}
-
-impl<'a> Log<'a> {
-    fn new(answers: &'a Answers) -> Self {
-        Self {
-            answers,
-            notes: Vec::new(),
-            questions: Vec::new(),
-            unrecognised: Vec::new(),
-        }
-    }
-
-    /// Records a note about `row` (empty for the whole chart).
-    pub fn note(&mut self, row: &str, message: String) {
-        self.notes.push(Note {
-            row: row.to_string(),
-            message,
-        });
-    }
-
-    /// Asks a question; returns the answer given for its id, else `default`.
-    pub fn ask(
-        &mut self,
-        row: &str,
-        topic: &str,
-        message: String,
-        options: &[&str],
-        default: &str,
-    ) -> String {
-        let id = format!("{row}#{topic}");
-        let chosen = self
-            .answers
-            .get(&id)
-            .filter(|a| options.contains(&a.as_str()))
-            .cloned()
-            .unwrap_or_else(|| default.to_string());
-        if !self.questions.iter().any(|q| q.id == id) {
-            self.questions.push(Question {
-                id,
-                row: row.to_string(),
-                message,
-                options: options.iter().map(|o| (*o).to_string()).collect(),
-                chosen: chosen.clone(),
-            });
-        }
-        chosen
-    }
-}
-
-/// Shortens text for a note.
-pub(super) fn shorten(text: &str) -> String {
-    let mut s: String = text.chars().take(60).collect();
-    if text.chars().count() > 60 {
-        s.push('…');
-    }
-    s
-}
 
 /// Reads the grid into a size run.
 pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, ChartError> {
     let mut log = Log::new(answers);
     let mut global_unit = None;
     let mut table: Vec<Vec<String>> = Vec::new();
-    for row in &grid.rows {
+    let rows = regroup_single_column(grid, &mut log).unwrap_or_else(|| split_headers(grid));
+    let widest = rows.iter().map(|r| r.cells.len()).max().unwrap_or(0);
+    for row in &rows {
         let filled = row.cells.iter().filter(|c| !c.is_empty()).count();
         let numeric = row
             .cells
             .iter()
             .any(|c| matches!(parse_cell(c, grid.decimal_comma), Cell::Number(_)));
-        if filled <= 1 && !numeric {
+        // "Geometry 2027" above a wide table is a title, not a row with one value.
+        let titled = filled == 2
+            && widest >= 4
+            && row.cells.first().is_some_and(|c| {
+                let kind = classify(c).kind;
+                !c.is_empty() && kind == Kind::Unknown
+            });
+        if (filled <= 1 && !numeric) || titled {
             let line = row.cells.join(" ");
             let short = shorten(line.trim());
             if let Some(u) = unit_hint(&line) {
                 global_unit = Some(u);
-                let name = u.name();
+                let name = u.words();
                 log.note(
                     "",
                     format!("lengths without a unit read as {name}, as \"{short}\" says"),
@@ -156,12 +103,96 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         })
         .collect();
     fill(&mut sizes, rows, global_unit, grid.decimal_comma, &mut log);
+    drop_empty_sizes(&mut sizes, &header_cells, &mut log);
     Ok(ChartImport {
         sizes,
         unrecognised: log.unrecognised,
         questions: log.questions,
         notes: log.notes,
     })
+}
+
+/// A table copied from a phone's stacked layout arrives one cell per line: each label line
+/// starts a row and the lines after it are its cells ("Reach", "430", "455", "Stack", …).
+fn regroup_single_column(grid: &Grid, log: &mut Log) -> Option<Vec<Row>> {
+    let filled = |r: &Row| r.cells.iter().filter(|c| !c.is_empty()).count();
+    if grid.rows.len() < 4 || grid.rows.iter().any(|r| filled(r) > 1) {
+        return None;
+    }
+    let mut rows: Vec<Row> = Vec::new();
+    let cells = grid
+        .rows
+        .iter()
+        .filter_map(|r| r.cells.iter().find(|c| !c.is_empty()));
+    for cell in cells {
+        let kind = classify(cell).kind;
+        let starts = kind.is_measurement()
+            || (kind == Kind::Size && !cell.is_empty())
+            || (!is_value_token(cell) && !is_size_token(cell));
+        match rows.last_mut() {
+            Some(row) if !starts => row.cells.push(cell.clone()),
+            _ => rows.push(Row {
+                cells: vec![cell.clone()],
+            }),
+        }
+    }
+    let grouped = rows.iter().filter(|r| r.cells.len() > 1).count();
+    (grouped >= 2).then(|| {
+        log.note(
+            "",
+            "the chart had one cell per line; each label was read with the lines after it".into(),
+        );
+        rows
+    })
+}
+
+/// A column with no size name and no number in any row (say, labels repeated on the right)
+/// is not a size, unless no size has numbers.
+fn drop_empty_sizes(sizes: &mut Vec<ChartSize>, header: &[String], log: &mut Log) {
+    let empty =
+        |s: &ChartSize| s.frame.is_empty() && s.wheels.front.is_none() && s.wheels.rear.is_none();
+    if sizes.iter().all(empty) {
+        return;
+    }
+    let mut i = 0;
+    sizes.retain(|s| {
+        let unnamed = header.get(i).is_none_or(|h| h.trim().is_empty());
+        i += 1;
+        let keep = !(unnamed && empty(s));
+        if !keep {
+            log.note(
+                "",
+                format!("column {i} has no size name and no numbers, so it is not read as a size"),
+            );
+        }
+        keep
+    });
+}
+
+/// Space-separated text: a line of labels with single spaces ("Size Reach Stack HTA") is split
+/// into as many labels as the data rows have cells.
+fn split_headers(grid: &Grid) -> Vec<Row> {
+    let mut rows = grid.rows.clone();
+    if grid.sep != Sep::Spaces {
+        return rows;
+    }
+    let mut counts: BTreeMap<usize, usize> = BTreeMap::new();
+    for r in rows.iter().filter(|r| r.cells.len() >= 3) {
+        *counts.entry(r.cells.len()).or_default() += 1;
+    }
+    let Some(width) = counts.iter().max_by_key(|(_, n)| **n).map(|(w, _)| *w) else {
+        return rows;
+    };
+    // Only the first few lines can be the header.
+    for r in rows.iter_mut().take(8) {
+        let mut filled = r.cells.iter().filter(|c| !c.is_empty());
+        if let (Some(only), None) = (filled.next(), filled.next()) {
+            if let Some(cells) = split_header(only, width) {
+                r.cells = cells;
+            }
+        }
+    }
+    rows
 }
 
 /// A unit named in a line of text such as "All measurements in mm".
@@ -196,7 +227,9 @@ fn repair_short_rows(table: &mut [Vec<String>]) {
     // Rows led by a drawing reference ("A", "1") make a header without one a cell short.
     let is_ref = |r: &Vec<String>| {
         r.first().is_some_and(|c| {
-            (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric)
+            let short =
+                (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric);
+            short || classify(c).kind == Kind::RowNumber
         })
     };
     let full = table.iter().filter(|r| r.len() == mode).count();
@@ -286,7 +319,8 @@ fn label_first(
     if best == 0 {
         let mut labels: Vec<String> = Vec::new();
         for r in &table {
-            let l = strip_footnotes(r.first().map_or("", String::as_str));
+            let first = r.iter().find(|c| !c.is_empty());
+            let l = strip_footnotes(first.map_or("", String::as_str));
             if !l.is_empty() && !labels.contains(&l) {
                 labels.push(shorten(&l));
             }

@@ -37,6 +37,16 @@ impl Mark {
         }
     }
 
+    /// The name used in sentences: "mm", "cm", "inches", "degrees".
+    pub fn words(self) -> &'static str {
+        match self {
+            Mark::Mm => "mm",
+            Mark::Cm => "cm",
+            Mark::In => "inches",
+            Mark::Deg => "degrees",
+        }
+    }
+
     /// Reads a unit word or mark (`mm`, `millimetres`, `cm`, `in`, `inches`, `"`, `″`, `°`, `º`,
     /// `deg`, `degrees`), ignoring case and surrounding space.
     pub fn from_word(word: &str) -> Option<Mark> {
@@ -89,8 +99,8 @@ const FOOTNOTE_CHARS: &[char] = &[
     '*', '†', '‡', '§', '¹', '²', '³', '⁴', '⁵', '⁶', '⁷', '⁸', '⁹', '⁰', '~', '≈', '±',
 ];
 
-/// Removes footnote marks: the characters above, a trailing `(1)`/`[a]` group of up to three
-/// letters or digits that is not a unit, and a leading `ca.`/`approx.`.
+/// Removes footnote marks: the characters above, up to three trailing `(1)`/`[a]`/`(ii)` groups
+/// (digits, one letter or a small roman numeral), and a leading `ca.`/`approx.`.
 pub fn strip_footnotes(text: &str) -> String {
     let mut s: String = text
         .chars()
@@ -107,8 +117,11 @@ pub fn strip_footnotes(text: &str) -> String {
             break;
         };
         let inner = t.get(open + 1..t.len().saturating_sub(1)).unwrap_or("");
-        let short = inner.chars().count() <= 3 && inner.chars().all(char::is_alphanumeric);
-        if !short || inner.is_empty() || Mark::from_word(inner).is_some() {
+        // Footnote groups: digits, one letter, or a small roman numeral ("(eff)" is a word).
+        let digits = inner.len() <= 3 && inner.chars().all(|c| c.is_ascii_digit());
+        let letter = inner.chars().count() == 1 && inner.chars().all(char::is_alphabetic);
+        let roman = matches!(inner, "ii" | "iii" | "iv");
+        if !(digits || letter || roman) || Mark::from_word(inner).is_some() {
             break;
         }
         s = t.get(..open).unwrap_or("").to_string();
@@ -145,6 +158,14 @@ fn parse_spread(s: &str, thousands_dot: bool) -> Option<Num> {
     if let Some(n) = parse_marked(s, thousands_dot) {
         return Some(n);
     }
+    // One length in two units: "470 mm (18.5")", "470 mm / 18.5 in".
+    let dual = s
+        .strip_suffix(')')
+        .and_then(|t| t.split_once('('))
+        .or_else(|| s.split_once('/'));
+    if let Some(n) = dual.and_then(|(a, b)| same_length(a, b, thousands_dot)) {
+        return Some(n);
+    }
     for sep in [" to ", "–", "—", "-"] {
         if let Some((a, b)) = s.split_once(sep) {
             if a.trim().is_empty() {
@@ -173,6 +194,18 @@ fn parse_spread(s: &str, thousands_dot: bool) -> Option<Num> {
         mark: a.mark.or(b.mark),
         spread: Spread::Pair(a.value, b.value),
     })
+}
+
+/// `a` when `a` and `b` carry different units and say the same length within 2 %.
+fn same_length(a: &str, b: &str, thousands_dot: bool) -> Option<Num> {
+    let (a, b) = (
+        parse_marked(a, thousands_dot)?,
+        parse_marked(b, thousands_dot)?,
+    );
+    let (ma, mb) = (a.mark?, b.mark?);
+    let (la, lb) = (a.value * ma.factor(), b.value * mb.factor());
+    let agree = ma != mb && ma != Mark::Deg && mb != Mark::Deg;
+    (agree && (la - lb).abs() <= 0.02 * la.abs().max(lb.abs())).then_some(a)
 }
 
 /// A number followed by an optional unit mark.
@@ -349,5 +382,13 @@ mod tests {
             (65.0, Some(Mark::Deg), Spread::Pair(65.0, 64.5))
         );
         assert!(matches!(parse_cell("-35", false), Cell::Number(n) if n.value == -35.0));
+        // One length in two units is one value, not two settings.
+        for dual in ["470 mm (18.5\")", "470mm / 18.5 in", "47 cm (18.5in)"] {
+            let Cell::Number(n) = parse_cell(dual, false) else {
+                panic!("{dual}")
+            };
+            assert_eq!(n.spread, Spread::Single, "{dual}");
+            assert_eq!(n.value * n.mark.map_or(0.0, Mark::factor), 470.0, "{dual}");
+        }
     }
 }

@@ -59,7 +59,10 @@ pub fn split(lines: &[String]) -> Grid {
             Row { cells }
         })
         .collect();
-    let decimal_comma = lines.iter().any(|l| has_decimal_comma(l, sep));
+    let decimal_comma = rows
+        .iter()
+        .flat_map(|r| r.cells.iter())
+        .any(|c| has_decimal_comma(c));
     Grid {
         rows,
         sep,
@@ -118,15 +121,13 @@ fn all_commas_decimal(line: &str) -> bool {
     })
 }
 
-fn has_decimal_comma(line: &str, sep: Sep) -> bool {
-    if sep == Sep::Comma {
-        return false;
-    }
-    let chars: Vec<char> = line.chars().collect();
+/// A cell with a comma between digits that is not a `1,180` thousands separator.
+fn has_decimal_comma(cell: &str) -> bool {
+    let chars: Vec<char> = cell.chars().collect();
     chars
         .windows(3)
         .any(|w| matches!(w, [a, ',', b] if a.is_ascii_digit() && b.is_ascii_digit()))
-        && !all_thousands(line)
+        && !all_thousands(cell)
 }
 
 /// `1,180`-style commas only (then they say nothing about decimals).
@@ -186,7 +187,7 @@ fn is_unit_token(t: &str) -> bool {
 
 /// A size name written as one token: `XS`…`XXL`, `S1`…`S9`, `52cm`, `15"`.
 pub fn is_size_token(t: &str) -> bool {
-    let u = t.trim().to_uppercase();
+    let u = t.trim().to_ascii_uppercase();
     let letters = [
         "XXS", "XS", "S", "SM", "M", "MD", "ML", "L", "LG", "XL", "XXL", "XXXL", "2XL", "3XL",
         "S/M", "M/L", "L/XL",
@@ -224,7 +225,7 @@ fn split_spaces(line: &str) -> Vec<String> {
     if runs.len() >= 2 {
         for (i, run) in runs.iter().enumerate() {
             let tokens = join_units(run);
-            if i == 0 {
+            if i == 0 && tokens.len() > 1 {
                 cells.extend(label_and_values(&tokens));
             } else if tokens.len() > 1 && tokens.iter().all(|t| is_value_token(t)) {
                 cells.extend(tokens);
@@ -288,6 +289,8 @@ mod tests {
         assert_eq!(grid("Reach 42,0 44,5\nStack 60,0 61,0").sep, Sep::Spaces);
         assert!(grid("Reach 42,0 44,5\nStack 60,0 61,0").decimal_comma);
         assert!(!grid("Wheelbase 1,180 1,200").decimal_comma);
+        assert!(grid("Reach,\"42,5\",\"45,0\"\nStack,600,610").decimal_comma);
+        assert!(!grid("Reach,425,450\nStack,600,610").decimal_comma);
         assert_eq!(grid("| a | 1 |\n| b | 2 |").sep, Sep::Pipe);
     }
 

@@ -126,6 +126,7 @@ const EXPAND: &[(&str, &[&str])] = &[
     ("a2c", &["axle", "crown"]),
     ("atc", &["axle", "crown"]),
     ("axc", &["axle", "crown"]),
+    ("ac", &["axle", "crown"]),
     ("bbh", &["bb", "height"]),
     ("bbd", &["bb", "drop"]),
     ("fc", &["front", "center"]),
@@ -268,6 +269,49 @@ fn push_word(w: &str, words: &mut Vec<String>, unit: &mut Option<Mark>) {
     }
 }
 
+/// Whether every word of the label belongs to what it names ("Stack Head angle" does not:
+/// "stack" is no part of a head angle). Used to split headers that lost their cell borders.
+pub fn is_tight(raw: &str) -> bool {
+    let label = classify(raw);
+    let (words, _) = words_and_unit(&label.text);
+    let vocabulary: &[&str] = match label.kind {
+        Kind::Key(key) => key_words(key),
+        Kind::Ambiguous(Ambiguity::SeatAngle) => &["seat", "tube", "angle"],
+        Kind::Ambiguous(Ambiguity::TopTube) => &["top", "tube"],
+        Kind::Wheels(_) => &["wheel", "size", "front", "rear", "diameter", "rim"],
+        _ => return false,
+    };
+    words.iter().all(|w| vocabulary.contains(&w.as_str()))
+}
+
+/// The words a label of `key` may use.
+fn key_words(key: &str) -> &'static [&'static str] {
+    match key {
+        "reach_mm" => &["reach"],
+        "stack_mm" => &["stack", "height"],
+        "head_angle_deg" => &["head", "tube", "angle"],
+        "head_tube_mm" => &["head", "tube"],
+        "seat_axis_offset_mm" => &["seat", "tube", "axis", "offset"],
+        "chainstay_mm" => &["chainstay", "chain", "stay"],
+        "rear_centre_mm" => &["rear", "center"],
+        "front_centre_mm" => &["front", "center"],
+        "wheelbase_mm" => &["wheelbase", "wheel", "base"],
+        "bb_drop_mm" => &["bb", "bottom", "bracket", "drop", "offset"],
+        "bb_height_mm" => &["bb", "bottom", "bracket", "height"],
+        "fork_a2c_mm" => &["fork", "axle", "crown"],
+        "fork_offset_mm" => &["fork", "offset", "rake"],
+        "standover_mm" => &["standover", "height"],
+        "trail_mm" => &["trail", "fork", "ground"],
+        "headset_lower_mm" => &["headset", "lower", "stack"],
+        "seat_angle_effective_deg" | "seat_angle_actual_deg" => {
+            &["seat", "tube", "angle", "effective", "actual"]
+        }
+        "top_tube_effective_mm" => &["top", "tube", "effective"],
+        "seat_tube_mm" => &["seat", "tube"],
+        _ => &[],
+    }
+}
+
 /// The rules, in order.
 fn match_words(words: &[String]) -> Kind {
     let has = |w: &str| words.iter().any(|x| x == w);
@@ -338,7 +382,11 @@ fn match_words(words: &[String]) -> Kind {
             Ambiguity::SeatAngle,
         );
     }
-    if has("top") && has("tube") {
+    // "top" right before "tube": "Seat tube length (centre to top)" is no top tube.
+    if words
+        .windows(2)
+        .any(|w| w.first().is_some_and(|a| a == "top") && w.get(1).is_some_and(|b| b == "tube"))
+    {
         return qualified("top_tube_effective_mm", None, Ambiguity::TopTube);
     }
     for (needed, allowed, kind) in rules {
@@ -402,6 +450,9 @@ mod tests {
             ("Trail", "trail_mm"),
             ("Trail¹", "trail_mm"),
             ("Lower headset stack", "headset_lower_mm"),
+            ("Seat tube length (centre to top)", "seat_tube_mm"),
+            ("Fork length (A-C)", "fork_a2c_mm"),
+            ("TT length (eff)", "top_tube_effective_mm"),
         ];
         for (label, want) in cases {
             assert_eq!(key(label), Kind::Key(want), "{label}");
@@ -427,6 +478,8 @@ mod tests {
         assert_eq!(key("Tyre size"), Kind::Wheels(WheelSlot::Both));
         assert_eq!(key("B  Reach"), Kind::Key("reach_mm"));
         assert_eq!(key("3) Stack"), Kind::Key("stack_mm"));
+        assert!(is_tight("Seat tube angle (eff.)") && is_tight("Fork offset"));
+        assert!(!is_tight("Stack Head angle") && !is_tight("Top tube (eff.) BB"));
         for other in [
             "Stem length",
             "Stack/reach ratio",

@@ -17,7 +17,11 @@
 //! (`All measurements in mm`), or absent: then each length row's unit is inferred from the size
 //! of its numbers against the catalogue's plausible range (reach 18.5 → in, 47.0 → cm, 470 → mm)
 //! and a note says so; a row that fits two units follows the other rows' unit or asks.
-//! Angles are always degrees. Nothing is dropped silently: rows it does not know are listed in
+//! Angles are always degrees. Also read: a header of labels that lost its cell borders (single
+//! spaces; split to the data's width), a phone copy with one cell per line, drawing-reference
+//! or row-number columns, one value standing for every size, `470-475` ranges (midpoint),
+//! `65/64.5` two settings (asked), one length in two units (`470 mm (18.5")`).
+//! Nothing is dropped silently: rows it does not know are listed in
 //! `unrecognised`, lines of text and ignored columns in `notes`, guesses in `questions` (with
 //! the options and the one chosen). Answers to questions are passed back by `id` through
 //! [`import_chart_with`].
@@ -26,7 +30,9 @@ mod assemble;
 pub mod cell;
 mod grid;
 pub mod label;
+mod log;
 mod rows;
+mod segment;
 pub mod wheels;
 
 use framewise_kernel::WheelsInput;
@@ -199,8 +205,9 @@ pub fn import_chart_with(text: &str, answers: &Answers) -> Result<ChartImport, C
     if text.len() > MAX_BYTES {
         return Err(ChartError::TooLarge { bytes: text.len() });
     }
+    // Old Mac line ends (a lone CR) count as line ends too.
     let lines: Vec<String> = text
-        .lines()
+        .split(['\n', '\r'])
         .map(clean_line)
         .filter(|l| !l.trim().is_empty() && !grid::is_rule_line(l))
         .collect();

@@ -1,9 +1,9 @@
 //! The values of each row: labels resolved to keys, units chosen (given, or inferred from the
 //! size of the numbers), values converted to mm and degrees and written per size.
 
-use super::assemble::{shorten, Log};
 use super::cell::{parse_cell, Cell, Mark, Num, Spread};
 use super::label::{Ambiguity, Kind, Label, WheelSlot};
+use super::log::{shorten, Log};
 use super::wheels::{default_note, parse_wheel_cell};
 use super::ChartSize;
 use framewise_kernel::{lookup, Measurement, Unit, WheelSpec};
@@ -95,6 +95,12 @@ fn push_keyed(
         log.note(
             &row.label.text,
             "one value for every size; used it for all".into(),
+        );
+    }
+    if (2..n).contains(&cells.len()) {
+        log.note(
+            &row.label.text,
+            format!("{} values for {n} sizes; read from the left", cells.len()),
         );
     }
     if cells.len() > n {
@@ -244,7 +250,7 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
                 text,
                 format!(
                     "no unit given; read as {} from the size of the numbers",
-                    one.name()
+                    one.words()
                 ),
             );
             one
@@ -261,6 +267,7 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
         ),
         _ => {
             let names: Vec<&str> = list.iter().map(|m| m.name()).collect();
+            let words: Vec<&str> = list.iter().map(|m| m.words()).collect();
             let default = consensus
                 .filter(|c| list.contains(c))
                 .unwrap_or_else(|| nearest_mid(row, &list));
@@ -276,8 +283,8 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
                 default.name(),
                 format!(
                     "no unit given and the numbers of \"{text}\" fit {}; read as {} {why}",
-                    names.join(" or "),
-                    default.name()
+                    words.join(" or "),
+                    default.words()
                 ),
             )
         }
@@ -338,7 +345,7 @@ fn write_row(
                 format!(
                     "{}: the unit {} does not fit {}; left out",
                     size.label,
-                    unit.name(),
+                    unit.words(),
                     row.m.label
                 ),
             );
@@ -350,8 +357,8 @@ fn write_row(
                 log.note(
                     &row.text,
                     format!(
-                        "{}: the range {lo}–{hi} was read as its midpoint",
-                        size.label
+                        "{}: the range {lo}–{hi} was read as its midpoint {}",
+                        size.label, num.value
                     ),
                 );
                 num.value
