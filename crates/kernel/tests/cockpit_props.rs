@@ -1,0 +1,134 @@
+//! Properties of the cockpit: the grip moves monotonically with stem length and spacers, and the
+//! inverse search finds the exact parts when the target came from catalogue parts.
+
+use framewise_kernel::cockpit::{frame_x_axis, Bar, Cockpit};
+use framewise_kernel::parts::{
+    search, stem_lengths_mm, BAR_BACKSWEEPS_DEG, BAR_RISES_MM, STEM_ANGLES_DEG,
+};
+use framewise_kernel::{FrameParams, Geometry, Radii};
+use proptest::prelude::*;
+
+fn geometry(head_deg: f64, theta: f64) -> Geometry {
+    let p = FrameParams {
+        rear_centre: 435.0,
+        bb_drop: 30.0,
+        reach: 470.0,
+        stack: 630.0,
+        head_angle: head_deg.to_radians(),
+        head_tube: 110.0,
+        headset_lower: 12.0,
+        a2c: 560.0,
+        offset: 44.0,
+        seat_angle: 76f64.to_radians(),
+        seat_axis_offset: 0.0,
+        seat_tube: 430.0,
+    };
+    p.geometry(Radii {
+        front: 372.0,
+        rear: 372.0,
+    })
+    .rotated(theta)
+}
+
+fn cockpit(spacers: f64, stem: f64, angle_deg: f64, bar: Bar) -> Cockpit {
+    Cockpit {
+        headset_upper: 8.0,
+        spacers,
+        stem_stack: 40.0,
+        stem,
+        stem_angle: angle_deg.to_radians(),
+        bar,
+    }
+}
+
+proptest! {
+    /// A longer stem moves the grip forward (along the stem, whose direction has a forward
+    /// component for head angles 62–75° and stem angles within ±17°); more spacers move it up
+    /// and back along the steering axis.
+    #[test]
+    fn grip_is_monotonic_in_stem_and_spacers(
+        head in 62.0..75.0f64,
+        theta in -0.03..0.03f64,
+        angle in -17.0..17.0f64,
+        stem in 30.0..130.0f64,
+        extra in 1.0..30.0f64,
+        spacers in 0.0..30.0f64,
+        rise in 0.0..50.0f64,
+        pullback in -20.0..60.0f64,
+    ) {
+        let g = geometry(head, theta);
+        let fx = frame_x_axis(theta);
+        let bar = Bar::Offset { rise, pullback };
+        let a = cockpit(spacers, stem, angle, bar).points(&g, fx).grip;
+        let longer = cockpit(spacers, stem + extra, angle, bar).points(&g, fx).grip;
+        prop_assert!(longer.x > a.x);
+        prop_assert!(((longer - a).norm() - extra).abs() < 1e-9);
+        let higher = cockpit(spacers + extra, stem, angle, bar).points(&g, fx).grip;
+        prop_assert!(higher.y > a.y && higher.x < a.x);
+        prop_assert!(((higher - a).norm() - extra).abs() < 1e-9);
+    }
+}
+
+proptest! {
+    // Each case searches the whole catalogue (about 80 000 combinations, slow in debug builds).
+    #![proptest_config(ProptestConfig::with_cases(40))]
+
+    /// A target built from catalogue parts is found exactly: the best choice misses by
+    /// (almost) nothing and the very parts are among the exact hits.
+    #[test]
+    fn inverse_returns_the_catalogue_parts(
+        head in 63.0..74.0f64,
+        theta in -0.03..0.03f64,
+        s in 0u32..=8,
+        stem_i in 0usize..23,
+        angle_i in 0usize..7,
+        rise_i in 0usize..9,
+        sweep_i in 0usize..6,
+    ) {
+        let g = geometry(head, theta);
+        let fx = frame_x_axis(theta);
+        let stem = stem_lengths_mm().nth(stem_i).unwrap();
+        let angle = STEM_ANGLES_DEG[angle_i];
+        let rise = BAR_RISES_MM[rise_i];
+        let sweep = BAR_BACKSWEEPS_DEG[sweep_i];
+        let bar = |rise: f64, sweep: f64| Bar::Flat {
+            rise,
+            backsweep: sweep.to_radians(),
+            upsweep: 5f64.to_radians(),
+            width: 780.0,
+            roll: 0.0,
+        };
+        let spacers = f64::from(s) * 5.0;
+        let target = cockpit(spacers, stem, angle, bar(rise, sweep)).points(&g, fx).grip;
+        // The search starts from different parts: only width, upsweep and roll are kept.
+        let current = cockpit(0.0, 50.0, 0.0, bar(0.0, 0.0));
+        let found = search(&g, fx, &current, target, 40.0);
+        prop_assert!(!found.is_empty());
+        prop_assert!(found[0].miss_mm < 1e-6);
+        prop_assert!(found.windows(2).all(|w| w[0].miss_mm <= w[1].miss_mm));
+        let hit = found.iter().any(|c| c.miss_mm < 1e-6
+            && c.stem_mm == stem && c.stem_angle_deg == angle && c.spacers_mm == spacers
+            && c.bar_rise_mm == rise && c.bar_backsweep_deg == Some(sweep));
+        prop_assert!(hit, "parts not found: {:?}", &found[..3]);
+    }
+}
+
+#[test]
+fn search_respects_the_spacer_limit() {
+    let g = geometry(66.0, 0.0);
+    let fx = frame_x_axis(0.0);
+    let current = cockpit(
+        0.0,
+        50.0,
+        0.0,
+        Bar::Offset {
+            rise: 20.0,
+            pullback: 0.0,
+        },
+    );
+    // A target far above: the search would like many spacers but stops at the limit.
+    let top = current.points(&g, fx).grip + nalgebra::Vector2::new(0.0, 300.0);
+    let found = search(&g, fx, &current, top, 25.0);
+    assert!(found.iter().all(|c| c.spacers_mm <= 25.0));
+    assert!(found.iter().any(|c| c.spacers_mm == 25.0));
+}
