@@ -4,6 +4,14 @@
 //! stem along `n′` turned up by the stem angle, grip `bar_pullback` behind and `bar_rise` above
 //! the bar clamp in frame axes, read in the ridden axes (rotated by the re-pose θ).
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::{evaluate, Scenario};
 use kurbo::{Affine, Point, Vec2};
 use serde_json::json;

@@ -1,6 +1,14 @@
 //! Properties of the cockpit: the grip moves monotonically with stem length and spacers, and the
 //! inverse search finds the exact parts when the target came from catalogue parts.
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::cockpit::{frame_x_axis, Bar, Cockpit};
 use framewise_kernel::parts::{
     search, stem_lengths_mm, BAR_BACKSWEEPS_DEG, BAR_RISES_MM, STEM_ANGLES_DEG,

@@ -6,6 +6,14 @@
 //! physics]; braking on a slope `a = g·(x_f/h·cos α + sin α)`: Riel, "Maximal Braking on a
 //! Standard Bicycle", 2005 [read]; both as listed in /work/shared/REFERENCES.md.
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::handling::{combine, pedal_strike_lean, statics, toe_clearance, Support};
 use framewise_kernel::rider::{Body, Overrides, BALL_FROM_HEEL};
 use framewise_kernel::{evaluate, Scenario};

@@ -1,6 +1,14 @@
 //! Bad rider, setup and load inputs: one typed error per kind, naming the field; the seat and
 //! post fit; the fit checks with their sources; the cockpit search from a point or another bike.
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::{evaluate, Report, Scenario};
 use serde_json::{json, Value};
 

@@ -4,6 +4,14 @@
 //! Source: law of cosines (any trigonometry text); the body model of REFERENCES.md "Human body
 //! segments" (Winter 2009, Fig. 4.1 and Table 4.1).
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::posture::foot_on_pedal;
 use framewise_kernel::rider::{Body, Overrides};
 use framewise_kernel::seated::{seated, Contacts, SEATED_TOE_DOWN_DEG};

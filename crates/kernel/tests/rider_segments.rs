@@ -5,6 +5,14 @@
 //! Dempster segment masses and centre-of-mass positions via Winter Table 4.1 [read, from a
 //! transcription; /work/shared/REFERENCES.md "Human body segments"].
 
+// Test helpers may unwrap, index and panic, like the tests themselves (see clippy.toml).
+#![allow(
+    clippy::unwrap_used,
+    clippy::expect_used,
+    clippy::panic,
+    clippy::indexing_slicing
+)]
+
 use framewise_kernel::rider::{height_ratio, segment, Body, Overrides, SEGMENTS};
 
 fn close(a: f64, b: f64, tol: f64) {
