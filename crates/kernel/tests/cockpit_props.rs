@@ -78,8 +78,8 @@ proptest! {
 }
 
 proptest! {
-    // Each case searches the whole catalogue (about 80 000 combinations, slow in debug builds).
-    #![proptest_config(ProptestConfig::with_cases(40))]
+    // Each case searches the whole catalogue; the brute-force check below is slow in debug.
+    #![proptest_config(ProptestConfig::with_cases(64))]
 
     /// A target built from catalogue parts is found exactly: the best choice misses by
     /// (almost) nothing and the very parts are among the exact hits.
@@ -118,6 +118,43 @@ proptest! {
             && c.stem_mm == stem && c.stem_angle_deg == angle && c.spacers_mm == spacers
             && c.bar_rise_mm == rise && c.bar_backsweep_deg == Some(sweep));
         prop_assert!(hit, "parts not found: {:?}", &found[..3]);
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(12))]
+    /// The search walks each line of stems outward from the nearest stem; a brute-force pass over
+    /// every combination finds the same ten smallest misses.
+    #[test]
+    fn search_equals_brute_force(
+        head in 63.0..74.0f64,
+        tx in 300.0..600.0f64,
+        ty in 550.0..800.0f64,
+        limit in 0.0..40.0f64,
+    ) {
+        let g = geometry(head, 0.0);
+        let fx = frame_x_axis(0.0);
+        let target = nalgebra::Point2::new(tx, ty);
+        let current = cockpit(0.0, 50.0, 0.0, Bar::Offset { rise: 0.0, pullback: 20.0 });
+        let found = search(&g, fx, &current, target, limit);
+        let mut all = Vec::new();
+        let mut s = 0.0;
+        while s <= limit {
+            for angle in STEM_ANGLES_DEG {
+                for stem in stem_lengths_mm() {
+                    for rise in BAR_RISES_MM {
+                        let grip = cockpit(s, stem, angle, Bar::Offset { rise, pullback: 20.0 }).points(&g, fx).grip;
+                        all.push((grip - target).norm());
+                    }
+                }
+            }
+            s += 5.0;
+        }
+        all.sort_by(f64::total_cmp);
+        prop_assert_eq!(found.len(), 10);
+        for (c, m) in found.iter().zip(all.iter()) {
+            prop_assert!((c.miss_mm - m).abs() < 1e-9, "{} vs {}", c.miss_mm, m);
+        }
     }
 }
 
