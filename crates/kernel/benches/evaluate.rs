@@ -57,5 +57,55 @@ fn bench(c: &mut Criterion) {
     );
 }
 
-criterion_group!(benches, bench);
+/// The parts search alone, on a frame placed directly (no solve): the target is 1 ms.
+fn search_alone(c: &mut Criterion) {
+    use framewise_kernel::cockpit::{frame_x_axis, Bar, Cockpit};
+    use framewise_kernel::{search, FrameParams, Radii};
+    let p = FrameParams {
+        rear_centre: 435.0,
+        bb_drop: 30.0,
+        reach: 470.0,
+        stack: 635.0,
+        head_angle: 65f64.to_radians(),
+        head_tube: 110.0,
+        headset_lower: 12.0,
+        a2c: 561.0,
+        offset: 44.0,
+        seat_angle: 76.5f64.to_radians(),
+        seat_axis_offset: 0.0,
+        seat_tube: 430.0,
+    };
+    let g = p.geometry(Radii {
+        front: 372.0,
+        rear: 372.0,
+    });
+    let current = Cockpit {
+        headset_upper: 8.0,
+        spacers: 10.0,
+        stem_stack: 40.0,
+        stem: 45.0,
+        stem_angle: 0.0,
+        bar: Bar::Flat {
+            rise: 25.0,
+            backsweep: 8f64.to_radians(),
+            upsweep: 5f64.to_radians(),
+            width: 780.0,
+            roll: 0.0,
+        },
+    };
+    let target = nalgebra::Point2::new(440.0, 730.0);
+    c.bench_function("cockpit parts search alone", |b| {
+        b.iter(|| {
+            search(
+                &g,
+                frame_x_axis(0.0),
+                black_box(&current),
+                black_box(target),
+                40.0,
+            )
+        })
+    });
+}
+
+criterion_group!(benches, bench, search_alone);
 criterion_main!(benches);
