@@ -2,6 +2,8 @@
 
 use framewise_formats::{report_to_json, scenario_from_json};
 use framewise_kernel::{evaluate, FieldError, Report};
+mod cmd_link;
+
 use std::io::Read;
 use std::process::ExitCode;
 
@@ -10,6 +12,8 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
+  link FILE|-    read a scenario and print its share link fragment (with the leading #)
+  open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -73,6 +77,16 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 (true, None) => Err("the scenario has no bike to draw".into()),
                 _ => Ok(ExitCode::FAILURE),
             }
+        }
+        // Share links (issue 6): see cmd_link.rs.
+        Some("link") => {
+            println!("{}", cmd_link::link(&read_input(file)?)?);
+            Ok(ExitCode::SUCCESS)
+        }
+        Some("open") => {
+            let text = file.ok_or_else(|| format!("missing LINK\n\n{USAGE}"))?;
+            println!("{}", cmd_link::open(text)?);
+            Ok(ExitCode::SUCCESS)
         }
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
