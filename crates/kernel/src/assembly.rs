@@ -274,6 +274,7 @@ fn rider_on_bike(
     checks(rv, &sit, height + crank, drop_bar, r);
     let toe = toe_clearance(body, crank, g.front_axle, g.radii.front);
     put(&mut r.ridden, "toe_clearance_mm", toe);
+    put(&mut r.ridden, "toe_overlap_mm", (-toe).max(0.0));
     r.checks.push(fit::toe_clearance(toe));
     if toe < 0.0 {
         warn(r, "caution_toe_overlap", format!(

@@ -91,20 +91,16 @@ pub fn statics(
 
 /// Toe clearance at straight ahead, mm: the smallest side-view gap between the toe tip and the
 /// front tyre over a whole crank turn (negative = the toe overlaps the tyre and would touch it
-/// when the wheel turns). The sole is level; the toe tip is `foot·(1 − BALL_FROM_HEEL)` ahead of
-/// the ball, which is `foot_position` ahead of the spindle and `shoe_stack` above it.
+/// when the wheel turns). The sole is level, so the toe tip traces a circle of radius `crank`
+/// about `o`, the toe tip's offset from the spindle (`foot·(1 − BALL_FROM_HEEL) + foot_position`
+/// ahead, `shoe_stack` up). Its nearest approach to the front axle `F` is `| |F − o| − crank |`,
+/// so the clearance is `| |F − o| − crank | − R_front`.
 pub fn toe_clearance(body: &Body, crank: f64, front_axle: Point2<f64>, front_radius: f64) -> f64 {
     let toe = Vector2::new(
         body.foot_position + body.foot * (1.0 - BALL_FROM_HEEL),
         body.shoe_stack,
     );
-    (0..360)
-        .map(|deg| {
-            let a = f64::from(deg).to_radians();
-            let tip = Point2::new(crank * a.cos(), crank * a.sin()) + toe;
-            (tip - front_axle).norm() - front_radius
-        })
-        .fold(f64::INFINITY, f64::min)
+    ((front_axle - Point2::from(toe)).norm() - crank).abs() - front_radius
 }
 
 /// Lean angle at which the lower pedal touches the ground, radians: with the crank straight

@@ -97,7 +97,7 @@ pub fn standing(body: &Body, s: &Stance) -> Posture {
         ));
         return out;
     }
-    for _ in 0..60 {
+    for _ in 0..40 {
         let m = (lo + hi) / 2.0;
         if excess(m) < 0.0 {
             lo = m;
