@@ -98,4 +98,22 @@ for (const [name, width, height] of SIZES) {
     assert.deepEqual(problems, []);
     await context.close();
   });
+
+  test(`${name}: a published value that disagrees is marked and explained in a sentence`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    // The demo frame's wheelbase is fixed by reach, head angle, fork and chainstay (§8a: about
+    // 1232 mm); a published 1272 mm cannot also hold.
+    await page.fill('input[name="frame.wheelbase_mm"]', '1272');
+    const row = page.locator('#results tr[data-key="wheelbase_mm"]').first();
+    await page.waitForFunction(() => document.querySelector('#results tr[data-key="wheelbase_mm"]')?.classList.contains('inconsistent'), null, { timeout: 5000 });
+    assert.match(await row.locator('td[data-col="given"]').textContent(), /⚠ 1272\.0/);
+    const note = page.locator('#results tr[data-key="wheelbase_mm"] + tr.note-row').first();
+    assert.match(await note.textContent(), /^Wheelbase is published as 1272 mm but the other published numbers make it \d+ mm, \d+ mm away/);
+    assert.ok(await note.isVisible());
+    assert.match(await page.locator('#results .warnings').textContent(), /disagree/);
+    await note.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/page-${name}-inconsistent.png` });
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
 }

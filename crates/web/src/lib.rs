@@ -74,6 +74,9 @@ pub mod framewise_web_core {
     struct FormResult<'a> {
         report: &'a Report,
         svg: Option<String>,
+        /// One sentence per inconsistent published value, keyed like the residuals.
+        #[serde(skip_serializing_if = "Option::is_none")]
+        notes: Option<std::collections::BTreeMap<String, String>>,
         field_errors: Vec<framewise_kernel::FieldError>,
     }
 
@@ -97,6 +100,7 @@ pub mod framewise_web_core {
                     return serde_json::to_string(&FormResult {
                         report: &report,
                         svg: None,
+                        notes: None,
                         field_errors: Vec::new(),
                     })
                     .unwrap_or_else(|_| "{}".into());
@@ -120,55 +124,37 @@ pub mod framewise_web_core {
                 field_errors.push(e);
             }
         }
-        let mut out = serde_json::to_value(FormResult {
-            report: &report,
-            svg: None,
-            field_errors: Vec::new(),
-        })
-        .unwrap_or_default();
-        if let (true, Some(bike)) = (field_errors.is_empty(), report.bikes.first()) {
-            let limits = |posture: &str| limits(&out, posture);
-            let svg = framewise_draw::draw(&framewise_draw::Scene {
-                label: &bike.label,
-                ridden: &bike.outline,
-                stock: &bike.stock_outline,
-                numbers: &bike.ridden,
-                seated: limits("seated"),
-                standing: limits("standing"),
+        let drawn = report
+            .bikes
+            .first()
+            .filter(|_| field_errors.is_empty())
+            .map(|bike| {
+                let svg = framewise_draw::draw(&framewise_draw::Scene {
+                    label: &bike.label,
+                    ridden: &bike.outline,
+                    stock: &bike.stock_outline,
+                    numbers: &bike.ridden,
+                    seated: limits(&bike.handling.seated),
+                    standing: limits(&bike.handling.standing),
+                });
+                (svg, framewise_formats::fields::residual_notes(bike))
             });
-            set(&mut out, "svg", svg.into());
-            set(
-                &mut out,
-                "notes",
-                serde_json::to_value(framewise_formats::fields::residual_notes(bike))
-                    .unwrap_or_default(),
-            );
-        }
-        set(
-            &mut out,
-            "field_errors",
-            serde_json::to_value(field_errors).unwrap_or_default(),
-        );
-        out.to_string()
+        let (svg, notes) = drawn.unzip();
+        serde_json::to_string(&FormResult {
+            report: &report,
+            svg,
+            notes,
+            field_errors,
+        })
+        .unwrap_or_else(|_| "{}".into())
     }
 
-    fn set(out: &mut serde_json::Value, key: &str, value: serde_json::Value) {
-        if let Some(o) = out.as_object_mut() {
-            o.insert(key.to_string(), value);
-        }
-    }
-
-    /// The handling limits of one posture from the report (`handling.<posture>`), when the
-    /// kernel gives them.
-    fn limits(out: &serde_json::Value, posture: &str) -> framewise_draw::Limits {
-        let get = |key: &str| {
-            out.pointer(&format!("/report/bikes/0/handling/{posture}/{key}"))
-                .and_then(serde_json::Value::as_f64)
-        };
+    /// The handling limits written on the centre-of-mass lines, from one posture's statics.
+    fn limits(n: &framewise_kernel::report::Numbers) -> framewise_draw::Limits {
         framewise_draw::Limits {
-            braking_g: get("pitch_over_decel_g"),
-            descent_deg: get("front_tip_slope_deg"),
-            climb_deg: get("rear_tip_slope_deg"),
+            braking_g: n.get("pitch_over_decel_g").copied(),
+            descent_deg: n.get("front_tip_slope_deg").copied(),
+            climb_deg: n.get("rear_tip_slope_deg").copied(),
         }
     }
 
