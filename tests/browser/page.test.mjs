@@ -33,6 +33,9 @@ for (const [name, width, height] of SIZES) {
       `drawing ${JSON.stringify(box)} fits ${width}×${height}`);
     const scroll = await page.evaluate(() => document.documentElement.scrollWidth);
     assert.ok(scroll <= width, `no sideways scrolling: ${scroll} > ${width}`);
+    // Paste box, share box and inputs stack in one column (beside the drawing on a desk).
+    const xs = await page.$$eval('#chart, .share-card, #bike-form', (els) => els.map((e) => Math.round(e.getBoundingClientRect().x)));
+    assert.equal(new Set(xs).size, 1, `one input column: ${xs}`);
     await page.screenshot({ path: `${SHOTS}/page-${name}.png` });
     assert.deepEqual(problems, []);
     await context.close();
