@@ -10,6 +10,7 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
+  catalogue      print the frame measurements (key, label, definition, unit, ranges) as JSON
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -73,6 +74,12 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 (true, None) => Err("the scenario has no bike to draw".into()),
                 _ => Ok(ExitCode::FAILURE),
             }
+        }
+        Some("catalogue") => {
+            let json = serde_json::to_string_pretty(framewise_kernel::CATALOGUE)
+                .map_err(|e| format!("cannot write the catalogue: {e}"))?;
+            println!("{json}");
+            Ok(ExitCode::SUCCESS)
         }
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
