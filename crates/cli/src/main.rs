@@ -1,7 +1,11 @@
 //! `framewise`: the kernel on the command line, JSON in and out (DESIGN.md §8).
 
+mod cmd_import;
+
 use framewise_formats::{report_to_json, scenario_from_json};
 use framewise_kernel::{evaluate, FieldError, Report};
+mod cmd_link;
+
 use std::io::Read;
 use std::process::ExitCode;
 
@@ -10,6 +14,9 @@ const USAGE: &str = "usage: framewise <command> [FILE|-]
 commands:
   eval FILE|-    read a scenario (JSON) and print the report as JSON
   draw FILE|-    read a scenario and print the first bike's side view as SVG
+  link FILE|-    read a scenario and print its share link fragment (with the leading #)
+  open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
+  import CHART|- read a pasted geometry chart and print its size run as JSON
   catalogue      print the frame measurements (key, label, definition, unit, ranges) as JSON
   help           show this text";
 
@@ -75,6 +82,17 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
                 _ => Ok(ExitCode::FAILURE),
             }
         }
+        // Share links (issue 6): see cmd_link.rs.
+        Some("link") => {
+            println!("{}", cmd_link::link(&read_input(file)?)?);
+            Ok(ExitCode::SUCCESS)
+        }
+        Some("open") => {
+            let text = file.ok_or_else(|| format!("missing LINK\n\n{USAGE}"))?;
+            println!("{}", cmd_link::open(text)?);
+            Ok(ExitCode::SUCCESS)
+        }
+        Some("import") => cmd_import::run(file),
         Some("catalogue") => {
             let json = serde_json::to_string_pretty(framewise_kernel::CATALOGUE)
                 .map_err(|e| format!("cannot write the catalogue: {e}"))?;

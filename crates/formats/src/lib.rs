@@ -4,10 +4,18 @@
 //! allowed.
 #![deny(missing_docs)]
 
+pub mod chart;
 pub mod form;
+pub mod form_inverse;
 pub mod json;
+pub mod link;
 pub mod units;
 
+pub use chart::{
+    chart_to_json, import_chart, import_chart_with, Answers, ChartError, ChartImport, ChartSize,
+};
 pub use form::scenario_from_form;
+pub use form_inverse::{form_from_scenario, form_view, FormView};
 pub use json::{report_to_json, scenario_from_json};
+pub use link::{decode_link, encode_link, LinkError, LINK_VERSION};
 pub use units::{parse_quantity, Quantity, UnitError};

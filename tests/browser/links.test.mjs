@@ -1,0 +1,173 @@
+// Browser tests of share links (issue 6): golden links open with their exact values, an edited
+// page's link opens the same in a fresh browser, bad links explain themselves and leave the page
+// usable, and markup in a link's text stays text.
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { readFileSync } from 'node:fs';
+import { startAll, openPage, ROOT, SHOTS } from './harness.mjs';
+
+let env;
+before(async () => { env = await startAll(); });
+after(async () => { await env?.stop(); });
+
+const T = { timeout: 30000 };
+const golden = (name) => readFileSync(`${ROOT}tests/links/${name}.txt`, 'utf8').trim();
+const goldenJson = (name) => JSON.parse(readFileSync(`${ROOT}tests/links/${name}.json`, 'utf8'));
+
+/** The page's form as { name: value }. */
+const formValues = (page) => page.evaluate(() => Object.fromEntries(
+  [...document.getElementById('bike-form').elements].filter((e) => e.name).map((e) => [e.name, e.value])));
+
+/** Every request the page makes, so tests can check none leaves the page's own origin. */
+function recordRequests(page) {
+  const seen = [];
+  page.on('request', (r) => seen.push(r.url()));
+  return seen;
+}
+
+test('a golden link opens with its exact values and stays in the address', T, async () => {
+  const hash = golden('v1-one-bike');
+  const want = goldenJson('v1-one-bike').bikes[0];
+  const { page, context, problems } = await openPage(env, { hash });
+  const values = await formValues(page);
+  let checked = 0;
+  for (const [name, value] of Object.entries(values)) {
+    const [group, key] = name.split('.');
+    const expected = group === 'frame' ? want.frame[key] : want.wheels[key];
+    // A field the link leaves out is blank; every other shows the link's value exactly.
+    assert.equal(value, expected === undefined ? '' : String(expected), name);
+    checked += expected === undefined ? 0 : 1;
+  }
+  assert.ok(checked >= 8, `only ${checked} values checked`);
+  assert.equal(await page.evaluate(() => location.hash), hash);
+  assert.match(await page.locator('#share-msg').textContent(), /Opened the shared link/);
+  assert.equal(await page.locator('#drawing svg .ridden .tyre').count(), 2);
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('an edited page gives a link that opens the same in a new browser context', T, async () => {
+  const { page, context, problems } = await openPage(env);
+  const historyLength = await page.evaluate(() => history.length);
+  await page.fill('input[name="frame.reach_mm"]', '492.5');
+  await page.fill('input[name="frame.head_angle_deg"]', '63.85');
+  await page.fill('input[name="wheels.rear"]', '27.5x2.6');
+  await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
+  const url = await page.locator('#share-url').inputValue();
+  assert.equal(url, await page.evaluate(() => location.href));
+  // replaceState: the edits add no history entries.
+  assert.equal(await page.evaluate(() => history.length), historyLength);
+  const want = await formValues(page);
+  assert.equal(want['frame.head_angle_deg'], '63.85');
+
+  const other = await openPage(env, { hash: new URL(url).hash });
+  const got = await formValues(other.page);
+  // Every value the page holds comes back (numbers as typed at the link's resolution).
+  assert.deepEqual(got, want);
+  assert.equal(await other.page.locator('#drawing svg').innerHTML(), await page.locator('#drawing svg').innerHTML());
+  await other.page.screenshot({ path: `${SHOTS}/links-opened.png`, fullPage: true });
+  assert.deepEqual([...problems, ...other.problems], []);
+  await other.context.close();
+  await context.close();
+});
+
+test('a garbled link shows its message, the page stays usable and saved data is untouched', T, async () => {
+  const { page, context, problems } = await openPage(env);
+  await page.evaluate(() => localStorage.setItem('framewise-test', 'kept'));
+  const good = golden('v1-one-bike');
+  const garbled = good.slice(0, 20) + (good[20] === 'A' ? 'B' : 'A') + good.slice(21);
+  await page.evaluate((h) => { location.hash = h; }, garbled);
+  await page.waitForFunction(() => /could not be opened/.test(document.getElementById('share-msg').textContent), null, { timeout: 5000 });
+  assert.match(await page.locator('#share-msg').textContent(), /damaged.*copy the whole link again/);
+  assert.equal(await page.evaluate(() => location.hash), garbled, 'the bad link stays to be looked at');
+  // Still usable: an edit redraws and the address follows again.
+  const before = await page.locator('#drawing svg').innerHTML();
+  await page.fill('input[name="frame.reach_mm"]', '480');
+  await page.waitForFunction((old) => document.querySelector('#drawing svg').innerHTML !== old, before, { timeout: 5000 });
+  await page.waitForFunction((bad) => location.hash !== bad, garbled, { timeout: 5000 });
+  assert.equal(await page.evaluate(() => localStorage.getItem('framewise-test')), 'kept');
+  // Cut short and future-version links also explain themselves.
+  for (const [hash, pattern] of [[good.slice(0, 12), /cut short|damaged/], ['#AgAA', /newer version/]]) {
+    const other = await openPage(env, { hash });
+    assert.match(await other.page.locator('#share-msg').textContent(), pattern);
+    assert.equal(await other.page.locator('#drawing svg .ridden .tyre').count(), 2);
+    assert.deepEqual(other.problems, []);
+    await other.context.close();
+  }
+  await page.screenshot({ path: `${SHOTS}/links-garbled.png`, fullPage: true });
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('markup and script in a link label render as plain text and run nothing', T, async () => {
+  const context = await env.browser.newContext();
+  const page = await context.newPage();
+  const problems = [];
+  const dialogs = [];
+  page.on('pageerror', (e) => problems.push(e.message));
+  page.on('dialog', async (d) => { dialogs.push(d.message()); await d.dismiss(); });
+  const requests = recordRequests(page);
+  await page.goto(env.base + golden('v1-hostile-label'));
+  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  const label = goldenJson('v1-hostile-label').bikes[0].label;
+  assert.equal(await page.locator('#drawing svg title').textContent(), `Side view of ${label}`);
+  assert.equal(await page.locator('#drawing img, #drawing script, #share-msg *').count(), 0);
+  assert.equal(await page.locator('script').count(), 1, 'only the page module script');
+  await page.waitForTimeout(300);
+  assert.deepEqual(dialogs, []);
+  assert.ok(requests.every((u) => !u.endsWith('/x')), 'the img payload made no request');
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('the QR code of the link is drawn as SVG and the page asks nothing of other sites', T, async () => {
+  const context = await env.browser.newContext();
+  const page = await context.newPage();
+  const requests = recordRequests(page);
+  await page.goto(env.base + golden('v1-one-bike'));
+  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  await page.click('#share-qr-toggle');
+  assert.equal(await page.locator('#share-qr svg[role="img"] path').count(), 1);
+  assert.equal(await page.locator('#share-qr-toggle').getAttribute('aria-expanded'), 'true');
+  await page.setViewportSize({ width: 360, height: 740 });
+  await page.locator('#share-qr').screenshot({ path: `${SHOTS}/links-qr-phone.png` });
+  await page.click('#share-copy');
+  await page.fill('input[name="frame.stack_mm"]', '640');
+  await page.waitForTimeout(500);
+  const own = new URL(env.base).origin;
+  // The page's own static files: the service worker's precache list (plus the worker itself).
+  const sw = readFileSync(`${ROOT}web/sw.js`, 'utf8');
+  const files = [...sw.match(/const PRECACHE = \[([^\]]*)\]/)[1].matchAll(/'([^']*)'/g)]
+    .map((m) => new URL(m[1], env.base).pathname).concat('/sw.js');
+  assert.ok(requests.length >= 4, `requests: ${requests}`);
+  for (const u of requests) {
+    assert.equal(new URL(u).origin, own, `request to ${u}`);
+    assert.ok(files.includes(new URL(u).pathname), `not one of the page's files: ${u}`);
+    assert.ok(!u.includes('#'), `a fragment was sent: ${u}`);
+  }
+  await context.close();
+});
+
+test('view choices and values the page has no input for survive an edit', T, async () => {
+  const name = 'v1-changes-and-view';
+  const want = goldenJson(name);
+  const { page, context, problems } = await openPage(env, { hash: golden(name) });
+  const note = await page.locator('#share-msg').textContent();
+  // The page names what it cannot show (here: tolerances, the diameter wheel, the load, …).
+  assert.match(note, /does not show \d+ of its values yet/);
+  assert.match(note, /bikes\[0\]\.load/);
+  await page.fill('input[name="frame.reach_mm"]', '485');
+  await page.waitForFunction((old) => location.hash !== old, golden(name), { timeout: 5000 });
+  const opened = await page.evaluate(async () => {
+    const m = await import('./pkg/framewise.js');
+    return JSON.parse(m.form_from_link(location.hash));
+  });
+  assert.deepEqual(opened.view, want.view);
+  assert.equal(opened.fields['frame.reach_mm'], '485');
+  assert.equal(opened.fields['rider.height_mm'], String(want.rider.height_mm));
+  assert.equal(opened.fields['setup.bike_mass_kg'], String(want.bikes[0].setup.bike_mass_kg));
+  assert.equal(opened.fields['changes.front_sag_pct'], String(want.bikes[0].changes.front_sag_pct));
+  assert.equal(opened.fields['changes.wheels.rear'], want.bikes[0].changes.wheels.rear);
+  assert.deepEqual(problems, []);
+  await context.close();
+});

@@ -1,0 +1,129 @@
+// Share links (issue 6): the address follows the page, a copy button, the system share sheet
+// where the browser has one, a QR code of the link, and opening a link fills the page.
+// Every encoding and decoding is done in Rust (crates/web/src/link.rs); this file only moves text.
+// Text from a link is only ever written with .value / .textContent, never as markup.
+import { link_from_form, form_from_link, qr_svg } from '../pkg/framewise.js';
+
+const byId = (id) => document.getElementById(id);
+
+/**
+ * Wires the share area. Call once after the wasm module is initialised and before the first
+ * evaluation. Options:
+ *   getFields()        → { "<field name>": "<typed text>" } of the form
+ *   applyFields(f)     fills the form from a link; returns the names it has no field for
+ *   getView()/applyView(v)  the page's view choices (optional; kept from the link otherwise)
+ * Returns { fields(), update() }: fields() is the form plus the opened link's values the form
+ * has no input for (evaluate these, so the drawing shows the whole link); call update() after
+ * every evaluation that succeeded.
+ */
+export function initShare({ getFields, applyFields, getView, applyView = () => {} }) {
+  const msg = byId('share-msg');
+  const url = byId('share-url');
+  const copy = byId('share-copy');
+  const native = byId('share-native');
+  const qrToggle = byId('share-qr-toggle');
+  const qr = byId('share-qr');
+  let view = {};
+  // Values of an opened link that the form has no input for: carried into the next links.
+  let carried = {};
+  // Until the person edits something, the address keeps the link that was opened (good or bad):
+  // nothing it holds is dropped and a bad link stays for them to look at.
+  let hold = false;
+
+  const say = (text, kind = 'info') => {
+    msg.textContent = text;
+    msg.dataset.kind = kind;
+  };
+
+  function open(hash) {
+    if (!hash || hash === '#') return;
+    let result;
+    try {
+      result = JSON.parse(form_from_link(hash));
+    } catch (e) {
+      hold = true;
+      say(`This link could not be opened: ${e.message ?? e}. The page shows its last numbers instead.`, 'bad');
+      return;
+    }
+    hold = true;
+    view = result.view ?? {};
+    const unplaced = applyFields(result.fields) ?? [];
+    carried = Object.fromEntries(unplaced.map((name) => [name, result.fields[name]]));
+    applyView(view);
+    const left = [...(result.omitted ?? []), ...unplaced];
+    say(left.length
+      ? `Opened the shared link. This page does not show ${left.length} of its values yet (${left.join(', ')}).`
+      : 'Opened the shared link.', left.length ? 'note' : 'info');
+  }
+
+  function currentView() {
+    return getView ? getView() : view;
+  }
+
+  function showQr() {
+    try {
+      const doc = new DOMParser().parseFromString(qr_svg(location.href), 'image/svg+xml');
+      qr.replaceChildren(document.importNode(doc.documentElement, true));
+    } catch (e) {
+      qr.replaceChildren();
+      say(`No QR code: ${e.message ?? e}`, 'bad');
+    }
+  }
+
+  function fields() {
+    return { ...carried, ...getFields() };
+  }
+
+  function update() {
+    url.value = location.href;
+    if (hold) return;
+    let hash;
+    try {
+      hash = link_from_form(JSON.stringify(fields()), JSON.stringify(currentView()));
+    } catch {
+      return; // a field does not read: the address keeps the last good link
+    }
+    if (hash !== location.hash) history.replaceState(history.state, '', hash);
+    url.value = location.href;
+    if (!qr.hidden) showQr();
+  }
+
+  copy.addEventListener('click', async () => {
+    url.value = location.href;
+    try {
+      await navigator.clipboard.writeText(location.href);
+      say('Link copied.');
+    } catch {
+      url.focus();
+      url.select();
+      say('Select the link above and copy it.');
+    }
+  });
+
+  if (typeof navigator.share === 'function') {
+    native.hidden = false;
+    native.addEventListener('click', () => {
+      navigator.share({ title: document.title, url: location.href }).catch(() => {});
+    });
+  }
+
+  qrToggle.addEventListener('click', () => {
+    const show = qr.hidden;
+    qr.hidden = !show;
+    qrToggle.setAttribute('aria-expanded', String(show));
+    qrToggle.textContent = show ? 'Hide QR code' : 'Show QR code';
+    if (show) showQr();
+  });
+
+  // The first edit lets the address follow the page again.
+  document.addEventListener('input', () => {
+    if (hold && msg.dataset.kind === 'bad') say('');
+    hold = false;
+  }, { capture: true });
+  // A link pasted into the address bar of an open page.
+  window.addEventListener('hashchange', () => { open(location.hash); });
+
+  open(location.hash);
+  url.value = location.href;
+  return { fields, update };
+}
