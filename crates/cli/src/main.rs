@@ -1,5 +1,7 @@
 //! `framewise`: the kernel on the command line, JSON in and out (DESIGN.md §8).
 
+mod cmd_import;
+
 use framewise_formats::{report_to_json, scenario_from_json};
 use framewise_kernel::{evaluate, FieldError, Report};
 mod cmd_link;
@@ -14,6 +16,7 @@ commands:
   draw FILE|-    read a scenario and print the first bike's side view as SVG
   link FILE|-    read a scenario and print its share link fragment (with the leading #)
   open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
+  import CHART|- read a pasted geometry chart and print its size run as JSON
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -88,6 +91,7 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
             println!("{}", cmd_link::open(text)?);
             Ok(ExitCode::SUCCESS)
         }
+        Some("import") => cmd_import::run(file),
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
             Ok(ExitCode::SUCCESS)

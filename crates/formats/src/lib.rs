@@ -4,12 +4,16 @@
 //! allowed.
 #![deny(missing_docs)]
 
+pub mod chart;
 pub mod form;
 pub mod form_inverse;
 pub mod json;
 pub mod link;
 pub mod units;
 
+pub use chart::{
+    chart_to_json, import_chart, import_chart_with, Answers, ChartError, ChartImport, ChartSize,
+};
 pub use form::scenario_from_form;
 pub use form_inverse::{form_from_scenario, form_view, FormView};
 pub use json::{report_to_json, scenario_from_json};

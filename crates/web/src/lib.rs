@@ -3,6 +3,8 @@
 
 use wasm_bindgen::prelude::*;
 
+mod chart;
+pub use chart::{import_chart, import_chart_with_answers};
 // Share links and QR codes (issue 6): link_from_form, form_from_link, qr_svg.
 pub mod link;
 

@@ -33,3 +33,20 @@ fn text_in_a_number_field_is_an_error_not_a_throw() {
     let v: serde_json::Value = serde_json::from_str(&out).unwrap_or_default();
     assert_eq!(v["field_errors"][0]["field"], "frame.reach_mm");
 }
+
+#[wasm_bindgen_test]
+fn a_pasted_chart_becomes_a_size_run_in_the_browser() {
+    // Invented chart: sizes as columns, tab-separated, reach in inches with marks.
+    let out = framewise_web::import_chart(
+        "Size\tS\tM\nReach\t17\"\t18.5\"\nHead angle\t65°\t65°\nSaddle\t1\t2\n",
+    );
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap_or_default();
+    // Source: 1 in = 25.4 mm exactly; 18.5 in = 469.9 mm.
+    assert_eq!(v["sizes"][1]["label"], "M");
+    assert_eq!(v["sizes"][1]["frame"]["reach_mm"], 469.9);
+    assert_eq!(v["sizes"][0]["frame"]["head_angle_deg"], 65.0);
+    assert_eq!(v["unrecognised"][0], "Saddle");
+    let bad: serde_json::Value =
+        serde_json::from_str(&framewise_web::import_chart("")).unwrap_or_default();
+    assert_eq!(bad["error"]["code"], "empty_chart");
+}

@@ -1,0 +1,416 @@
+//! The table's shape: text lines out, short rows repaired, sizes as columns or rows, the label
+//! column, a units column, the size row. The values themselves are read in `rows`.
+
+use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
+use super::grid::{is_size_token, Grid, Row, Sep};
+use super::label::{classify, Kind};
+use super::log::{shorten, Log};
+use super::rows::{fill, TableRow};
+use super::segment::split_header;
+use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
+use std::collections::BTreeMap;
+
+/// Reads the grid into a size run.
+pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, ChartError> {
+    let mut log = Log::new(answers);
+    let mut global_unit = None;
+    let mut table: Vec<Vec<String>> = Vec::new();
+    let rows = regroup_single_column(grid, &mut log).unwrap_or_else(|| split_headers(grid));
+    let widest = rows.iter().map(|r| r.cells.len()).max().unwrap_or(0);
+    for row in &rows {
+        let filled = row.cells.iter().filter(|c| !c.is_empty()).count();
+        let numeric = row
+            .cells
+            .iter()
+            .any(|c| matches!(parse_cell(c, grid.decimal_comma), Cell::Number(_)));
+        // "Geometry 2027" above a wide table is a title, not a row with one value.
+        let titled = filled == 2
+            && widest >= 4
+            && row.cells.first().is_some_and(|c| {
+                let kind = classify(c).kind;
+                !c.is_empty() && kind == Kind::Unknown
+            });
+        if (filled <= 1 && !numeric) || titled {
+            let line = row.cells.join(" ");
+            let short = shorten(line.trim());
+            if let Some(u) = unit_hint(&line) {
+                global_unit = Some(u);
+                let name = u.words();
+                log.note(
+                    "",
+                    format!("lengths without a unit read as {name}, as \"{short}\" says"),
+                );
+            } else {
+                log.note("", format!("ignored a line of text: \"{short}\""));
+            }
+        } else {
+            table.push(row.cells.clone());
+        }
+    }
+    match table.len() {
+        0 => return Err(ChartError::NotATable),
+        1 => return Err(ChartError::OneRow),
+        _ => {}
+    }
+    let width = table.iter().map(Vec::len).max().unwrap_or(0);
+    if width > 4 * MAX_SIZES {
+        return Err(ChartError::TooManySizes { count: width - 1 });
+    }
+    repair_short_rows(&mut table);
+    let table = orient(table, &mut log)?;
+    let (table, units_col) = label_first(table, &mut log)?;
+    let header = find_header(&table);
+    let value_count = table
+        .iter()
+        .enumerate()
+        .filter(|(i, _)| Some(*i) != header)
+        .map(|(_, r)| r.len().saturating_sub(1))
+        .max()
+        .unwrap_or(0);
+    let header_cells: Vec<String> = header
+        .and_then(|h| table.get(h))
+        .map(|r| r.iter().skip(1).cloned().collect())
+        .unwrap_or_default();
+    if let Some(u) = header.and_then(|h| table.get(h)).and_then(|r| r.first()) {
+        global_unit = classify(u).unit.or(global_unit);
+    }
+    let n = value_count.max(header_cells.len());
+    if n == 0 {
+        return Err(ChartError::NotATable);
+    }
+    if n > MAX_SIZES {
+        return Err(ChartError::TooManySizes { count: n });
+    }
+    if header.is_none() {
+        log.note(
+            "",
+            "no row of size names found; the sizes are numbered from the left".into(),
+        );
+    }
+    let mut sizes = size_labels(&header_cells, n);
+    let rows: Vec<TableRow> = table
+        .iter()
+        .enumerate()
+        .filter(|(i, _)| Some(*i) != header)
+        .map(|(i, r)| {
+            let label = classify(r.first().map_or("", String::as_str));
+            let unit = label.unit.or(units_col.get(i).copied().flatten());
+            TableRow {
+                label,
+                unit,
+                cells: r.iter().skip(1).cloned().collect(),
+            }
+        })
+        .collect();
+    fill(&mut sizes, rows, global_unit, grid.decimal_comma, &mut log);
+    drop_empty_sizes(&mut sizes, &header_cells, &mut log);
+    Ok(ChartImport {
+        sizes,
+        unrecognised: log.unrecognised,
+        questions: log.questions,
+        notes: log.notes,
+    })
+}
+
+/// A table copied from a phone's stacked layout arrives one cell per line: each label line
+/// starts a row and the lines after it are its cells ("Reach", "430", "455", "Stack", …).
+fn regroup_single_column(grid: &Grid, log: &mut Log) -> Option<Vec<Row>> {
+    let filled = |r: &Row| r.cells.iter().filter(|c| !c.is_empty()).count();
+    if grid.rows.len() < 4 || grid.rows.iter().any(|r| filled(r) > 1) {
+        return None;
+    }
+    let mut rows: Vec<Row> = Vec::new();
+    let cells = grid
+        .rows
+        .iter()
+        .filter_map(|r| r.cells.iter().find(|c| !c.is_empty()));
+    for cell in cells {
+        let kind = classify(cell).kind;
+        let starts = kind.is_measurement()
+            || (kind == Kind::Size && !cell.is_empty())
+            || (!is_value_token(cell) && !is_size_token(cell));
+        match rows.last_mut() {
+            Some(row) if !starts => row.cells.push(cell.clone()),
+            _ => rows.push(Row {
+                cells: vec![cell.clone()],
+            }),
+        }
+    }
+    let grouped = rows.iter().filter(|r| r.cells.len() > 1).count();
+    (grouped >= 2).then(|| {
+        log.note(
+            "",
+            "the chart had one cell per line; each label was read with the lines after it".into(),
+        );
+        rows
+    })
+}
+
+/// A column with no size name and no number in any row (say, labels repeated on the right)
+/// is not a size, unless no size has numbers.
+fn drop_empty_sizes(sizes: &mut Vec<ChartSize>, header: &[String], log: &mut Log) {
+    let empty =
+        |s: &ChartSize| s.frame.is_empty() && s.wheels.front.is_none() && s.wheels.rear.is_none();
+    if sizes.iter().all(empty) {
+        return;
+    }
+    let mut i = 0;
+    sizes.retain(|s| {
+        let unnamed = header.get(i).is_none_or(|h| h.trim().is_empty());
+        i += 1;
+        let keep = !(unnamed && empty(s));
+        if !keep {
+            log.note(
+                "",
+                format!("column {i} has no size name and no numbers, so it is not read as a size"),
+            );
+        }
+        keep
+    });
+}
+
+/// Space-separated text: a line of labels with single spaces ("Size Reach Stack HTA") is split
+/// into as many labels as the data rows have cells.
+fn split_headers(grid: &Grid) -> Vec<Row> {
+    let mut rows = grid.rows.clone();
+    if grid.sep != Sep::Spaces {
+        return rows;
+    }
+    let mut counts: BTreeMap<usize, usize> = BTreeMap::new();
+    for r in rows.iter().filter(|r| r.cells.len() >= 3) {
+        *counts.entry(r.cells.len()).or_default() += 1;
+    }
+    let Some(width) = counts.iter().max_by_key(|(_, n)| **n).map(|(w, _)| *w) else {
+        return rows;
+    };
+    // Only the first few lines can be the header.
+    for r in rows.iter_mut().take(8) {
+        let mut filled = r.cells.iter().filter(|c| !c.is_empty());
+        if let (Some(only), None) = (filled.next(), filled.next()) {
+            if let Some(cells) = split_header(only, width) {
+                r.cells = cells;
+            }
+        }
+    }
+    rows
+}
+
+/// A unit named in a line of text such as "All measurements in mm".
+fn unit_hint(line: &str) -> Option<Mark> {
+    let lower = line.to_lowercase();
+    let words: Vec<&str> = lower
+        .split(|c: char| !(c.is_alphanumeric() || c == '"'))
+        .filter(|w| !w.is_empty() && *w != "in")
+        .collect();
+    let marks: Vec<Mark> = words
+        .iter()
+        .filter_map(|w| Mark::from_word(w))
+        .filter(|m| *m != Mark::Deg)
+        .collect();
+    let first = *marks.first()?;
+    marks.iter().all(|m| *m == first).then_some(first)
+}
+
+/// A row one cell short whose first cell is a size name or a number lacks its (blank) label.
+fn repair_short_rows(table: &mut [Vec<String>]) {
+    let mut counts: BTreeMap<usize, usize> = BTreeMap::new();
+    for r in table.iter().filter(|r| r.len() >= 2) {
+        *counts.entry(r.len()).or_default() += 1;
+    }
+    let Some(mode) = counts
+        .iter()
+        .max_by(|a, b| a.1.cmp(b.1).then(b.0.cmp(a.0)))
+        .map(|(len, _)| *len)
+    else {
+        return;
+    };
+    // Rows led by a drawing reference ("A", "1") make a header without one a cell short.
+    let is_ref = |r: &Vec<String>| {
+        r.first().is_some_and(|c| {
+            let short =
+                (1..=2).contains(&c.chars().count()) && c.chars().all(char::is_alphanumeric);
+            short || classify(c).kind == Kind::RowNumber
+        })
+    };
+    let full = table.iter().filter(|r| r.len() == mode).count();
+    let refs = table
+        .iter()
+        .filter(|r| r.len() == mode && is_ref(r))
+        .count();
+    let referenced = refs * 2 > full;
+    for r in table.iter_mut() {
+        let first = r.first().map_or("", String::as_str);
+        let unlabelled = first.is_empty()
+            || is_size_token(first)
+            || is_value_token(first)
+            || (referenced && !is_ref(r));
+        if r.len() + 1 == mode && unlabelled {
+            r.insert(0, String::new());
+        }
+    }
+}
+
+fn measurement(cell: &str) -> bool {
+    classify(cell).kind.is_measurement()
+}
+
+/// Sizes as rows (labels across the top) are transposed to sizes as columns.
+fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<Vec<Vec<String>>, ChartError> {
+    let col_best = (0..3)
+        .map(|c| {
+            table
+                .iter()
+                .filter(|r| r.get(c).is_some_and(|s| measurement(s)))
+                .count()
+        })
+        .max()
+        .unwrap_or(0);
+    let row_best = table
+        .iter()
+        .take(8)
+        .map(|r| r.iter().filter(|s| measurement(s)).count())
+        .max()
+        .unwrap_or(0);
+    if row_best <= col_best {
+        return Ok(table);
+    }
+    if table.len() > MAX_SIZES + 4 {
+        return Err(ChartError::TooManySizes {
+            count: table.len() - 1,
+        });
+    }
+    log.note(
+        "",
+        "the measurements run across the top, so each row was read as one size".into(),
+    );
+    let width = table.iter().map(Vec::len).max().unwrap_or(0);
+    Ok((0..width)
+        .map(|c| {
+            let mut col: Vec<String> = table
+                .iter()
+                .map(|r| r.get(c).cloned().unwrap_or_default())
+                .collect();
+            while col.last().is_some_and(String::is_empty) {
+                col.pop();
+            }
+            col
+        })
+        .collect())
+}
+
+type Units = Vec<Option<Mark>>;
+
+/// Moves the label column first (dropping row-number columns before it) and takes out a
+/// units column after it. Returns the table and each row's unit from that column.
+fn label_first(
+    table: Vec<Vec<String>>,
+    log: &mut Log,
+) -> Result<(Vec<Vec<String>>, Units), ChartError> {
+    let scores: Vec<usize> = (0..3)
+        .map(|c| {
+            table
+                .iter()
+                .filter(|r| r.get(c).is_some_and(|s| measurement(s)))
+                .count()
+        })
+        .collect();
+    let best = scores.iter().copied().max().unwrap_or(0);
+    let label_col = scores.iter().position(|s| *s == best).unwrap_or(0);
+    if best == 0 {
+        let mut labels: Vec<String> = Vec::new();
+        for r in &table {
+            let first = r.iter().find(|c| !c.is_empty());
+            let l = strip_footnotes(first.map_or("", String::as_str));
+            if !l.is_empty() && !labels.contains(&l) {
+                labels.push(shorten(&l));
+            }
+        }
+        return Err(ChartError::NothingRecognised { labels });
+    }
+    if label_col > 0 {
+        log.note(
+            "",
+            format!(
+                "ignored {label_col} column(s) before the labels (row numbers or drawing references)"
+            ),
+        );
+    }
+    let mut table: Vec<Vec<String>> = table
+        .into_iter()
+        .map(|r| r.into_iter().skip(label_col).collect())
+        .collect();
+    let is_units_col = table.iter().any(|r| unit_cell(r).is_some())
+        && table
+            .iter()
+            .filter(|r| measurement(r.first().map_or("", String::as_str)))
+            .all(|r| {
+                r.get(1)
+                    .is_none_or(|c| c.is_empty() || Mark::from_word(c).is_some())
+            });
+    if !is_units_col {
+        return Ok((table, vec![None; 0]));
+    }
+    log.note("", "read each row's unit from the units column".into());
+    let units = table.iter().map(|r| unit_cell(r)).collect();
+    for r in &mut table {
+        if r.len() > 1 {
+            r.remove(1);
+        }
+    }
+    Ok((table, units))
+}
+
+fn unit_cell(r: &[String]) -> Option<Mark> {
+    r.get(1).and_then(|c| Mark::from_word(c))
+}
+
+/// The row of size names: labelled "Size" (or blank), else an unlabelled first row.
+fn find_header(table: &[Vec<String>]) -> Option<usize> {
+    let values = |r: &Vec<String>| r.iter().skip(1).filter(|c| !c.is_empty()).count();
+    let kinds: Vec<Kind> = table
+        .iter()
+        .map(|r| classify(r.first().map_or("", String::as_str)).kind)
+        .collect();
+    let sized = kinds
+        .iter()
+        .zip(table)
+        .position(|(k, r)| *k == Kind::Size && values(r) > 0);
+    if sized.is_some() {
+        return sized;
+    }
+    let first_measure = kinds.iter().position(|k| k.is_measurement()).unwrap_or(0);
+    let most = table
+        .iter()
+        .zip(&kinds)
+        .filter(|(_, k)| k.is_measurement())
+        .map(|(r, _)| values(r))
+        .max()
+        .unwrap_or(0);
+    (0..first_measure).find(|&i| {
+        kinds.get(i) == Some(&Kind::Unknown) && table.get(i).is_some_and(|r| values(r) >= most)
+    })
+}
+
+/// Size names from the header cells; blanks and repeats get a number.
+fn size_labels(cells: &[String], n: usize) -> Vec<ChartSize> {
+    let mut out: Vec<ChartSize> = Vec::with_capacity(n);
+    for i in 0..n {
+        let raw = cells.get(i).map_or("", String::as_str);
+        let mut label = strip_footnotes(raw)
+            .split_whitespace()
+            .collect::<Vec<_>>()
+            .join(" ");
+        if label.is_empty() {
+            label = format!("Size {}", i + 1);
+        }
+        if out.iter().any(|s| s.label == label) {
+            label = format!("{label} ({})", i + 1);
+        }
+        out.push(ChartSize {
+            label,
+            frame: BTreeMap::new(),
+            wheels: Default::default(),
+        });
+    }
+    out
+}

@@ -1,0 +1,72 @@
+//! What the importer tells the person: notes, questions (with answers given back by id) and
+//! the labels of rows it does not read.
+
+use super::{Answers, Note, Question};
+
+/// Notes, questions and unrecognised rows, collected while reading.
+pub struct Log<'a> {
+    answers: &'a Answers,
+    /// Notes so far.
+    pub notes: Vec<Note>,
+    /// Questions so far (one per id).
+    pub questions: Vec<Question>,
+    /// Labels of rows not read.
+    pub unrecognised: Vec<String>,
+}
+
+impl<'a> Log<'a> {
+    /// An empty log that answers questions from `answers`.
+    pub fn new(answers: &'a Answers) -> Self {
+        Self {
+            answers,
+            notes: Vec::new(),
+            questions: Vec::new(),
+            unrecognised: Vec::new(),
+        }
+    }
+
+    /// Records a note about `row` (empty for the whole chart).
+    pub fn note(&mut self, row: &str, message: String) {
+        self.notes.push(Note {
+            row: row.to_string(),
+            message,
+        });
+    }
+
+    /// Asks a question; returns the answer given for its id, else `default`.
+    pub fn ask(
+        &mut self,
+        row: &str,
+        topic: &str,
+        message: String,
+        options: &[&str],
+        default: &str,
+    ) -> String {
+        let id = format!("{row}#{topic}");
+        let chosen = self
+            .answers
+            .get(&id)
+            .filter(|a| options.contains(&a.as_str()))
+            .cloned()
+            .unwrap_or_else(|| default.to_string());
+        if !self.questions.iter().any(|q| q.id == id) {
+            self.questions.push(Question {
+                id,
+                row: row.to_string(),
+                message,
+                options: options.iter().map(|o| (*o).to_string()).collect(),
+                chosen: chosen.clone(),
+            });
+        }
+        chosen
+    }
+}
+
+/// Shortens text for a note.
+pub fn shorten(text: &str) -> String {
+    let mut s: String = text.chars().take(60).collect();
+    if text.chars().count() > 60 {
+        s.push('…');
+    }
+    s
+}

@@ -1,0 +1,436 @@
+//! The values of each row: labels resolved to keys, units chosen (given, or inferred from the
+//! size of the numbers), values converted to mm and degrees and written per size.
+
+use super::cell::{parse_cell, Cell, Mark, Num, Spread};
+use super::label::{Ambiguity, Kind, Label, WheelSlot};
+use super::log::{shorten, Log};
+use super::wheels::{default_note, parse_wheel_cell};
+use super::ChartSize;
+use framewise_kernel::{lookup, Measurement, Unit, WheelSpec};
+
+/// One row below the size row.
+pub(super) struct TableRow {
+    /// Its classified label.
+    pub label: Label,
+    /// Its unit from the label or a units column.
+    pub unit: Option<Mark>,
+    /// Its cells, one per size.
+    pub cells: Vec<String>,
+}
+
+/// A row that names a frame key, with its cells read.
+struct Keyed {
+    text: String,
+    m: &'static Measurement,
+    unit: Option<Mark>,
+    cells: Vec<Cell>,
+}
+
+const LENGTHS: [Mark; 3] = [Mark::Mm, Mark::Cm, Mark::In];
+
+/// Reads every row into `sizes`.
+pub(super) fn fill(
+    sizes: &mut [ChartSize],
+    rows: Vec<TableRow>,
+    global: Option<Mark>,
+    decimal_comma: bool,
+    log: &mut Log,
+) {
+    let n = sizes.len();
+    let mut keyed: Vec<Keyed> = Vec::new();
+    let mut ambiguous: Vec<(TableRow, Ambiguity)> = Vec::new();
+    for row in rows {
+        match row.label.kind {
+            Kind::Key(k) => push_keyed(&mut keyed, row, k, n, decimal_comma, log),
+            Kind::Ambiguous(a) => ambiguous.push((row, a)),
+            Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
+            Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
+            Kind::Size | Kind::Unknown => {
+                let name = if row.label.text.is_empty() {
+                    "(a row without a label)".to_string()
+                } else {
+                    shorten(&row.label.text)
+                };
+                log.unrecognised.push(name);
+            }
+        }
+    }
+    for (row, a) in ambiguous {
+        if let Some(k) = resolve(&row, a, &keyed, log) {
+            push_keyed(&mut keyed, row, k, n, decimal_comma, log);
+        }
+    }
+    let consensus = consensus(&keyed, global);
+    for row in &keyed {
+        write_row(sizes, row, global, consensus, log);
+    }
+}
+
+fn push_keyed(
+    keyed: &mut Vec<Keyed>,
+    row: TableRow,
+    key: &'static str,
+    n: usize,
+    decimal_comma: bool,
+    log: &mut Log,
+) {
+    let Some(m) = lookup(key) else { return };
+    if keyed.iter().any(|k| k.m.key == key) {
+        log.note(
+            &row.label.text,
+            format!("a second row for {}; the first one was used", m.label),
+        );
+        log.unrecognised.push(shorten(&row.label.text));
+        return;
+    }
+    let mut cells: Vec<Cell> = row
+        .cells
+        .iter()
+        .map(|c| parse_cell(c, decimal_comma))
+        .collect();
+    let given: Vec<&Cell> = cells.iter().filter(|c| **c != Cell::Missing).collect();
+    if n > 1 && cells.len() == 1 && given.len() == 1 {
+        let one = cells.first().cloned().unwrap_or(Cell::Missing);
+        cells = vec![one; n];
+        log.note(
+            &row.label.text,
+            "one value for every size; used it for all".into(),
+        );
+    }
+    if (2..n).contains(&cells.len()) {
+        log.note(
+            &row.label.text,
+            format!("{} values for {n} sizes; read from the left", cells.len()),
+        );
+    }
+    if cells.len() > n {
+        log.note(
+            &row.label.text,
+            format!(
+                "{} values for {n} sizes; the extra ones were left out",
+                cells.len()
+            ),
+        );
+        cells.truncate(n);
+    }
+    keyed.push(Keyed {
+        text: row.label.text,
+        m,
+        unit: row.unit,
+        cells,
+    });
+}
+
+/// Seat angle or top tube without "effective"/"actual": the other row of the pair decides,
+/// else the person is asked (default: effective).
+fn resolve(row: &TableRow, a: Ambiguity, keyed: &[Keyed], log: &mut Log) -> Option<&'static str> {
+    let has = |k: &str| keyed.iter().any(|r| r.m.key == k);
+    let text = &row.label.text;
+    let (eff, act, what) = match a {
+        Ambiguity::SeatAngle => (
+            "seat_angle_effective_deg",
+            Some("seat_angle_actual_deg"),
+            "seat tube angle",
+        ),
+        Ambiguity::TopTube => ("top_tube_effective_mm", None, "top tube"),
+    };
+    let choice = match (has(eff), act.is_some_and(has)) {
+        (true, false) => "actual".to_string(),
+        (false, true) => "effective".to_string(),
+        _ => log.ask(
+            text,
+            "meaning",
+            format!("\"{text}\" does not say effective or actual; read as the effective {what}"),
+            &["effective", "actual"],
+            "effective",
+        ),
+    };
+    if has(eff) || act.is_some_and(has) {
+        log.note(
+            text,
+            format!("the chart has the other {what} row, so this one was read as {choice}"),
+        );
+    }
+    match (choice.as_str(), act) {
+        ("effective", _) => Some(eff),
+        ("actual", Some(k)) => Some(k),
+        _ => {
+            log.note(
+                text,
+                "the actual top tube (along the tube) is not used; it follows from the other numbers"
+                    .into(),
+            );
+            log.unrecognised.push(shorten(text));
+            None
+        }
+    }
+}
+
+/// The row's own unit for lengths (cells marked, or from label or units column), if any.
+fn row_length_unit(row: &Keyed) -> Option<Mark> {
+    row.unit.filter(|u| *u != Mark::Deg).or_else(|| {
+        let marks: Vec<Mark> = row
+            .cells
+            .iter()
+            .filter_map(|c| match c {
+                Cell::Number(n) => Some(n.mark),
+                _ => None,
+            })
+            .collect::<Option<Vec<Mark>>>()?;
+        let first = *marks.first()?;
+        (first != Mark::Deg && marks.iter().all(|m| *m == first)).then_some(first)
+    })
+}
+
+/// Units whose conversion puts every unmarked value of the row inside `range`.
+fn candidates(row: &Keyed, range: (f64, f64)) -> Vec<Mark> {
+    let values: Vec<f64> = unmarked(row).map(|n| n.value).collect();
+    LENGTHS
+        .into_iter()
+        .filter(|u| {
+            values
+                .iter()
+                .all(|v| (range.0..=range.1).contains(&(v * u.factor())))
+        })
+        .collect()
+}
+
+fn unmarked(row: &Keyed) -> impl Iterator<Item = &Num> {
+    row.cells.iter().filter_map(|c| match c {
+        Cell::Number(n) if n.mark.is_none() => Some(n),
+        _ => None,
+    })
+}
+
+/// The length unit most rows agree on (given, or the only one that fits).
+fn consensus(keyed: &[Keyed], global: Option<Mark>) -> Option<Mark> {
+    if global.is_some() {
+        return global;
+    }
+    let mut votes = [0usize; 3];
+    for row in keyed.iter().filter(|r| r.m.unit == Unit::Mm) {
+        let unit =
+            row_length_unit(row).or_else(|| match candidates(row, row.m.plausible).as_slice() {
+                [one] => Some(*one),
+                _ => None,
+            });
+        if let Some(i) = unit.and_then(|u| LENGTHS.iter().position(|l| *l == u)) {
+            if let Some(v) = votes.get_mut(i) {
+                *v += 1;
+            }
+        }
+    }
+    let best = votes.iter().copied().max().unwrap_or(0);
+    let winners: Vec<usize> = (0..3).filter(|i| votes.get(*i) == Some(&best)).collect();
+    match winners.as_slice() {
+        [i] if best > 0 => LENGTHS.get(*i).copied(),
+        _ => None,
+    }
+}
+
+/// The unit for the row's unmarked length values.
+fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: &mut Log) -> Mark {
+    if let Some(u) = row.unit.filter(|u| *u != Mark::Deg).or(global) {
+        return u;
+    }
+    if unmarked(row).next().is_none() {
+        return Mark::Mm;
+    }
+    let text = &row.text;
+    let plausible = candidates(row, row.m.plausible);
+    let list = if plausible.is_empty() {
+        candidates(row, row.m.hard)
+    } else {
+        plausible
+    };
+    match list.as_slice() {
+        [one] => {
+            let one = *one;
+            log.note(
+                text,
+                format!(
+                    "no unit given; read as {} from the size of the numbers",
+                    one.words()
+                ),
+            );
+            one
+        }
+        [] => pick(
+            log,
+            text,
+            &["mm", "cm", "in"],
+            "mm",
+            format!(
+            "the numbers of \"{text}\" fit no usual range for {} in mm, cm or inches; read as mm",
+            row.m.label
+        ),
+        ),
+        _ => {
+            let names: Vec<&str> = list.iter().map(|m| m.name()).collect();
+            let words: Vec<&str> = list.iter().map(|m| m.words()).collect();
+            let default = consensus
+                .filter(|c| list.contains(c))
+                .unwrap_or_else(|| nearest_mid(row, &list));
+            let why = if Some(default) == consensus {
+                "like the other rows"
+            } else {
+                "as the most usual value"
+            };
+            pick(
+                log,
+                text,
+                &names,
+                default.name(),
+                format!(
+                    "no unit given and the numbers of \"{text}\" fit {}; read as {} {why}",
+                    words.join(" or "),
+                    default.words()
+                ),
+            )
+        }
+    }
+}
+
+fn pick(log: &mut Log, row: &str, options: &[&str], default: &str, message: String) -> Mark {
+    let chosen = log.ask(row, "unit", message, options, default);
+    LENGTHS
+        .into_iter()
+        .find(|m| m.name() == chosen)
+        .unwrap_or(Mark::Mm)
+}
+
+/// The unit that puts the row's values nearest the middle of the plausible range.
+fn nearest_mid(row: &Keyed, list: &[Mark]) -> Mark {
+    let (lo, hi) = row.m.plausible;
+    let mid = (lo + hi) / 2.0;
+    let span = (hi - lo).max(1.0);
+    let cost = |u: &Mark| {
+        unmarked(row)
+            .map(|n| ((n.value * u.factor() - mid) / span).abs())
+            .sum::<f64>()
+    };
+    list.iter()
+        .copied()
+        .min_by(|a, b| cost(a).total_cmp(&cost(b)))
+        .unwrap_or(Mark::Mm)
+}
+
+fn write_row(
+    sizes: &mut [ChartSize],
+    row: &Keyed,
+    global: Option<Mark>,
+    consensus: Option<Mark>,
+    log: &mut Log,
+) {
+    let angle = row.m.unit == Unit::Deg;
+    let row_unit = if angle {
+        Mark::Deg
+    } else {
+        length_unit(row, global, consensus, log)
+    };
+    let mut second = None;
+    for (size, cell) in sizes.iter_mut().zip(&row.cells) {
+        let num = match cell {
+            Cell::Missing => continue,
+            Cell::Text => {
+                log.note(&row.text, format!("{}: not a number; left out", size.label));
+                continue;
+            }
+            Cell::Number(n) => n,
+        };
+        let unit = num.mark.unwrap_or(row_unit);
+        if angle != (unit == Mark::Deg) {
+            log.note(
+                &row.text,
+                format!(
+                    "{}: the unit {} does not fit {}; left out",
+                    size.label,
+                    unit.words(),
+                    row.m.label
+                ),
+            );
+            continue;
+        }
+        let raw = match num.spread {
+            Spread::Single => num.value,
+            Spread::Range(lo, hi) => {
+                log.note(
+                    &row.text,
+                    format!(
+                        "{}: the range {lo}–{hi} was read as its midpoint {}",
+                        size.label, num.value
+                    ),
+                );
+                num.value
+            }
+            Spread::Pair(a, b) => {
+                let which = *second.get_or_insert_with(|| {
+                    log.ask(
+                        &row.text,
+                        "setting",
+                        format!("\"{}\" gives two values per size (such as two settings); the first was used", row.text),
+                        &["first", "second"],
+                        "first",
+                    ) == "second"
+                });
+                if which {
+                    b
+                } else {
+                    a
+                }
+            }
+        };
+        let value = (raw * unit.factor() * 100.0).round() / 100.0;
+        let (lo, hi) = row.m.hard;
+        if !(value.is_finite() && (lo..=hi).contains(&value)) {
+            log.note(
+                &row.text,
+                format!(
+                    "{}: {value} {} is outside what any frame has for {}; left out",
+                    size.label,
+                    row.m.unit.symbol(),
+                    row.m.label
+                ),
+            );
+            continue;
+        }
+        size.frame.insert(row.m.key.to_string(), value);
+    }
+}
+
+/// A wheel-size row: designations per size, with a note when a tyre width was assumed.
+fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSlot, log: &mut Log) {
+    let text = &row.label.text;
+    let given: Vec<&String> = row.cells.iter().filter(|c| !c.trim().is_empty()).collect();
+    let cells: Vec<String> = match given.as_slice() {
+        [one] if sizes.len() > 1 && row.cells.len() == 1 => vec![(*one).clone(); sizes.len()],
+        _ => row.cells.clone(),
+    };
+    let mut assumed = false;
+    for (size, cell) in sizes.iter_mut().zip(&cells) {
+        if cell.trim().is_empty() {
+            continue;
+        }
+        let Some(w) = parse_wheel_cell(cell) else {
+            log.note(
+                text,
+                format!(
+                    "{}: wheel size \"{}\" not recognised; left out",
+                    size.label,
+                    shorten(cell)
+                ),
+            );
+            continue;
+        };
+        assumed |= w.width_assumed;
+        if slot != WheelSlot::Rear {
+            size.wheels.front = Some(WheelSpec::Designation(w.front));
+        }
+        if slot != WheelSlot::Front {
+            size.wheels.rear = Some(WheelSpec::Designation(w.rear));
+        }
+    }
+    if assumed {
+        log.note(text, default_note().into());
+    }
+}

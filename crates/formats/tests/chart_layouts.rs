@@ -1,0 +1,530 @@
+//! The chart importer on invented chart layouts (tests/charts/*.txt).
+//!
+//! Every number in the fixtures is invented. Expected values are worked out by hand from the
+//! fixture text: millimetres as written, centimetres × 10, inches × 25.4.
+//! Source: 1 in = 25.4 mm exactly (international yard and pound agreement, 1959) [read];
+//! 1 cm = 10 mm (SI).
+
+// Helpers outside `#[test]` functions may stop loudly too (clippy.toml allows it in tests).
+#![allow(
+    clippy::panic,
+    clippy::expect_used,
+    clippy::unwrap_used,
+    clippy::indexing_slicing
+)]
+
+use framewise_formats::chart::{import_chart, import_chart_with, Answers, ChartError, ChartImport};
+
+fn chart(name: &str) -> ChartImport {
+    let path = format!("{}/../../tests/charts/{name}", env!("CARGO_MANIFEST_DIR"));
+    let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{path}: {e}"));
+    import_chart(&text).unwrap_or_else(|e| panic!("{name}: {e}"))
+}
+
+fn labels(c: &ChartImport) -> Vec<&str> {
+    c.sizes.iter().map(|s| s.label.as_str()).collect()
+}
+
+/// The row of `key` across the sizes (NaN where a size has no value).
+fn row(c: &ChartImport, key: &str) -> Vec<f64> {
+    c.sizes
+        .iter()
+        .map(|s| s.frame.get(key).copied().unwrap_or(f64::NAN))
+        .collect()
+}
+
+fn assert_row(c: &ChartImport, key: &str, want: &[f64]) {
+    let got = row(c, key);
+    assert_eq!(got.len(), want.len(), "{key}: {got:?} vs {want:?}");
+    for (g, w) in got.iter().zip(want) {
+        assert!(
+            (g - w).abs() < 1e-9,
+            "{key}: got {got:?}, expected {want:?}"
+        );
+    }
+}
+
+fn wheels(c: &ChartImport) -> Vec<(String, String)> {
+    let name = |w: &Option<framewise_kernel::WheelSpec>| match w {
+        Some(framewise_kernel::WheelSpec::Designation(d)) => d.clone(),
+        _ => String::new(),
+    };
+    c.sizes
+        .iter()
+        .map(|s| (name(&s.wheels.front), name(&s.wheels.rear)))
+        .collect()
+}
+
+fn has_note(c: &ChartImport, row: &str, part: &str) -> bool {
+    c.notes
+        .iter()
+        .any(|n| n.row == row && n.message.contains(part))
+}
+
+#[test]
+fn sizes_as_columns_tab_separated_web_copy() {
+    let c = chart("01_web_tab_columns.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert_row(&c, "reach_mm", &[425.0, 450.0, 475.0, 500.0]);
+    assert_row(&c, "stack_mm", &[610.0, 619.0, 628.0, 637.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 4]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0; 4]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0, 440.0]);
+    assert_row(&c, "wheelbase_mm", &[1175.0, 1203.0, 1232.0, 1261.0]);
+    assert_row(&c, "bb_drop_mm", &[32.0; 4]);
+    assert_row(&c, "fork_offset_mm", &[44.0; 4]);
+    // 29" without a tyre width: the stated default 2.4 in, and a note says so.
+    let w = ("29x2.4".to_string(), "29x2.4".to_string());
+    assert_eq!(wheels(&c), vec![w; 4]);
+    assert!(has_note(&c, "Wheel size", "2.4 in"));
+    assert!(c.unrecognised.is_empty() && c.questions.is_empty());
+}
+
+#[test]
+fn sizes_as_rows_csv() {
+    let c = chart("02_csv_rows.txt");
+    assert_eq!(labels(&c), ["XS", "S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[380.0, 395.0, 410.0, 425.0]);
+    assert_row(&c, "stack_mm", &[560.0, 575.0, 590.0, 605.0]);
+    assert_row(&c, "head_angle_deg", &[70.5, 70.5, 71.0, 71.0]);
+    assert_row(&c, "seat_angle_effective_deg", &[74.5, 74.5, 74.0, 74.0]);
+    assert_row(&c, "top_tube_effective_mm", &[525.0, 545.0, 565.0, 585.0]);
+    assert_row(&c, "chainstay_mm", &[420.0, 420.0, 425.0, 425.0]);
+    assert_row(&c, "wheelbase_mm", &[1010.0, 1031.0, 1055.0, 1078.0]);
+    assert_row(&c, "bb_height_mm", &[290.0, 290.0, 295.0, 295.0]);
+    // No units anywhere: each length row says it was read as mm from the numbers' size.
+    assert!(has_note(&c, "Reach", "read as mm"));
+    assert!(has_note(&c, "BB height", "read as mm"));
+}
+
+#[test]
+fn semicolons_with_decimal_commas_european_spreadsheet() {
+    let c = chart("03_semicolon_decimal_comma.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[440.5, 465.5, 490.5]);
+    assert_row(&c, "stack_mm", &[615.2, 624.3, 633.4]);
+    assert_row(&c, "head_angle_deg", &[65.5; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[76.5; 3]);
+    // "1.180" in a decimal-comma chart is one thousand one hundred and eighty.
+    assert_row(&c, "wheelbase_mm", &[1180.0, 1206.0, 1233.0]);
+    assert_row(&c, "bb_drop_mm", &[35.0; 3]);
+}
+
+#[test]
+fn pdf_aligned_spaces_with_reference_letters_and_units_column() {
+    let c = chart("04_pdf_aligned_units_column.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert_row(&c, "seat_tube_mm", &[380.0, 410.0, 440.0, 470.0]);
+    assert_row(&c, "top_tube_effective_mm", &[575.0, 600.0, 625.0, 650.0]);
+    assert_row(&c, "head_tube_mm", &[95.0, 105.0, 115.0, 125.0]);
+    assert_row(&c, "head_angle_deg", &[66.0; 4]);
+    assert_row(&c, "wheelbase_mm", &[1150.0, 1177.0, 1204.0, 1231.0]);
+    assert_row(&c, "reach_mm", &[430.0, 452.0, 474.0, 496.0]);
+    assert_row(&c, "stack_mm", &[605.0, 614.0, 623.0, 632.0]);
+    // "Seat tube angle" alone is ambiguous: asked, default effective.
+    assert_row(&c, "seat_angle_effective_deg", &[76.5; 4]);
+    let q = &c.questions[0];
+    assert_eq!(
+        (q.row.as_str(), q.chosen.as_str()),
+        ("Seat tube angle", "effective")
+    );
+    assert_eq!(q.options, ["effective", "actual"]);
+}
+
+#[test]
+fn inches_with_quote_marks_and_inch_size_names() {
+    let c = chart("05_inches_marks.txt");
+    assert_eq!(labels(&c), ["15\"", "17\"", "19\"", "21\""]);
+    // 15" 17" 19" 21" × 25.4
+    assert_row(&c, "seat_tube_mm", &[381.0, 431.8, 482.6, 533.4]);
+    // 22.4 23.0 23.6 24.2 in
+    assert_row(
+        &c,
+        "top_tube_effective_mm",
+        &[568.96, 584.2, 599.44, 614.68],
+    );
+    // 16.1 16.7 17.3 17.9 in
+    assert_row(&c, "reach_mm", &[408.94, 424.18, 439.42, 454.66]);
+    // 23.5 23.9 24.3 24.7 in
+    assert_row(&c, "stack_mm", &[596.9, 607.06, 617.22, 627.38]);
+    // 4.0 4.5 5.0 5.5 in
+    assert_row(&c, "head_tube_mm", &[101.6, 114.3, 127.0, 139.7]);
+    assert_row(&c, "head_angle_deg", &[69.0; 4]);
+    assert_row(&c, "seat_angle_effective_deg", &[73.5; 4]);
+    assert_row(&c, "chainstay_mm", &[429.26; 4]);
+    // 28.9 29.8 30.7 31.5 in
+    assert_row(&c, "standover_mm", &[734.06, 756.92, 779.78, 800.1]);
+}
+
+#[test]
+fn centimetres_without_units_are_inferred_and_said() {
+    let c = chart("06_cm_no_units.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[420.0, 445.0, 470.0]);
+    assert_row(&c, "stack_mm", &[600.0, 615.0, 630.0]);
+    assert_row(&c, "seat_tube_mm", &[400.0, 430.0, 460.0]);
+    assert_row(&c, "head_tube_mm", &[100.0, 115.0, 130.0]);
+    assert_row(&c, "chainstay_mm", &[430.0; 3]);
+    assert_row(&c, "wheelbase_mm", &[1120.0, 1146.0, 1172.0]);
+    assert_row(&c, "head_angle_deg", &[67.0; 3]);
+    assert!(has_note(&c, "Reach", "read as cm"));
+    assert!(has_note(&c, "Wheelbase", "read as cm"));
+    // "Top tube" alone: asked, read as effective.
+    assert_row(&c, "top_tube_effective_mm", &[575.0, 600.0, 625.0]);
+    assert!(c
+        .questions
+        .iter()
+        .any(|q| q.row == "Top tube" && q.chosen == "effective"));
+}
+
+#[test]
+fn footnote_marks_in_labels_cells_and_lines() {
+    let c = chart("07_footnotes.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[615.0, 625.0, 635.0]);
+    assert_row(&c, "head_angle_deg", &[65.5; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[76.5; 3]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 445.0]);
+    assert_row(&c, "trail_mm", &[118.0; 3]);
+    assert_row(&c, "bb_drop_mm", &[30.0; 3]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // The three footnote lines are listed as ignored text, not dropped silently.
+    let ignored = c
+        .notes
+        .iter()
+        .filter(|n| n.message.starts_with("ignored a line of text"))
+        .count();
+    assert_eq!(ignored, 3);
+}
+
+#[test]
+fn mixed_case_abbreviations() {
+    let c = chart("08_mixed_case_abbreviations.txt");
+    assert_eq!(labels(&c), ["S1", "S2", "S3", "S4", "S5"]);
+    assert_row(&c, "reach_mm", &[405.0, 430.0, 455.0, 480.0, 505.0]);
+    assert_row(&c, "stack_mm", &[620.0, 629.0, 638.0, 647.0, 656.0]);
+    assert_row(&c, "head_angle_deg", &[64.0; 5]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.5; 5]);
+    assert_row(
+        &c,
+        "top_tube_effective_mm",
+        &[578.0, 598.0, 618.0, 638.0, 659.0],
+    );
+    assert_row(&c, "chainstay_mm", &[437.0, 437.0, 437.0, 442.0, 442.0]);
+    assert_row(
+        &c,
+        "wheelbase_mm",
+        &[1186.0, 1213.0, 1240.0, 1272.0, 1300.0],
+    );
+    assert_row(&c, "fork_a2c_mm", &[571.0; 5]);
+    assert_row(&c, "fork_offset_mm", &[44.0; 5]);
+    assert_row(&c, "head_tube_mm", &[95.0, 100.0, 110.0, 120.0, 130.0]);
+    assert_row(&c, "bb_height_mm", &[340.0; 5]);
+    assert!(c.unrecognised.is_empty() && c.questions.is_empty());
+}
+
+#[test]
+fn unknown_rows_are_listed_not_dropped() {
+    let c = chart("09_unknown_rows.txt");
+    assert_eq!(
+        c.unrecognised,
+        [
+            "Stem length",
+            "Handlebar width",
+            "Crank length",
+            "Rider height (cm)"
+        ]
+    );
+    assert_row(&c, "reach_mm", &[440.0, 465.0, 490.0]);
+    assert_row(&c, "stack_mm", &[620.0, 630.0, 640.0]);
+    assert_row(&c, "head_angle_deg", &[64.0; 3]);
+    assert_eq!(c.sizes[0].frame.len(), 3);
+}
+
+#[test]
+fn wheel_size_row_differing_per_size() {
+    let c = chart("10_wheels_per_size.txt");
+    assert_eq!(labels(&c), ["XS", "S", "M", "L", "XL"]);
+    let pair = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        vec![
+            pair("27.5x2.4", "27.5x2.4"),
+            pair("27.5x2.4", "27.5x2.4"),
+            pair("29x2.4", "29x2.4"),
+            pair("29x2.4", "29x2.4"),
+            pair("29x2.4", "27.5x2.4"),
+        ]
+    );
+    assert!(has_note(&c, "Wheel size", "no tyre width"));
+    assert_row(&c, "reach_mm", &[400.0, 425.0, 450.0, 475.0, 500.0]);
+    assert_row(&c, "chainstay_mm", &[430.0, 430.0, 438.0, 438.0, 438.0]);
+    // Every designation is one the kernel resolves.
+    for s in &c.sizes {
+        for w in [&s.wheels.front, &s.wheels.rear].into_iter().flatten() {
+            assert!(w.resolve("w").is_ok(), "{w:?}");
+        }
+    }
+}
+
+#[test]
+fn title_line_blank_lines_and_a_stated_unit() {
+    let c = chart("11_title_blank_lines.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[445.0, 470.0, 495.0]);
+    assert_row(&c, "stack_mm", &[621.0, 630.0, 639.0]);
+    assert_row(&c, "head_angle_deg", &[65.0; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0; 3]);
+    assert_row(&c, "chainstay_mm", &[437.0; 3]);
+    assert!(has_note(
+        &c,
+        "",
+        "ignored a line of text: \"Invented Trail 140"
+    ));
+    assert!(has_note(
+        &c,
+        "",
+        "read as mm, as \"All measurements in mm\" says"
+    ));
+    assert!(c.unrecognised.is_empty() && c.questions.is_empty());
+}
+
+#[test]
+fn sizes_as_rows_with_row_numbers_and_a_range() {
+    let c = chart("12_rows_numbers_ranges.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    // L publishes reach as 470-475: the midpoint 472.5, with a note.
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 472.5]);
+    assert!(has_note(
+        &c,
+        "Reach",
+        "L: the range 470–475 was read as its midpoint 472.5"
+    ));
+    assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
+    assert_row(&c, "head_angle_deg", &[65.0; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0; 3]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0]);
+    assert_eq!(c.unrecognised, ["Rider height"]);
+    assert!(has_note(&c, "#", "row numbers"));
+    assert!(c.questions.iter().any(|q| q.row == "STA"));
+}
+
+#[test]
+fn quoted_csv_with_decimal_commas_in_inches_without_units() {
+    let c = chart("13_quoted_csv_inches_no_units.txt");
+    assert_eq!(labels(&c), ["M", "L"]);
+    // 17,5 and 18,3 in; 23,9 and 24,6 in; 44,1 and 45,2 in.
+    assert_row(&c, "reach_mm", &[444.5, 464.82]);
+    assert_row(&c, "stack_mm", &[607.06, 624.84]);
+    assert_row(&c, "wheelbase_mm", &[1120.14, 1148.08]);
+    assert_row(&c, "head_angle_deg", &[68.5; 2]);
+    assert!(has_note(&c, "Reach", "read as inches"));
+}
+
+#[test]
+fn a_unit_that_fits_cm_or_inches_is_asked_and_can_be_answered() {
+    // Head tube 9 and 9.5: 90/95 mm as cm, 228.6/241.3 mm as inches: both plausible.
+    let text = "Size\tS\tM\nHead tube\t9\t9.5\nHead angle\t65\t65\n";
+    let c = import_chart(text).unwrap();
+    let q = c.questions.iter().find(|q| q.row == "Head tube").unwrap();
+    assert_eq!(q.options, ["cm", "in"]);
+    assert_eq!(q.chosen, "cm");
+    assert_row(&c, "head_tube_mm", &[90.0, 95.0]);
+    let answers: Answers = [(q.id.clone(), "in".to_string())].into_iter().collect();
+    let c = import_chart_with(text, &answers).unwrap();
+    assert_row(&c, "head_tube_mm", &[228.6, 241.3]);
+    assert_eq!(c.questions[0].chosen, "in");
+}
+
+#[test]
+fn an_ambiguous_unit_follows_the_other_rows() {
+    // Reach 17.5 fits only inches (444.5 mm; 175 mm and 17.5 mm are no reach), stack 24.0 too
+    // (609.6 mm); BB drop 1.2 fits mm (1.2), cm (12) and in (30.48): the other rows say inches.
+    let text = "Size,M\nReach,17.5\nStack,24.0\nBB drop,1.2\n";
+    let c = import_chart(text).unwrap();
+    assert_row(&c, "reach_mm", &[444.5]);
+    assert_row(&c, "stack_mm", &[609.6]);
+    assert_row(&c, "bb_drop_mm", &[30.48]);
+    let q = c.questions.iter().find(|q| q.row == "BB drop").unwrap();
+    assert_eq!(q.chosen, "in");
+    assert!(q.message.contains("like the other rows"));
+}
+
+#[test]
+fn two_settings_in_one_cell_ask_which() {
+    let text = "Size\tS\tM\nHead angle\t65/64.5\t65/64.5\nReach\t450\t475\n";
+    let c = import_chart(text).unwrap();
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0]);
+    let q = c.questions.iter().find(|q| q.row == "Head angle").unwrap();
+    assert_eq!(q.options, ["first", "second"]);
+    let answers: Answers = [(q.id.clone(), "second".to_string())].into_iter().collect();
+    let c = import_chart_with(text, &answers).unwrap();
+    assert_row(&c, "head_angle_deg", &[64.5, 64.5]);
+}
+
+#[test]
+fn single_spaces_pdf_copy_and_thousands_commas() {
+    let text =
+        "S M L\nReach 430 455 480\nWheelbase 1,180 1,205 1,230\nHead angle 64.5° 64.5° 64.5°\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "wheelbase_mm", &[1180.0, 1205.0, 1230.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 3]);
+}
+
+#[test]
+fn one_value_for_all_sizes_and_both_seat_angles() {
+    let text = "Size\tS\tM\tL\nHead angle\t64\nSeat tube angle (actual)\t73\t73\t73\nSeat tube angle\t77\t77.5\t78\n";
+    let c = import_chart(text).unwrap();
+    assert_row(&c, "head_angle_deg", &[64.0; 3]);
+    assert!(has_note(&c, "Head angle", "used it for all"));
+    assert_row(&c, "seat_angle_actual_deg", &[73.0; 3]);
+    // The plain "Seat tube angle" must be the other one: effective, without a question.
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.5, 78.0]);
+    assert!(c.questions.is_empty());
+}
+
+#[test]
+fn impossible_values_and_text_cells_are_left_out_with_a_note() {
+    let text = "Size\tS\tM\nReach\t450\tTBD soon\nHead angle\t65\t120\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(c.sizes[1].frame.get("reach_mm"), None);
+    assert!(has_note(&c, "Reach", "M: not a number"));
+    // 120° is past the hard limit for a head angle (45°–85°, kernel catalogue).
+    assert_eq!(c.sizes[0].frame.get("head_angle_deg"), Some(&65.0));
+    assert!(!c.sizes[1].frame.contains_key("head_angle_deg"));
+    assert!(has_note(&c, "Head angle", "outside what any frame has"));
+}
+
+#[test]
+fn errors_say_what_to_do() {
+    let code = |t: &str| import_chart(t).err().map(|e| e.code());
+    assert_eq!(code(""), Some("empty_chart"));
+    assert_eq!(code("  \n\t \n"), Some("empty_chart"));
+    assert_eq!(code("just some words\nand more words"), Some("not_a_table"));
+    assert_eq!(code("Reach 450 470 490"), Some("one_row"));
+    assert_eq!(
+        code("Size\tS\tM\nSaddle height\t700\t720\nStem\t50\t60"),
+        Some("nothing_recognised")
+    );
+    let wide = format!("Size{}\nReach{}", "\tM".repeat(60), "\t450".repeat(60));
+    assert_eq!(code(&wide), Some("too_many_sizes"));
+    let huge = "Reach 450\n".repeat(40_000);
+    assert_eq!(code(&huge), Some("chart_too_large"));
+    let long = "Reach 450\n".repeat(401);
+    assert_eq!(code(&long), Some("chart_too_long"));
+    let e = import_chart("Size\tS\nStem\t50\nSaddle\t700").unwrap_err();
+    assert!(matches!(e, ChartError::NothingRecognised { .. }));
+    let msg = e.to_string();
+    assert!(
+        msg.contains("Stem") && msg.contains("Reach, Stack"),
+        "{msg}"
+    );
+    assert!(ChartError::OneRow
+        .to_string()
+        .contains("paste the size names"));
+}
+
+#[test]
+fn json_has_the_design_shape() {
+    let c = framewise_formats::chart_to_json(&import_chart(
+        "Size\tM\nReach (mm)\t470\nWheel size\t29x2.5\nSaddle\t700\n",
+    ));
+    let v: serde_json::Value = serde_json::from_str(&c).unwrap();
+    assert_eq!(v["sizes"][0]["label"], "M");
+    assert_eq!(v["sizes"][0]["frame"]["reach_mm"], 470.0);
+    assert_eq!(v["sizes"][0]["wheels"]["front"], "29x2.5");
+    assert_eq!(v["unrecognised"][0], "Saddle");
+    assert!(v["questions"].is_array() && v["notes"].is_array() && v["error"].is_null());
+    let e = framewise_formats::chart_to_json(&import_chart(""));
+    let v: serde_json::Value = serde_json::from_str(&e).unwrap();
+    assert_eq!(v["error"]["code"], "empty_chart");
+    assert_eq!(v["sizes"].as_array().map(Vec::len), Some(0));
+}
+
+#[test]
+fn size_names_of_every_kind() {
+    let c = import_chart("Frame size\tSize 1\tSize 2\t52 cm\t54cm\nReach\t400\t420\t440\t460\n")
+        .unwrap();
+    assert_eq!(labels(&c), ["Size 1", "Size 2", "52 cm", "54cm"]);
+    let c = import_chart("\tXS¹\tM\tM\t\nReach\t400\t420\t440\t460\n").unwrap();
+    // A footnote mark is dropped, a repeated name is numbered, a blank one is named by place.
+    assert_eq!(labels(&c), ["XS", "M", "M (3)", "Size 4"]);
+}
+
+#[test]
+fn sizes_as_rows_with_a_units_row_under_the_labels() {
+    let text = "Size;Reach;Stack;Head angle;Chainstay\n;cm;cm;deg;mm\nS;43;60,5;66;435\nM;45,5;61,5;66;435\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0]);
+    assert_row(&c, "head_angle_deg", &[66.0, 66.0]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0]);
+    assert!(has_note(&c, "", "units column"));
+}
+
+#[test]
+fn one_cell_per_line_phone_copy() {
+    let c = chart("14_one_cell_per_line.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[432.0, 457.0, 482.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 3]);
+    assert_row(&c, "chainstay_mm", &[436.0; 3]);
+    assert!(has_note(&c, "", "one cell per line"));
+}
+
+#[test]
+fn windows_and_old_mac_line_ends() {
+    for eol in ["\r\n", "\r"] {
+        let text = ["Size\tS\tM", "Reach\t430\t455", "Stack\t611\t620", ""].join(eol);
+        let c = import_chart(&text).unwrap();
+        assert_eq!(labels(&c), ["S", "M"]);
+        assert_row(&c, "reach_mm", &[430.0, 455.0]);
+        assert_row(&c, "stack_mm", &[611.0, 620.0]);
+    }
+}
+
+#[test]
+fn row_numbers_before_labels_and_labels_repeated_on_the_right() {
+    let text = "#\tSize\tS\tM\tL\t\n1\tReach\t430\t455\t480\tReach\n2\tStack\t611\t620\t629\tStack\n3\tHead angle\t65\t65\t\tHead angle\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    // L's head angle cell is blank: missing, not shifted.
+    assert_eq!(c.sizes[2].frame.get("head_angle_deg"), None);
+    assert_eq!(c.sizes[1].frame.get("head_angle_deg"), Some(&65.0));
+    assert!(has_note(&c, "", "column(s) before the labels"));
+    assert!(has_note(&c, "", "column 4 has no size name and no numbers"));
+}
+
+#[test]
+fn fewer_values_than_sizes_are_read_from_the_left_and_said() {
+    let c = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nStack\t611\t620\n").unwrap();
+    assert_eq!(c.sizes[0].frame.get("stack_mm"), Some(&611.0));
+    assert_eq!(c.sizes[1].frame.get("stack_mm"), Some(&620.0));
+    assert!(!c.sizes[2].frame.contains_key("stack_mm"));
+    assert!(has_note(&c, "Stack", "2 values for 3 sizes"));
+}
+
+#[test]
+fn pdf_single_spaces_sizes_as_rows() {
+    let c = chart("15_pdf_single_spaces_rows.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[612.0, 621.0, 630.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0]);
+    let fronts: Vec<String> = wheels(&c).into_iter().map(|w| w.0).collect();
+    assert_eq!(fronts, ["27.5x2.4", "29x2.4", "29x2.4"]);
+    assert!(has_note(
+        &c,
+        "",
+        "ignored a line of text: \"Geometry 2027\""
+    ));
+    assert!(c.unrecognised.is_empty());
+}
