@@ -3,12 +3,14 @@
 //! **Invariant:** total and deterministic: any scenario returns a report; bad input becomes
 //! entries in `errors`, never a panic, NaN or infinity.
 
+use crate::assembly;
 use crate::catalogue::{all_keys, lookup, Measurement};
 use crate::error::{fmt_num, FieldError, Warning};
 use crate::geometry::{FrameParams, Geometry, Radii};
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
+use crate::scene;
 use crate::solve::{solve, Given, SolveInput};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
@@ -36,12 +38,29 @@ pub fn evaluate(scenario: &Scenario) -> Report {
         ));
         return report;
     }
+    let rider = scene::scenario_rider(scenario.rider.as_ref(), &mut report.errors);
+    let mut pending = Vec::new();
+    let mut done = Vec::new();
     for (i, bike) in scenario.bikes.iter().enumerate() {
-        match evaluate_bike(bike, &format!("bikes[{i}]")) {
-            Ok(b) => report.bikes.push(b),
-            Err(mut errs) => report.errors.append(&mut errs),
+        match evaluate_bike(bike, &format!("bikes[{i}]"), &rider) {
+            Ok((b, ctx)) => {
+                done.push(Some(report.bikes.len()));
+                if let Some((ctx, target_bike)) = ctx {
+                    pending.push(scene::Pending {
+                        bike: i,
+                        ctx,
+                        target_bike,
+                    });
+                }
+                report.bikes.push(b);
+            }
+            Err(mut errs) => {
+                done.push(None);
+                report.errors.append(&mut errs);
+            }
         }
     }
+    scene::targets_from_bikes(&pending, &done, &mut report);
     report
 }
 
@@ -161,10 +180,15 @@ fn wheels(
     Some((f?, r?))
 }
 
-fn evaluate_bike(bike: &BikeInput, prefix: &str) -> Result<BikeReport, Vec<FieldError>> {
+/// A bike's report and, when its cockpit search waits for another bike, the search context.
+type BikeResult =
+    Result<(BikeReport, Option<(assembly::SearchContext, Option<usize>)>), Vec<FieldError>>;
+
+fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &scene::ScenarioRider) -> BikeResult {
     let mut c = Checker::default();
     let mut warnings = Vec::new();
     let given = check_published(prefix, bike, &mut c, &mut warnings);
+    let setup = crate::fitting::check_setup(bike, prefix, &mut c);
     let seat_ref = c.range(
         &format!("{prefix}.seat_angle_ref_mm"),
         limit("seat angle reference height", 100.0, 1200.0, "mm"),
@@ -297,7 +321,7 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str) -> Result<BikeReport, Vec<Field
         ridden_geom.head_angle().to_degrees(),
     ));
     cautions(&changes, &params, &mut warnings);
-    let report = BikeReport {
+    let mut report = BikeReport {
         label: bike.label.clone(),
         residuals: solution.residuals,
         missing: solution.missing,
@@ -305,11 +329,16 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str) -> Result<BikeReport, Vec<Field
         ridden,
         effects,
         derived,
+        fit: Default::default(),
+        handling: Default::default(),
+        checks: Vec::new(),
+        cockpit_parts: None,
         warnings,
         outline: outline(&ridden_geom, rf, rr),
         stock_outline: outline(&stock_geom, sf, sr),
     };
-    finite_or_error(report, prefix)
+    let ctx = scene::attach(&setup, rider, &ridden_geom, posed.theta, &mut report);
+    finite_or_error(report, prefix).map(|r| (r, ctx))
 }
 
 fn to_numbers(g: &Geometry) -> Numbers {
@@ -477,7 +506,8 @@ fn finite_or_error(report: BikeReport, prefix: &str) -> Result<BikeReport, Vec<F
         && report
             .effects
             .values()
-            .all(|m| m.values().all(|v| v.is_finite()));
+            .all(|m| m.values().all(|v| v.is_finite()))
+        && assembly::all_finite(&report);
     if all_finite {
         Ok(report)
     } else {

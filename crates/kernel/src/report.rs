@@ -4,6 +4,8 @@
 //! and reports an error rather than let a NaN or infinity through.
 
 use crate::error::{FieldError, Warning};
+use crate::fit::Check;
+use crate::parts::PartsSearch;
 use crate::solve::Residual;
 use serde::Serialize;
 use std::collections::BTreeMap;
@@ -42,12 +44,43 @@ pub struct BikeReport {
     pub effects: BTreeMap<String, Numbers>,
     /// Derived steering numbers (mechanical trail, wheel flop, ISO 4210-2 Annex A window).
     pub derived: Numbers,
+    /// The rider's fit numbers, seated and standing (estimates; see [`crate::fit::CAUTION`]).
+    pub fit: Fit,
+    /// Centre of mass and statics, seated, standing and for a given point load.
+    pub handling: Handling,
+    /// Fit and safety checks with their sources, shown as information.
+    pub checks: Vec<Check>,
+    /// Closest catalogue cockpit parts for a target grip point, when one is asked for.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub cockpit_parts: Option<PartsSearch>,
     /// Assumptions, inconsistencies, cautions.
     pub warnings: Vec<Warning>,
     /// Points for the drawing, in ridden axes (BB at the origin, y up, mm).
     pub outline: Outline,
     /// The stock frame's points, for the ghost behind the ridden one (stock axes, BB at origin).
     pub stock_outline: Outline,
+}
+
+/// The rider's fit numbers (keys with unit suffixes; empty when there is no rider).
+#[derive(Debug, Clone, PartialEq, Default, Serialize)]
+pub struct Fit {
+    /// Seated: knee flexion at bottom dead centre, knee and hip angles at top dead centre,
+    /// torso, shoulder and elbow angles, hip and shoulder points.
+    pub seated: Numbers,
+    /// Standing: elbow angle, hip point and height, room before the arms lock or fold.
+    pub standing: Numbers,
+}
+
+/// Statics blocks (DESIGN.md §8: `com_x_mm`, `com_y_mm`, `com_height_mm`, `front_load_pct`,
+/// `pitch_over_decel_g`, `front_tip_slope_deg`, `rear_tip_slope_deg`, and more).
+#[derive(Debug, Clone, PartialEq, Default, Serialize)]
+pub struct Handling {
+    /// Rider seated + bike.
+    pub seated: Numbers,
+    /// Rider standing + bike.
+    pub standing: Numbers,
+    /// The given point load (replaces the rider).
+    pub load: Numbers,
 }
 
 /// A point as `[x, y]` in millimetres.

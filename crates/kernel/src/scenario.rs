@@ -95,6 +95,9 @@ pub struct RiderInput {
     /// Standing: knee bend, degrees from straight.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub standing_knee_bend_deg: Option<f64>,
+    /// Standing: trunk angle above horizontal, degrees (default 40).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub standing_torso_deg: Option<f64>,
     /// Braking deceleration for the front-load check, in g.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub braking_g: Option<f64>,
@@ -236,6 +239,21 @@ pub struct Setup {
     /// Saddle height, BB centre to saddle top along the seat axis, mm.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub saddle_height_mm: Option<f64>,
+    /// Lateral distance from the bike's centre plane to the outer end of the pedal, mm
+    /// (default 180), for the pedal-strike lean angle.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub pedal_outer_mm: Option<f64>,
+    /// Cockpit search: target grip centre ahead of the BB, ridden axes, mm (with
+    /// `target_grip_y_mm`). The report then lists the closest catalogue parts.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub target_grip_x_mm: Option<f64>,
+    /// Cockpit search: target grip centre above the BB, ridden axes, mm.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub target_grip_y_mm: Option<f64>,
+    /// Cockpit search: take the target grip point from another bike of the scenario (its
+    /// index in `bikes`, from 0). Used when no target point is given.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub target_grip_bike: Option<u32>,
 }
 
 /// Changes from stock (DESIGN.md §6.3, §8a).
