@@ -274,6 +274,28 @@ proptest! {
         }
     }
 
+    /// Priors do not bias what the published numbers determine: a typical sheet without the
+    /// a2c leaves lower stack + a2c and the seat axis (only its point at stack height is seen)
+    /// to the priors; every other parameter is exact, and so are the published numbers.
+    #[test]
+    fn priors_leave_determined_parameters_exact(f in frame_strategy()) {
+        let keys: Vec<&str> = TYPICAL_12.iter().copied().filter(|k| *k != "fork_a2c_mm").collect();
+        let sol = run(&f, &givens(&f.published(), &keys, false));
+        prop_assert!(sol.missing.is_empty());
+        prop_assert!(sol.params.headset_lower.abs() < 1e-12 && sol.params.seat_axis_offset.abs() < 1e-12);
+        let got = params_of(&sol.params);
+        for i in [0, 1, 2, 3, 4, 7, 10] {
+            let tol = if PARAM_NAMES[i].ends_with("deg") { 0.001 } else { 0.01 };
+            prop_assert!((got[i] - f.params()[i]).abs() <= tol, "{}", PARAM_NAMES[i]);
+        }
+        prop_assert!((got[5] + got[6] - f.headset_lower - f.a2c).abs() <= 0.01);
+        let solved = f.with_params(got).published();
+        for k in &keys {
+            let tol = if common::is_angle(k) { 0.001 } else { 0.01 };
+            prop_assert!((solved[k] - f.published()[k]).abs() <= tol, "{k}");
+        }
+    }
+
     #[test]
     fn without_the_fork_values_missing_names_them(f in frame_strategy()) {
         let sol = run(&f, &givens(&f.published(), &without_fork(), false));
