@@ -17,6 +17,7 @@ commands:
   link FILE|-    read a scenario and print its share link fragment (with the leading #)
   open LINK      read a link (fragment with or without #, or a whole URL), print the scenario
   import CHART|- read a pasted geometry chart and print its size run as JSON
+  catalogue      print the frame measurements (key, label, definition, unit, ranges) as JSON
   help           show this text";
 
 fn read_input(path: Option<&str>) -> Result<String, String> {
@@ -92,6 +93,12 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
             Ok(ExitCode::SUCCESS)
         }
         Some("import") => cmd_import::run(file),
+        Some("catalogue") => {
+            let json = serde_json::to_string_pretty(framewise_kernel::CATALOGUE)
+                .map_err(|e| format!("cannot write the catalogue: {e}"))?;
+            println!("{json}");
+            Ok(ExitCode::SUCCESS)
+        }
         Some("help" | "-h" | "--help") => {
             println!("{USAGE}");
             Ok(ExitCode::SUCCESS)

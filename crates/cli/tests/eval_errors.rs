@@ -45,3 +45,18 @@ fn negative_length_is_in_the_reports_errors_and_exits_non_zero() {
     assert!(e["message"].as_str().unwrap().contains("-450"));
     assert!(err.contains("reach_mm"), "{err}");
 }
+
+#[test]
+fn catalogue_lists_every_key_with_ranges() {
+    let out = Command::new(env!("CARGO_BIN_EXE_framewise"))
+        .arg("catalogue")
+        .output()
+        .unwrap();
+    assert!(out.status.success());
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let rows = v.as_array().unwrap();
+    assert_eq!(rows.len(), framewise_kernel::CATALOGUE.len());
+    let reach = rows.iter().find(|r| r["key"] == "reach_mm").unwrap();
+    assert_eq!(reach["unit"], "mm");
+    assert_eq!(reach["hard"][0], 100.0);
+}

@@ -3,6 +3,32 @@
 //!
 //! Ranges are the designers' judgement of what bicycles (kids' bikes to long-travel downhill
 //! bikes) publish [practice]; the hard ranges only reject values no bicycle frame can have.
+//!
+//! The definitions are in [`CATALOGUE`] (one sentence each, shown by the page; `framewise
+//! catalogue` prints the table as JSON). Ranges:
+//!
+//! | key | label | unit | plausible (warning outside) | hard (error outside) |
+//! | --- | --- | --- | --- | --- |
+//! | `reach_mm` | Reach | mm | 250 … 560 | 100 … 800 |
+//! | `stack_mm` | Stack | mm | 450 … 700 | 250 … 900 |
+//! | `head_angle_deg` | Head tube angle | ° | 60 … 76 | 45 … 85 |
+//! | `head_tube_mm` | Head tube length | mm | 60 … 250 | 30 … 400 |
+//! | `headset_lower_mm` | Lower headset stack | mm | 0 … 25 | 0 … 60 |
+//! | `fork_a2c_mm` | Fork axle-to-crown | mm | 340 … 600 | 250 … 700 |
+//! | `fork_offset_mm` | Fork offset | mm | 25 … 60 | -20 … 100 |
+//! | `chainstay_mm` | Chainstay | mm | 380 … 470 | 250 … 600 |
+//! | `rear_centre_mm` | Rear centre | mm | 370 … 470 | 200 … 600 |
+//! | `front_centre_mm` | Front centre | mm | 550 … 900 | 350 … 1200 |
+//! | `wheelbase_mm` | Wheelbase | mm | 950 … 1350 | 600 … 1700 |
+//! | `bb_drop_mm` | BB drop | mm | -30 … 85 | -150 … 150 |
+//! | `bb_height_mm` | BB height | mm | 240 … 380 | 100 … 500 |
+//! | `seat_angle_actual_deg` | Seat tube angle (actual) | ° | 65 … 80 | 45 … 90 |
+//! | `seat_axis_offset_mm` | Seat axis offset | mm | -60 … 60 | -200 … 200 |
+//! | `seat_angle_effective_deg` | Seat tube angle (effective) | ° | 68 … 82 | 45 … 100 |
+//! | `top_tube_effective_mm` | Effective top tube | mm | 450 … 720 | 250 … 1000 |
+//! | `seat_tube_mm` | Seat tube length | mm | 300 … 560 | 150 … 800 |
+//! | `trail_mm` | Trail | mm | 50 … 160 | -50 … 300 |
+//! | `standover_mm` | Standover | mm | 600 … 900 | 300 … 1200 |
 
 use serde::Serialize;
 
@@ -153,6 +179,22 @@ mod tests {
             assert!(!m.definition.is_empty() && !m.label.is_empty());
         }
         assert_eq!(CATALOGUE.len(), 20);
+        // The table in the module docs matches the catalogue, row for row.
+        let src = include_str!("catalogue.rs");
+        let num = |v: f64| format!("{v}");
+        for m in CATALOGUE {
+            let row = format!(
+                "//! | `{}` | {} | {} | {} … {} | {} … {} |",
+                m.key,
+                m.label,
+                m.unit.symbol(),
+                num(m.plausible.0),
+                num(m.plausible.1),
+                num(m.hard.0),
+                num(m.hard.1)
+            );
+            assert!(src.contains(&row), "doc row missing: {row}");
+        }
         assert_eq!(lookup("trail_mm").map(|m| m.unit), Some(Unit::Mm));
         assert!(lookup("reach").is_none());
     }

@@ -10,6 +10,7 @@ use crate::geometry::{FrameParams, Geometry, Radii};
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
+use crate::scene;
 use crate::solve::{solve, Given, SolveInput};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
@@ -37,7 +38,7 @@ pub fn evaluate(scenario: &Scenario) -> Report {
         ));
         return report;
     }
-    let rider = assembly::scenario_rider(scenario.rider.as_ref(), &mut report.errors);
+    let rider = scene::scenario_rider(scenario.rider.as_ref(), &mut report.errors);
     let mut pending = Vec::new();
     let mut done = Vec::new();
     for (i, bike) in scenario.bikes.iter().enumerate() {
@@ -45,7 +46,7 @@ pub fn evaluate(scenario: &Scenario) -> Report {
             Ok((b, ctx)) => {
                 done.push(Some(report.bikes.len()));
                 if let Some((ctx, target_bike)) = ctx {
-                    pending.push(assembly::Pending {
+                    pending.push(scene::Pending {
                         bike: i,
                         ctx,
                         target_bike,
@@ -59,7 +60,7 @@ pub fn evaluate(scenario: &Scenario) -> Report {
             }
         }
     }
-    assembly::targets_from_bikes(&pending, &done, &mut report);
+    scene::targets_from_bikes(&pending, &done, &mut report);
     report
 }
 
@@ -183,7 +184,7 @@ fn wheels(
 type BikeResult =
     Result<(BikeReport, Option<(assembly::SearchContext, Option<usize>)>), Vec<FieldError>>;
 
-fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &assembly::ScenarioRider) -> BikeResult {
+fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &scene::ScenarioRider) -> BikeResult {
     let mut c = Checker::default();
     let mut warnings = Vec::new();
     let given = check_published(prefix, bike, &mut c, &mut warnings);
@@ -336,7 +337,7 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &assembly::ScenarioRider
         outline: outline(&ridden_geom, rf, rr),
         stock_outline: outline(&stock_geom, sf, sr),
     };
-    let ctx = assembly::attach(&setup, rider, &ridden_geom, posed.theta, &mut report);
+    let ctx = scene::attach(&setup, rider, &ridden_geom, posed.theta, &mut report);
     finite_or_error(report, prefix).map(|r| (r, ctx))
 }
 

@@ -49,7 +49,7 @@ pub struct RiderValues {
 pub struct SetupValues {
     /// The cockpit, when a stem length is given.
     pub cockpit: Option<Cockpit>,
-    /// Saddle height given? The seat is built from it (or from the rider's inseam).
+    /// The saddle and post (its height is 0 when not given; see `saddle_given`).
     pub seat: Seat,
     /// Saddle height given.
     pub saddle_given: bool,
@@ -57,11 +57,11 @@ pub struct SetupValues {
     pub spacer_limit: f64,
     /// Crank length, mm, and whether it was given.
     pub crank: (f64, bool),
-    /// Bike mass (kg) and centre of mass (ridden axes, mm) when given.
+    /// Bike mass, kg, when given.
     pub bike_mass: Option<f64>,
-    /// Bike centre of mass x, mm.
+    /// Bike centre of mass ahead of the BB (ridden axes), mm, when given.
     pub bike_com_x: Option<f64>,
-    /// Bike centre of mass y, mm.
+    /// Bike centre of mass above the BB (ridden axes), mm, when given.
     pub bike_com_y: Option<f64>,
     /// Pedal outer end from the centre plane, mm.
     pub pedal_outer: f64,

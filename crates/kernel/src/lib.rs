@@ -21,6 +21,7 @@ pub mod posture;
 pub mod report;
 pub mod rider;
 pub mod scenario;
+pub mod scene;
 pub mod seat;
 pub mod seated;
 pub mod solve;

@@ -5,7 +5,7 @@
 //! [`Reach`] error that the caller turns into a warning with the reason, never a number.
 
 use crate::report::{Leg, RiderFigure};
-use crate::rider::{Body, SegmentTable, ANKLE_FROM_HEEL, BALL_FROM_HEEL, SEGMENTS};
+use crate::rider::{segment, Body, SegmentTable, ANKLE_FROM_HEEL, BALL_FROM_HEEL};
 use nalgebra::{Point2, Vector2};
 
 /// Why a two-link chain cannot reach.
@@ -103,16 +103,12 @@ fn lerp(a: Point2<f64>, b: Point2<f64>, t: f64) -> Point2<f64> {
 }
 
 fn table(name: &str) -> SegmentTable {
-    SEGMENTS
-        .iter()
-        .copied()
-        .find(|s| s.name == name)
-        .unwrap_or(SegmentTable {
-            name: "",
-            mass: 0.0,
-            com: 0.0,
-            count: 0,
-        })
+    segment(name).unwrap_or(SegmentTable {
+        name: "",
+        mass: 0.0,
+        com: 0.0,
+        count: 0,
+    })
 }
 
 impl Figure {

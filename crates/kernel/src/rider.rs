@@ -100,7 +100,7 @@ pub const SEGMENTS: [SegmentTable; 8] = [
     },
 ];
 
-/// The table entry of a segment by name (total over the table).
+/// The table entry of a segment by name.
 pub fn segment(name: &str) -> Option<SegmentTable> {
     SEGMENTS.iter().copied().find(|s| s.name == name)
 }

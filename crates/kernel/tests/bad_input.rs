@@ -146,3 +146,33 @@ fn a_report_never_holds_a_non_finite_number() {
         }
     }
 }
+
+proptest::proptest! {
+    #![proptest_config(proptest::prelude::ProptestConfig {
+        cases: 64,
+        rng_seed: proptest::test_runner::RngSeed::Fixed(0xbad_1257),
+        failure_persistence: None,
+        ..proptest::prelude::ProptestConfig::default()
+    })]
+
+    /// Any values inside the hard ranges, any subset: a report or typed errors, never a panic
+    /// and never a non-finite number.
+    #[test]
+    fn any_values_in_range_give_finite_numbers_or_errors(
+        picks in proptest::collection::vec((0..20usize, 0.0..1.0f64), 0..14),
+    ) {
+        let mut s = base();
+        s.bikes[0].frame.clear();
+        for (i, t) in picks {
+            let m = &framewise_kernel::CATALOGUE[i];
+            let v = m.hard.0 + t * (m.hard.1 - m.hard.0);
+            s.bikes[0].frame.insert(m.key.into(), Published::Value(v));
+        }
+        let r = evaluate(&s);
+        proptest::prop_assert!(!r.bikes.is_empty() || !r.errors.is_empty());
+        for b in &r.bikes {
+            let all = b.stock.values().chain(b.ridden.values()).chain(b.derived.values());
+            proptest::prop_assert!(all.clone().all(|x| x.is_finite()));
+        }
+    }
+}

@@ -94,11 +94,10 @@ fn prior_is_stated_and_does_not_bias_the_determined_parameters() {
         .any(|w| w.code == "assumed" && w.message.contains("headset_lower_mm")));
 }
 
-#[test]
-fn dropping_the_fork_values_names_them_missing() {
-    let f = demo();
-    let keep: Vec<&str> = KEYS
-        .iter()
+/// Every key except those that fix the fork (a2c, offset, and every number that depends on the
+/// front axle's place).
+fn without_fork() -> Vec<&'static str> {
+    KEYS.iter()
         .copied()
         .filter(|k| {
             ![
@@ -113,7 +112,13 @@ fn dropping_the_fork_values_names_them_missing() {
             ]
             .contains(k)
         })
-        .collect();
+        .collect()
+}
+
+#[test]
+fn dropping_the_fork_values_names_them_missing() {
+    let f = demo();
+    let keep = without_fork();
     let sol = run(&f, &givens(&f.published(), &keep, false));
     assert_eq!(sol.missing, ["fork_a2c_mm", "fork_offset_mm"]);
     assert!(sol.warnings.iter().any(|w| w.code == "underdetermined"));
@@ -266,6 +271,40 @@ proptest! {
         for k in &keys {
             let tol = if common::is_angle(k) { 0.1 } else { 1.0 };
             prop_assert!((solved[k] - truth[k]).abs() <= tol, "{k}: {} vs {}", solved[k], truth[k]);
+        }
+    }
+
+    /// Priors do not bias what the published numbers determine: a typical sheet without the
+    /// a2c leaves lower stack + a2c and the seat axis (only its point at stack height is seen)
+    /// to the priors; every other parameter is exact, and so are the published numbers.
+    #[test]
+    fn priors_leave_determined_parameters_exact(f in frame_strategy()) {
+        let keys: Vec<&str> = TYPICAL_12.iter().copied().filter(|k| *k != "fork_a2c_mm").collect();
+        let sol = run(&f, &givens(&f.published(), &keys, false));
+        prop_assert!(sol.missing.is_empty());
+        prop_assert!(sol.params.headset_lower.abs() < 1e-12 && sol.params.seat_axis_offset.abs() < 1e-12);
+        let got = params_of(&sol.params);
+        for i in [0, 1, 2, 3, 4, 7, 10] {
+            let tol = if PARAM_NAMES[i].ends_with("deg") { 0.001 } else { 0.01 };
+            prop_assert!((got[i] - f.params()[i]).abs() <= tol, "{}", PARAM_NAMES[i]);
+        }
+        prop_assert!((got[5] + got[6] - f.headset_lower - f.a2c).abs() <= 0.01);
+        let solved = f.with_params(got).published();
+        for k in &keys {
+            let tol = if common::is_angle(k) { 0.001 } else { 0.01 };
+            prop_assert!((solved[k] - f.published()[k]).abs() <= tol, "{k}");
+        }
+    }
+
+    #[test]
+    fn without_the_fork_values_missing_names_them(f in frame_strategy()) {
+        let sol = run(&f, &givens(&f.published(), &without_fork(), false));
+        prop_assert_eq!(&sol.missing, &["fork_a2c_mm", "fork_offset_mm"]);
+        // What the published numbers fix is still exact (rear centre is given directly).
+        let got = params_of(&sol.params);
+        for i in [0, 1, 2, 3, 4, 5, 8, 9, 10] {
+            let tol = if PARAM_NAMES[i].ends_with("deg") { 0.001 } else { 0.01 };
+            prop_assert!((got[i] - f.params()[i]).abs() <= tol, "{}", PARAM_NAMES[i]);
         }
     }
 

@@ -70,7 +70,7 @@ pub fn suspects(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<usize
         let idx: Vec<usize> = rest.iter().map(|r| r.index).collect();
         let tol: Vec<f64> = rest.iter().map(|r| r.tolerance).collect();
         let determined = model
-            .jacobian(x, &idx, &tol, free)
+            .jacobian_central(x, &idx, &tol, free)
             .is_some_and(|j| rank(&j) == free.len());
         if !determined {
             continue;

@@ -1,7 +1,7 @@
 //! The measurement model: unknowns → every published number, through the one
 //! [`Geometry::measure_values`](crate::geometry::Geometry::measure_values), and its Jacobian.
 
-use super::unknowns::{to_params, X};
+use super::unknowns::{to_params_ungrounded, X};
 use crate::geometry::{Radii, MEASURED_COUNT};
 use nalgebra::DMatrix;
 
@@ -32,7 +32,12 @@ const STEP: f64 = 1e-6;
 impl Model {
     /// Every derivable number for `x`; `None` when a number is degenerate or not finite.
     pub fn predict(&self, x: &X) -> Option<[f64; MEASURED_COUNT]> {
-        let mut g = to_params(x, self.radii).geometry(self.radii);
+        // One placement: the BB drop of `to_params` is `F.y − (r_front − r_rear)`, so place
+        // once and set the rear axle height from the front axle (same as `to_params`).
+        let mut p = to_params_ungrounded(x);
+        p.bb_drop = 0.0;
+        let mut g = p.geometry(self.radii);
+        g.rear_axle.y = g.front_axle.y - (self.radii.front - self.radii.rear);
         g.seat_ref_height = self.seat_ref;
         let v = g.measure_values();
         let mut out = [0.0; MEASURED_COUNT];
@@ -76,6 +81,35 @@ impl Model {
     }
 }
 
+impl Model {
+    /// Like [`Model::jacobian`] by central differences (step 10⁻⁴), for the rank analysis, where
+    /// the difference error must stay far below the rank threshold.
+    pub fn jacobian_central(
+        &self,
+        x: &X,
+        indices: &[usize],
+        tolerances: &[f64],
+        cols: &[usize],
+    ) -> Option<DMatrix<f64>> {
+        let h = 1e-4;
+        let mut j = DMatrix::zeros(indices.len(), cols.len());
+        for (c, &col) in cols.iter().enumerate() {
+            let mut up = *x;
+            let mut down = *x;
+            *up.get_mut(col)? += h;
+            *down.get_mut(col)? -= h;
+            let pu = self.predict(&up)?;
+            let pd = self.predict(&down)?;
+            for (r, (&i, &tol)) in indices.iter().zip(tolerances).enumerate() {
+                if let Some(e) = j.get_mut((r, c)) {
+                    *e = (pu.get(i)? - pd.get(i)?) / (2.0 * h * tol);
+                }
+            }
+        }
+        Some(j)
+    }
+}
+
 /// Numerical rank of `j`: singular values above `1e-7 ×` the largest (and above `1e-9`).
 pub fn rank(j: &DMatrix<f64>) -> usize {
     if j.nrows() == 0 || j.ncols() == 0 {
@@ -86,55 +120,55 @@ pub fn rank(j: &DMatrix<f64>) -> usize {
     s.iter().filter(|&&v| v > (max * 1e-7).max(1e-9)).count()
 }
 
-/// For each of `cols`, whether the rows of `j` leave it free: its unit vector is not in the row
-/// space (the part of it outside, squared, exceeds `1e-8`).
-pub fn free_columns(j: &DMatrix<f64>) -> Vec<bool> {
-    let n = j.ncols();
-    if j.nrows() == 0 {
-        return vec![true; n];
+/// An orthonormal basis (columns) of the null space of `j`: the directions of the unknowns that
+/// change none of the given numbers. Singular values at or below `1e-7 ×` the largest (or
+/// `1e-9`) count as zero. `j` is padded with zero rows so that a short `j` still yields every
+/// null direction.
+pub fn null_space(j: &DMatrix<f64>) -> DMatrix<f64> {
+    let (m, k) = j.shape();
+    // nalgebra's SVD panics on an empty matrix.
+    if k == 0 {
+        return DMatrix::zeros(0, 0);
     }
-    let svd = j.clone().svd(false, true);
+    if m == 0 {
+        return DMatrix::identity(k, k);
+    }
+    let padded = if m < k {
+        let mut p = DMatrix::zeros(k, k);
+        p.view_mut((0, 0), (m, k)).copy_from(j);
+        p
+    } else {
+        j.clone()
+    };
+    let svd = padded.svd(false, true);
     let max = svd.singular_values.iter().copied().fold(0.0_f64, f64::max);
     let thresh = (max * 1e-7).max(1e-9);
     let Some(vt) = svd.v_t else {
-        return vec![true; n];
+        return DMatrix::identity(k, k);
     };
-    (0..n)
-        .map(|c| {
-            let inside: f64 = svd
-                .singular_values
-                .iter()
-                .enumerate()
-                .filter(|(_, &s)| s > thresh)
-                .filter_map(|(r, _)| vt.get((r, c)).map(|v| v * v))
-                .sum();
-            1.0 - inside > 1e-8
-        })
-        .collect()
+    let null: Vec<usize> = svd
+        .singular_values
+        .iter()
+        .enumerate()
+        .filter(|(_, &s)| s <= thresh)
+        .map(|(i, _)| i)
+        .collect();
+    DMatrix::from_fn(k, null.len(), |r, c| {
+        null.get(c)
+            .and_then(|&i| vt.get((i, r)))
+            .copied()
+            .unwrap_or(0.0)
+    })
 }
 
-/// Leverages `h_i` (diagonal of the hat matrix `J (JᵀJ)⁺ Jᵀ`) of the rows of the weighted
-/// Jacobian `j`: how much of value `i` the fit takes from value `i` itself. A value nothing else
-/// checks has leverage 1.
+/// Leverages `h_i` (diagonal of the hat matrix `J (JᵀJ)⁻¹ Jᵀ`) of the rows of the weighted,
+/// full-column-rank Jacobian `j`, from its thin QR: `h_i = Σ_c Q_ic²`. How much of value `i` the
+/// fit takes from value `i` itself; a value nothing else checks has leverage 1.
 pub fn leverages(j: &DMatrix<f64>) -> Vec<f64> {
     let m = j.nrows();
     if m == 0 || j.ncols() == 0 {
         return vec![0.0; m];
     }
-    let svd = j.clone().svd(true, false);
-    let max = svd.singular_values.iter().copied().fold(0.0_f64, f64::max);
-    let thresh = (max * 1e-7).max(1e-9);
-    let Some(u) = svd.u else {
-        return vec![1.0; m];
-    };
-    (0..m)
-        .map(|i| {
-            svd.singular_values
-                .iter()
-                .enumerate()
-                .filter(|(_, &s)| s > thresh)
-                .filter_map(|(c, _)| u.get((i, c)).map(|v| v * v))
-                .sum()
-        })
-        .collect()
+    let q = j.clone().qr().q();
+    q.row_iter().map(|r| r.norm_squared()).collect()
 }

@@ -1,9 +1,10 @@
 //! Rank analysis: which unknowns the published numbers fix, which take a stated prior, which are
 //! pinned to a typical value, and which measurements would fix those (`missing`).
 
-use super::model::{free_columns, rank, Model, Row};
+use super::model::{null_space, rank, Model, Row};
 use super::unknowns::{N_UNKNOWNS, PIN_ORDER, UNKNOWNS, X};
 use crate::geometry::{measured_index, MEASURED_KEYS};
+use nalgebra::DMatrix;
 
 /// The outcome of the rank analysis.
 #[derive(Debug, Clone, PartialEq, Default)]
@@ -52,17 +53,30 @@ pub fn plan(model: &Model, rows: &[Row], x: &mut X) -> Option<Plan> {
         free: (0..N_UNKNOWNS).collect(),
         ..Plan::default()
     };
-    loop {
-        let j = model.jacobian(x, &idx, &tol, &p.free)?;
-        let loose = free_columns(&j);
-        let pick = PIN_ORDER.iter().copied().find(|u| {
-            p.free
-                .iter()
-                .position(|f| f == u)
-                .and_then(|c| loose.get(c).copied())
-                .unwrap_or(false)
-        });
-        let Some(u) = pick else { break };
+    // An unknown published directly is determined: every null direction has 0 in it. So the SVD
+    // only needs the other columns (fewer columns, same null space).
+    let direct: Vec<usize> = UNKNOWNS
+        .iter()
+        .enumerate()
+        .filter(|(_, u)| measured_index(u.key).is_some_and(|i| idx.contains(&i)))
+        .map(|(c, _)| c)
+        .collect();
+    let cols: Vec<usize> = p
+        .free
+        .iter()
+        .copied()
+        .filter(|c| !direct.contains(c))
+        .collect();
+    let j = model.jacobian_central(x, &idx, &tol, &cols)?;
+    let reduced = null_space(&j);
+    let basis = DMatrix::from_fn(N_UNKNOWNS, reduced.ncols(), |r, c| {
+        cols.iter()
+            .position(|&u| u == r)
+            .and_then(|i| reduced.get((i, c)))
+            .copied()
+            .unwrap_or(0.0)
+    });
+    for u in pins(&basis) {
         p.free.retain(|&f| f != u);
         let unknown = UNKNOWNS.get(u)?;
         let value = match unknown.prior {
@@ -85,6 +99,36 @@ pub fn plan(model: &Model, rows: &[Row], x: &mut X) -> Option<Plan> {
     Some(p)
 }
 
+/// The unknowns to fix so that no free direction remains: walking [`PIN_ORDER`], an unknown is
+/// fixed when its row of the null-space basis `n` (unknowns × free directions) adds a new
+/// direction to the rows already fixed; fixing those removes every free direction.
+fn pins(n: &DMatrix<f64>) -> Vec<usize> {
+    let d = n.ncols();
+    let mut picked: Vec<usize> = Vec::new();
+    if d == 0 {
+        return picked;
+    }
+    for u in PIN_ORDER {
+        if picked.len() >= d {
+            break;
+        }
+        let mut trial = picked.clone();
+        trial.push(u);
+        let rows = DMatrix::from_fn(trial.len(), d, |r, c| {
+            trial
+                .get(r)
+                .and_then(|&t| n.get((t, c)))
+                .copied()
+                .unwrap_or(0.0)
+        });
+        let s = rows.svd(false, false).singular_values;
+        if s.iter().filter(|&&v| v > 1e-3).count() == trial.len() {
+            picked = trial;
+        }
+    }
+    picked
+}
+
 /// Greedily adds measurement keys (in [`SUGGEST`] order) that raise the rank over the free and
 /// pinned unknowns until they are all determined.
 fn suggest(model: &Model, x: &X, idx: &[usize], tol: &[f64], p: &Plan) -> Option<Vec<String>> {
@@ -92,7 +136,7 @@ fn suggest(model: &Model, x: &X, idx: &[usize], tol: &[f64], p: &Plan) -> Option
     cols.extend(&p.pinned);
     let mut idx = idx.to_vec();
     let mut tol = tol.to_vec();
-    let mut have = rank(&model.jacobian(x, &idx, &tol, &cols)?);
+    let mut have = rank(&model.jacobian_central(x, &idx, &tol, &cols)?);
     let mut out = Vec::new();
     for key in SUGGEST {
         if have >= cols.len() {
@@ -106,7 +150,7 @@ fn suggest(model: &Model, x: &X, idx: &[usize], tol: &[f64], p: &Plan) -> Option
         }
         idx.push(i);
         tol.push(1.0);
-        let r = rank(&model.jacobian(x, &idx, &tol, &cols)?);
+        let r = rank(&model.jacobian_central(x, &idx, &tol, &cols)?);
         if r > have {
             have = r;
             out.push(key.to_string());

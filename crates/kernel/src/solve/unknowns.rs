@@ -92,7 +92,14 @@ pub type X = [f64; N_UNKNOWNS];
 /// The frame parameters for `x`, with the BB drop that puts both tyres on the ground
 /// (`F.y − R.y = r_front − r_rear`, DESIGN.md §8a).
 pub fn to_params(x: &X, radii: Radii) -> FrameParams {
-    let mut p = FrameParams {
+    let mut p = to_params_ungrounded(x);
+    p.bb_drop = p.grounded_bb_drop(radii);
+    p
+}
+
+/// The frame parameters for `x` with the BB drop left at 0 (the caller grounds it).
+pub fn to_params_ungrounded(x: &X) -> FrameParams {
+    FrameParams {
         rear_centre: x[ix::REAR_CENTRE],
         bb_drop: 0.0,
         reach: x[ix::REACH],
@@ -105,9 +112,7 @@ pub fn to_params(x: &X, radii: Radii) -> FrameParams {
         seat_angle: x[ix::SEAT_ANGLE].to_radians(),
         seat_axis_offset: x[ix::SEAT_OFFSET],
         seat_tube: x[ix::SEAT_TUBE],
-    };
-    p.bb_drop = p.grounded_bb_drop(radii);
-    p
+    }
 }
 
 /// The typical frame.
