@@ -45,7 +45,7 @@ pub fn run(path: Option<&str>) -> Result<ExitCode, String> {
     let text = read_chart(path)?;
     Ok(match import_text(&text) {
         Ok(json) => {
-            println!("{json}");
+            out!("{json}");
             ExitCode::SUCCESS
         }
         Err(msg) => {

@@ -1,5 +1,13 @@
 //! `framewise`: the kernel on the command line, JSON in and out (DESIGN.md §8).
 
+/// Prints a line to stdout; a closed pipe (`framewise eval … | head`) is not an error.
+macro_rules! out {
+    ($($arg:tt)*) => {{
+        use std::io::Write as _;
+        let _ = writeln!(std::io::stdout().lock(), $($arg)*);
+    }};
+}
+
 mod cmd_import;
 
 use framewise_formats::{report_to_json, scenario_from_json};
@@ -58,7 +66,7 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
     match cmd {
         Some("eval") => {
             let report = eval_report(file)?;
-            println!("{}", report_to_json(&report));
+            out!("{}", report_to_json(&report));
             for e in &report.errors {
                 eprintln!("error: {e}");
             }
@@ -75,7 +83,7 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
             }
             match (report.errors.is_empty(), report.bikes.first()) {
                 (true, Some(b)) => {
-                    println!("{}", framewise_draw::draw_bike(b));
+                    out!("{}", framewise_draw::draw_bike(b));
                     Ok(ExitCode::SUCCESS)
                 }
                 (true, None) => Err("the scenario has no bike to draw".into()),
@@ -84,23 +92,23 @@ fn run(args: &[String]) -> Result<ExitCode, String> {
         }
         // Share links (issue 6): see cmd_link.rs.
         Some("link") => {
-            println!("{}", cmd_link::link(&read_input(file)?)?);
+            out!("{}", cmd_link::link(&read_input(file)?)?);
             Ok(ExitCode::SUCCESS)
         }
         Some("open") => {
             let text = file.ok_or_else(|| format!("missing LINK\n\n{USAGE}"))?;
-            println!("{}", cmd_link::open(text)?);
+            out!("{}", cmd_link::open(text)?);
             Ok(ExitCode::SUCCESS)
         }
         Some("import") => cmd_import::run(file),
         Some("catalogue") => {
             let json = serde_json::to_string_pretty(framewise_kernel::CATALOGUE)
                 .map_err(|e| format!("cannot write the catalogue: {e}"))?;
-            println!("{json}");
+            out!("{json}");
             Ok(ExitCode::SUCCESS)
         }
         Some("help" | "-h" | "--help") => {
-            println!("{USAGE}");
+            out!("{USAGE}");
             Ok(ExitCode::SUCCESS)
         }
         Some(other) => Err(format!("unknown command \"{other}\"\n\n{USAGE}")),
