@@ -12,9 +12,10 @@ const byId = (id) => document.getElementById(id);
  *   getFields()        → { "<field name>": "<typed text>" } of the form
  *   applyFields(f)     fills the form from a link; returns the names it has no field for
  *   getView()/applyView(v)  the page's view choices (optional; kept from the link otherwise)
- * Returns { fields(), update() }: fields() is the form plus the opened link's values the form
- * has no input for (evaluate these, so the drawing shows the whole link); call update() after
- * every evaluation that succeeded.
+ * Returns { fields(), view(), update(link) }: fields() is the form plus the opened link's values
+ * the form has no input for (evaluate these, so the drawing shows the whole link); view() the
+ * view choices for the link; call update(link) after every evaluation that succeeded, with the
+ * link fragment it computed (evaluate_form_linked; null when none), or update() to compute it.
  */
 export function initShare({ getFields, applyFields, getView, applyView = () => {} }) {
   const msg = byId('share-msg');
@@ -74,15 +75,42 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     return { ...carried, ...getFields() };
   }
 
-  function update() {
-    url.value = location.href;
-    if (hold) return;
-    let hash;
-    try {
-      hash = link_from_form(JSON.stringify(fields()), JSON.stringify(currentView()));
-    } catch {
-      return; // a field does not read: the address keeps the last good link
+  function update(link) {
+    if (hold) {
+      url.value = location.href;
+      return;
     }
+    let hash = link;
+    if (hash === undefined) {
+      try {
+        hash = link_from_form(JSON.stringify(fields()), JSON.stringify(currentView()));
+      } catch {
+        hash = null;
+      }
+    }
+    if (typeof hash !== 'string') {
+      url.value = location.href; // a field does not read: the address keeps the last good link
+      return;
+    }
+    // The link box shows the new link at once; the address itself (history.replaceState, about
+    // 2 ms even on a fast machine) and the QR code follow in the next task, after the edit's
+    // drawing and tables are written, and only for the latest edit of a quick run of them.
+    const next = location.href.split('#')[0] + hash;
+    if (url.value !== next) url.value = next;
+    pending = hash;
+    if (!scheduled) {
+      scheduled = true;
+      setTimeout(flush, 0);
+    }
+  }
+
+  let pending = null;
+  let scheduled = false;
+  function flush() {
+    scheduled = false;
+    const hash = pending;
+    pending = null;
+    if (hash === null || hold) return;
     if (hash !== location.hash) history.replaceState(history.state, '', hash);
     url.value = location.href;
     if (!qr.hidden) showQr();
@@ -125,5 +153,5 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
 
   open(location.hash);
   url.value = location.href;
-  return { fields, update };
+  return { fields, view: currentView, update };
 }

@@ -48,7 +48,9 @@ export function attachZoom(container, fitButton) {
     const s = svg();
     const v = current();
     if (!s || !v) return;
-    const scale = v[2] / s.getBoundingClientRect().width;
+    // The drawing is fitted into its box ("meet"): the tighter side sets the scale.
+    const box = s.getBoundingClientRect();
+    const scale = Math.max(v[2] / box.width, v[3] / box.height);
     view = [v[0] - dx * scale, v[1] - dy * scale, v[2], v[3]];
     apply();
   }

@@ -22,6 +22,15 @@ pub fn evaluate_form(fields_json: &str) -> String {
     framewise_web_core::evaluate_form_to_json(fields_json)
 }
 
+/// As [`evaluate_form`], plus the share link of the same form: `view_json` is the view choices as
+/// a JSON object (or empty). The result has one more member, `link`: the link fragment with its
+/// leading `#`, or `null` when a field does not read or the link cannot hold a value. One call
+/// instead of two: the form is read once for the drawing, the tables and the link.
+#[wasm_bindgen]
+pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
+    framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)
+}
+
 /// The frame measurement catalogue (keys, labels, definitions, units, ranges) as JSON text.
 #[wasm_bindgen]
 pub fn catalogue_json() -> String {
@@ -83,37 +92,85 @@ pub mod framewise_web_core {
     /// The form path: parse typed text, evaluate if every field reads, draw the first bike.
     /// Kernel errors are renamed from `bikes[0].frame.x` to the form's `frame.x`.
     pub fn evaluate_form_to_json(fields_json: &str) -> String {
-        let fields: std::collections::BTreeMap<String, String> =
-            match serde_json::from_str(fields_json) {
-                Ok(f) => f,
-                Err(e) => {
-                    let err = framewise_kernel::FieldError::new(
-                        "bad_form",
-                        "",
-                        format!("the form could not be read: {e}"),
-                    );
-                    let report = Report {
-                        version: REPORT_VERSION,
-                        bikes: Vec::new(),
-                        errors: vec![err],
-                    };
-                    return serde_json::to_string(&FormResult {
-                        report: &report,
-                        svg: None,
-                        notes: None,
-                        field_errors: Vec::new(),
-                    })
-                    .unwrap_or_else(|_| "{}".into());
-                }
+        match read_form(fields_json) {
+            Ok(fields) => {
+                let (scenario, errors) = framewise_formats::scenario_from_form(&fields);
+                form_result_json(&scenario, errors, None)
+            }
+            Err(json) => json,
+        }
+    }
+
+    /// [`evaluate_form_to_json`] plus `"link"`: the share link fragment (`#…`) of the same form
+    /// and the view choices `view_json` (a JSON object or empty), or `null` when a field does not
+    /// read, the view does not read or the link cannot hold a value.
+    pub fn evaluate_form_linked_to_json(fields_json: &str, view_json: &str) -> String {
+        match read_form(fields_json) {
+            Ok(fields) => {
+                let (mut scenario, errors) = framewise_formats::scenario_from_form(&fields);
+                let view = if view_json.trim().is_empty() {
+                    Some(scenario.view.clone())
+                } else {
+                    serde_json::from_str(view_json).ok()
+                };
+                let link = match view {
+                    Some(view) if errors.is_empty() => {
+                        scenario.view = view;
+                        framewise_formats::encode_link(&scenario)
+                            .ok()
+                            .map(|frag| format!("#{frag}"))
+                    }
+                    _ => None,
+                };
+                form_result_json(&scenario, errors, Some(link))
+            }
+            Err(json) => json,
+        }
+    }
+
+    #[derive(Serialize)]
+    struct Linked<'a> {
+        #[serde(flatten)]
+        result: FormResult<'a>,
+        link: Option<String>,
+    }
+
+    /// The form's fields, or the whole error result as JSON text when the text does not read.
+    fn read_form(fields_json: &str) -> Result<std::collections::BTreeMap<String, String>, String> {
+        serde_json::from_str(fields_json).map_err(|e| {
+            let err = framewise_kernel::FieldError::new(
+                "bad_form",
+                "",
+                format!("the form could not be read: {e}"),
+            );
+            let report = Report {
+                version: REPORT_VERSION,
+                bikes: Vec::new(),
+                errors: vec![err],
             };
-        let (scenario, mut field_errors) = framewise_formats::scenario_from_form(&fields);
+            serde_json::to_string(&FormResult {
+                report: &report,
+                svg: None,
+                notes: None,
+                field_errors: Vec::new(),
+            })
+            .unwrap_or_else(|_| "{}".into())
+        })
+    }
+
+    /// Evaluates and draws a form's scenario; `link: Some(_)` adds the `link` member.
+    fn form_result_json(
+        scenario: &framewise_kernel::Scenario,
+        mut field_errors: Vec<framewise_kernel::FieldError>,
+        link: Option<Option<String>>,
+    ) -> String {
         let mut report = Report {
             version: REPORT_VERSION,
             bikes: Vec::new(),
             errors: Vec::new(),
         };
         if field_errors.is_empty() {
-            report = framewise_kernel::evaluate(&scenario);
+            report = framewise_kernel::evaluate(scenario);
             for e in &report.errors {
                 let mut e = e.clone();
                 e.field = e
@@ -140,12 +197,16 @@ pub mod framewise_web_core {
                 (svg, framewise_formats::fields::residual_notes(bike))
             });
         let (svg, notes) = drawn.unzip();
-        serde_json::to_string(&FormResult {
+        let result = FormResult {
             report: &report,
             svg,
             notes,
             field_errors,
-        })
+        };
+        match link {
+            Some(link) => serde_json::to_string(&Linked { result, link }),
+            None => serde_json::to_string(&result),
+        }
         .unwrap_or_else(|_| "{}".into())
     }
 
@@ -232,6 +293,38 @@ mod tests {
             svg.contains("braking limit"),
             "handling numbers label the centre of mass"
         );
+    }
+
+    #[test]
+    fn the_linked_form_gives_the_same_result_and_the_same_link_as_two_calls() {
+        let form = r#"{"label":"Trail M","frame.reach_mm":"47 cm","frame.stack_mm":"635",
+            "frame.head_angle_deg":"64,5°","frame.head_tube_mm":"110","frame.fork_a2c_mm":"561",
+            "frame.fork_offset_mm":"44","wheels.front":"29x2.4","wheels.rear":"29x2.4",
+            "setup.stem_mm":"45","rider.height_mm":"1780"}"#;
+        let view = r#"{"posture":"standing","dimensions":true}"#;
+        let mut linked: serde_json::Value =
+            serde_json::from_str(&evaluate_form_linked_to_json(form, view)).unwrap_or_default();
+        let alone: serde_json::Value =
+            serde_json::from_str(&evaluate_form_to_json(form)).unwrap_or_default();
+        let link = crate::link::link_core::link_from_form(form, view).unwrap_or_default();
+        assert!(link.starts_with('#') && link.len() > 8, "{link}");
+        assert_eq!(linked["link"], link.as_str());
+        if let Some(obj) = linked.as_object_mut() {
+            obj.remove("link");
+        }
+        assert_eq!(linked, alone);
+        // A field that does not read, or a view that does not: no link, the errors as before.
+        let bad: serde_json::Value = serde_json::from_str(&evaluate_form_linked_to_json(
+            r#"{"frame.reach_mm":"long"}"#,
+            "",
+        ))
+        .unwrap_or_default();
+        assert!(bad["link"].is_null());
+        assert_eq!(bad["field_errors"][0]["field"], "frame.reach_mm");
+        let bad_view: serde_json::Value =
+            serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
+        assert!(bad_view["link"].is_null());
+        assert!(bad_view["svg"].is_string());
     }
 
     #[test]
