@@ -72,19 +72,19 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
             _ => errors.push(unknown(name)),
         }
     }
-    match serde_json::from_value(setup.into()) {
+    match crate::json::from_value_at(setup.into()) {
         Ok(s) => bike.setup = s,
-        Err(e) => errors.push(FieldError::new("unknown_field", "setup", e.to_string())),
+        Err((_, e)) => errors.push(FieldError::new("unknown_field", "setup", e.to_string())),
     }
     let wheels = bike.changes.wheels.clone();
-    match serde_json::from_value::<framewise_kernel::Changes>(changes.into()) {
+    match crate::json::from_value_at::<framewise_kernel::Changes>(changes.into()) {
         Ok(c) => bike.changes = framewise_kernel::Changes { wheels, ..c },
-        Err(e) => errors.push(FieldError::new("unknown_field", "changes", e.to_string())),
+        Err((_, e)) => errors.push(FieldError::new("unknown_field", "changes", e.to_string())),
     }
     let has_rider = !rider.is_empty();
-    let rider: Option<RiderInput> = match serde_json::from_value(rider.into()) {
+    let rider: Option<RiderInput> = match crate::json::from_value_at(rider.into()) {
         Ok(r) => has_rider.then_some(r),
-        Err(e) => {
+        Err((_, e)) => {
             errors.push(FieldError::new("unknown_field", "rider", e.to_string()));
             None
         }

@@ -116,7 +116,8 @@ pub fn decode_link(link: &str) -> Result<Scenario, LinkError> {
         ));
     }
     obj.insert("version".into(), Value::from(SCENARIO_VERSION));
-    serde_json::from_value(Value::Object(obj)).map_err(|e| LinkError::Garbled(e.to_string()))
+    crate::json::from_value_at(Value::Object(obj))
+        .map_err(|(_, e)| LinkError::Garbled(e.to_string()))
 }
 
 /// CRC-8 with polynomial x⁸ + x² + x + 1 (0x07), initial value 0, no reflection.
