@@ -23,27 +23,8 @@ pub struct Frame {
     pub r_rear: f64,
 }
 
-pub const KEYS: [&str; 19] = [
-    "reach_mm",
-    "stack_mm",
-    "head_angle_deg",
-    "head_tube_mm",
-    "headset_lower_mm",
-    "fork_a2c_mm",
-    "fork_offset_mm",
-    "chainstay_mm",
-    "rear_centre_mm",
-    "front_centre_mm",
-    "wheelbase_mm",
-    "bb_drop_mm",
-    "bb_height_mm",
-    "seat_angle_actual_deg",
-    "seat_axis_offset_mm",
-    "seat_angle_effective_deg",
-    "top_tube_effective_mm",
-    "seat_tube_mm",
-    "trail_mm",
-];
+/// The measured keys in the kernel's order (a list of names, not a computation).
+pub use framewise_kernel::geometry::MEASURED_KEYS as KEYS;
 
 pub const PARAM_NAMES: [&str; 11] = [
     "rear_centre",
