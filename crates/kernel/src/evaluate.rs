@@ -7,11 +7,12 @@ use crate::assembly;
 use crate::catalogue::{all_keys, lookup, Measurement};
 use crate::error::{fmt_num, FieldError, Warning};
 use crate::geometry::{FrameParams, Geometry, Radii};
+use crate::memo::SolveMemo;
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
 use crate::scene;
-use crate::solve::{solve, Given, SolveInput};
+use crate::solve::{Given, SolveInput};
 use crate::validate::{limit, Checker};
 use crate::wheel::{Wheel, WheelSpec};
 use nalgebra::{Point2, Vector2};
@@ -22,6 +23,12 @@ pub const DEFAULT_WHEEL: &str = "29x2.4";
 
 /// Evaluates every bike of the scenario.
 pub fn evaluate(scenario: &Scenario) -> Report {
+    evaluate_with(scenario, &mut SolveMemo::default())
+}
+
+/// [`evaluate`], reusing the frame solves `memo` remembers from earlier calls (and remembering
+/// this call's). The report is the same as [`evaluate`]'s; only the time differs.
+pub fn evaluate_with(scenario: &Scenario, memo: &mut SolveMemo) -> Report {
     let mut report = Report {
         version: REPORT_VERSION,
         bikes: Vec::new(),
@@ -42,7 +49,7 @@ pub fn evaluate(scenario: &Scenario) -> Report {
     let mut pending = Vec::new();
     let mut done = Vec::new();
     for (i, bike) in scenario.bikes.iter().enumerate() {
-        match evaluate_bike(bike, &format!("bikes[{i}]"), &rider) {
+        match evaluate_bike(bike, &format!("bikes[{i}]"), &rider, memo) {
             Ok((b, ctx)) => {
                 done.push(Some(report.bikes.len()));
                 if let Some((ctx, target_bike)) = ctx {
@@ -184,7 +191,12 @@ fn wheels(
 type BikeResult =
     Result<(BikeReport, Option<(assembly::SearchContext, Option<usize>)>), Vec<FieldError>>;
 
-fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &scene::ScenarioRider) -> BikeResult {
+fn evaluate_bike(
+    bike: &BikeInput,
+    prefix: &str,
+    rider: &scene::ScenarioRider,
+    memo: &mut SolveMemo,
+) -> BikeResult {
     let mut c = Checker::default();
     let mut warnings = Vec::new();
     let given = check_published(prefix, bike, &mut c, &mut warnings);
@@ -288,7 +300,7 @@ fn evaluate_bike(bike: &BikeInput, prefix: &str, rider: &scene::ScenarioRider) -
         seat_ref,
         field_prefix: &frame_field,
     };
-    let solution = solve(&given, input).map_err(|e| vec![e])?;
+    let solution = memo.solve(&given, input).map_err(|e| vec![e])?;
     warnings.extend(solution.warnings.iter().cloned());
     let params = solution.params;
     let changes = ChangeSet {

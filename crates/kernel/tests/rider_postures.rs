@@ -97,6 +97,79 @@ fn standing_balances_over_the_feet() {
     assert!((p.numbers["arm_extension_room_mm"] - room).abs() < 1e-9);
 }
 
+/// The standing hip found by the bracketed regula falsi is the one a plain 60-step bisection finds
+/// (the method used before), to 1e-6 mm, for several stances; every standing number agrees to
+/// 1e-6. The figure is rebuilt here from the stated model (shoulder at the torso angle, elbow and
+/// knees by the law of cosines) without the kernel's posture code.
+/// Source: bisection of a bracketed root (any numerical analysis text); the body model of
+/// REFERENCES.md "Human body segments".
+#[test]
+fn standing_hip_matches_a_plain_bisection() {
+    use framewise_kernel::posture::{two_link, Figure};
+    let b = body();
+    for (gx, gy, bend, torso) in [
+        (470.0, 700.0, 30.0, 40.0),
+        (440.0, 720.0, 30.0, 35.0),
+        (500.0, 680.0, 35.0, 45.0),
+        (460.0, 740.0, 40.0, 50.0),
+    ] {
+        let s = Stance {
+            grip: Point2::new(gx, gy),
+            crank: 170.0,
+            knee_bend: f64::to_radians(bend),
+            torso_angle: f64::to_radians(torso),
+            ground_y: -340.0,
+        };
+        let feet = [
+            foot_on_pedal(&b, Point2::new(170.0, 0.0), 0.0),
+            foot_on_pedal(&b, Point2::new(-170.0, 0.0), 0.0),
+        ];
+        let half = (feet[0].ankle.x - feet[1].ankle.x).abs() / 2.0;
+        let span = b.leg_span(s.knee_bend);
+        let hip_y = (feet[0].ankle.y + feet[1].ankle.y) / 2.0 + (span * span - half * half).sqrt();
+        let target = (feet[0].ball.x + feet[1].ball.x) / 2.0;
+        // Out of reach (far from the balance, inside the bracket): the limb points straight at
+        // its end.
+        let limb = |p: Point2<f64>, q: Point2<f64>, a: f64, c: f64, side: f64| {
+            two_link(p, q, a, c, side).unwrap_or_else(|_| p + (q - p).normalize() * a)
+        };
+        let excess = |x: f64| {
+            let hip = Point2::new(x, hip_y);
+            let shoulder =
+                hip + nalgebra::Vector2::new(s.torso_angle.cos(), s.torso_angle.sin()) * b.torso;
+            let fig = Figure {
+                hip,
+                shoulder,
+                elbow: limb(shoulder, s.grip, b.upper_arm, b.forearm_to_grip(), -1.0),
+                grip: s.grip,
+                knees: [
+                    limb(hip, feet[0].ankle, b.thigh, b.shank, 1.0),
+                    limb(hip, feet[1].ankle, b.thigh, b.shank, 1.0),
+                ],
+                feet,
+            };
+            fig.centre_of_mass(&b).x - target
+        };
+        let mid = (feet[0].ankle.x + feet[1].ankle.x) / 2.0;
+        let (mut lo, mut hi) = (mid - 2.0 * span, mid + 2.0 * span);
+        for _ in 0..60 {
+            let m = (lo + hi) / 2.0;
+            if excess(m) < 0.0 {
+                lo = m;
+            } else {
+                hi = m;
+            }
+        }
+        let bisected = (lo + hi) / 2.0;
+        let p = standing(&b, &s);
+        assert!(p.warnings.is_empty(), "{gx} {gy}: {:?}", p.warnings);
+        let hip = p.figure.unwrap().hip;
+        assert!((hip.x - bisected).abs() < 1e-6, "{} vs {bisected}", hip.x);
+        assert!((p.numbers["hip_x_mm"] - bisected).abs() < 1e-6);
+        assert!(excess(hip.x).abs() < 1e-6);
+    }
+}
+
 #[test]
 fn saddle_too_high_is_a_warning_not_a_number() {
     let p = seated(&body(), &contacts(950.0, Point2::new(470.0, 700.0)));

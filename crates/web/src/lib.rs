@@ -87,6 +87,37 @@ pub mod framewise_web_core {
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
         field_errors: Vec<framewise_kernel::FieldError>,
+        /// `Some(link)` for [`evaluate_form_linked_to_json`] (a member, `null` when `None`),
+        /// `None` for the plain form result (no member). A member, not a `#[serde(flatten)]`
+        /// wrapper: flattening buffers the whole result and took about half of the call's
+        /// serialisation time (docs/BENCHMARKS.md "Wasm evaluate").
+        #[serde(skip_serializing_if = "Option::is_none")]
+        link: Option<Option<String>>,
+    }
+
+    thread_local! {
+        /// The page's last frame solves: an edit that leaves the published frame numbers and
+        /// the stock wheels as they were skips the solve (the report stays the same).
+        static SOLVES: std::cell::RefCell<framewise_kernel::SolveMemo> =
+            std::cell::RefCell::default();
+    }
+
+    /// [`evaluate`] with this thread's solve memo.
+    fn evaluate_remembered(scenario: &framewise_kernel::Scenario) -> Report {
+        SOLVES.with(|memo| match memo.try_borrow_mut() {
+            Ok(mut memo) => framewise_kernel::evaluate_with(scenario, &mut memo),
+            Err(_) => evaluate(scenario),
+        })
+    }
+
+    /// Forgets this thread's remembered solves (for tests and measurements: the next form
+    /// evaluation solves afresh).
+    pub fn forget_solves() {
+        SOLVES.with(|memo| {
+            if let Ok(mut memo) = memo.try_borrow_mut() {
+                *memo = framewise_kernel::SolveMemo::default();
+            }
+        });
     }
 
     /// The form path: parse typed text, evaluate if every field reads, draw the first bike.
@@ -128,13 +159,6 @@ pub mod framewise_web_core {
         }
     }
 
-    #[derive(Serialize)]
-    struct Linked<'a> {
-        #[serde(flatten)]
-        result: FormResult<'a>,
-        link: Option<String>,
-    }
-
     /// The form's fields, or the whole error result as JSON text when the text does not read.
     fn read_form(fields_json: &str) -> Result<std::collections::BTreeMap<String, String>, String> {
         serde_json::from_str(fields_json).map_err(|e| {
@@ -153,6 +177,7 @@ pub mod framewise_web_core {
                 svg: None,
                 notes: None,
                 field_errors: Vec::new(),
+                link: None,
             })
             .unwrap_or_else(|_| "{}".into())
         })
@@ -170,7 +195,7 @@ pub mod framewise_web_core {
             errors: Vec::new(),
         };
         if field_errors.is_empty() {
-            report = framewise_kernel::evaluate(scenario);
+            report = evaluate_remembered(scenario);
             for e in &report.errors {
                 let mut e = e.clone();
                 e.field = e
@@ -197,16 +222,13 @@ pub mod framewise_web_core {
                 (svg, framewise_formats::fields::residual_notes(bike))
             });
         let (svg, notes) = drawn.unzip();
-        let result = FormResult {
+        serde_json::to_string(&FormResult {
             report: &report,
             svg,
             notes,
             field_errors,
-        };
-        match link {
-            Some(link) => serde_json::to_string(&Linked { result, link }),
-            None => serde_json::to_string(&result),
-        }
+            link,
+        })
         .unwrap_or_else(|_| "{}".into())
     }
 
@@ -325,6 +347,59 @@ mod tests {
             serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
         assert!(bad_view["link"].is_null());
         assert!(bad_view["svg"].is_string());
+    }
+
+    /// The page's solve memo changes only the time: a series of form edits (frame, rider,
+    /// change, a field that does not read, back to the start) gives, edit by edit, the same text
+    /// as the same call with the memo emptied first.
+    /// Source: the memo's invariant (crates/kernel/src/memo.rs).
+    #[test]
+    fn remembered_solves_give_the_same_result_as_fresh_ones() {
+        let mut form: std::collections::BTreeMap<String, String> = serde_json::from_str(
+            r#"{"label":"Memo","frame.reach_mm":"470","frame.stack_mm":"635",
+            "frame.head_angle_deg":"65","frame.head_tube_mm":"110","frame.fork_a2c_mm":"561",
+            "frame.fork_offset_mm":"44","frame.chainstay_mm":"435","wheels.front":"29x2.4",
+            "wheels.rear":"29x2.4","setup.stem_mm":"45","setup.saddle_height_mm":"735",
+            "setup.crank_mm":"170","rider.height_mm":"1780","rider.mass_kg":"74"}"#,
+        )
+        .unwrap_or_default();
+        let view = r#"{"posture":"seated","dimensions":false,"ghost":true}"#;
+        let edits = [
+            ("frame.reach_mm", "475"),
+            ("rider.height_mm", "1850"),
+            ("changes.fork_a2c_delta_mm", "20"),
+            ("setup.stem_mm", "60"),
+            ("frame.reach_mm", "long"),
+            ("frame.reach_mm", "470"),
+            ("wheels.front", "27.5x2.5"),
+            ("frame.wheelbase_mm", "1300"),
+            ("frame.wheelbase_mm", ""),
+            ("wheels.front", "29x2.4"),
+            ("rider.height_mm", "1780"),
+            ("changes.fork_a2c_delta_mm", ""),
+            ("setup.stem_mm", "45"),
+        ];
+        forget_solves();
+        let start =
+            evaluate_form_linked_to_json(&serde_json::to_string(&form).unwrap_or_default(), view);
+        for (field, value) in edits {
+            form.insert(field.to_string(), value.to_string());
+            let text = serde_json::to_string(&form).unwrap_or_default();
+            let remembered = evaluate_form_linked_to_json(&text, view);
+            let plain = evaluate_form_to_json(&text);
+            forget_solves();
+            assert_eq!(
+                remembered,
+                evaluate_form_linked_to_json(&text, view),
+                "{field}"
+            );
+            forget_solves();
+            assert_eq!(plain, evaluate_form_to_json(&text), "{field}");
+            assert!(remembered.contains("\"report\""), "{remembered}");
+        }
+        // Back at the start: the same result as the first call.
+        let text = serde_json::to_string(&form).unwrap_or_default();
+        assert_eq!(evaluate_form_linked_to_json(&text, view), start);
     }
 
     #[test]
