@@ -44,6 +44,12 @@ fn bench(c: &mut Criterion) {
     c.bench_function("evaluate one bike with a rider, seated and standing", |b| {
         b.iter(|| evaluate(black_box(&plain)))
     });
+    // The page's path for an edit that leaves the frame numbers and stock wheels as they were.
+    let mut memo = framewise_kernel::SolveMemo::default();
+    c.bench_function(
+        "evaluate one bike with a rider, frame solve remembered",
+        |b| b.iter(|| framewise_kernel::evaluate_with(black_box(&plain), &mut memo)),
+    );
     let mut frame_only = plain.clone();
     frame_only.rider = None;
     frame_only.bikes[0].setup = Default::default();
