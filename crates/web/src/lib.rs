@@ -88,9 +88,8 @@ pub mod framewise_web_core {
         notes: Option<std::collections::BTreeMap<String, String>>,
         field_errors: Vec<framewise_kernel::FieldError>,
         /// `Some(link)` for [`evaluate_form_linked_to_json`] (a member, `null` when `None`),
-        /// `None` for the plain form result (no member). A member, not a `#[serde(flatten)]`
-        /// wrapper: flattening buffers the whole result and took about half of the call's
-        /// serialisation time (docs/BENCHMARKS.md "Wasm evaluate").
+        /// `None` for the plain form result (no member). A plain member rather than a
+        /// `#[serde(flatten)]` wrapper: the same text, without flatten's map serializer.
         #[serde(skip_serializing_if = "Option::is_none")]
         link: Option<Option<String>>,
     }
