@@ -79,10 +79,20 @@ pub mod framewise_web_core {
         .unwrap_or_else(|_| "{}".into())
     }
 
+    /// The drawing's patch (crates/draw `Drawing::patch`): the page applies it in place when
+    /// `structure` equals that of the drawing it shows, else writes `svg`.
+    #[derive(Serialize)]
+    struct DrawingPatch {
+        structure: String,
+        patch: Vec<(String, &'static str, String)>,
+    }
+
     #[derive(Serialize)]
     struct FormResult<'a> {
         report: &'a Report,
         svg: Option<String>,
+        #[serde(skip_serializing_if = "Option::is_none")]
+        drawing: Option<DrawingPatch>,
         /// One sentence per inconsistent published value, keyed like the residuals.
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
@@ -151,6 +161,7 @@ pub mod framewise_web_core {
             serde_json::to_string(&FormResult {
                 report: &report,
                 svg: None,
+                drawing: None,
                 notes: None,
                 field_errors: Vec::new(),
             })
@@ -186,7 +197,7 @@ pub mod framewise_web_core {
             .first()
             .filter(|_| field_errors.is_empty())
             .map(|bike| {
-                let svg = framewise_draw::draw(&framewise_draw::Scene {
+                let d = framewise_draw::drawing(&framewise_draw::Scene {
                     label: &bike.label,
                     ridden: &bike.outline,
                     stock: &bike.stock_outline,
@@ -194,12 +205,25 @@ pub mod framewise_web_core {
                     seated: limits(&bike.handling.seated),
                     standing: limits(&bike.handling.standing),
                 });
-                (svg, framewise_formats::fields::residual_notes(bike))
+                let patch = DrawingPatch {
+                    structure: d.structure(),
+                    patch: d
+                        .patch()
+                        .into_iter()
+                        .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
+                        .collect(),
+                };
+                (
+                    (d.svg(), patch),
+                    framewise_formats::fields::residual_notes(bike),
+                )
             });
-        let (svg, notes) = drawn.unzip();
+        let (drawn, notes) = drawn.unzip();
+        let (svg, drawing) = drawn.unzip();
         let result = FormResult {
             report: &report,
             svg,
+            drawing,
             notes,
             field_errors,
         };
