@@ -26,9 +26,20 @@ pub fn evaluate_form(fields_json: &str) -> String {
 /// a JSON object (or empty). The result has one more member, `link`: the link fragment with its
 /// leading `#`, or `null` when a field does not read or the link cannot hold a value. One call
 /// instead of two: the form is read once for the drawing, the tables and the link.
+///
+/// The page's call on every edit, so its `svg` is `null`: the drawing comes as `drawing`
+/// (`{structure, patch}`, applied in place) and [`drawing_svg`] gives the document when the
+/// structure changed.
 #[wasm_bindgen]
 pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
     framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)
+}
+
+/// The SVG document of the drawing the last [`evaluate_form_linked`] call made (empty text when
+/// it made none): asked for only when the drawing's structure changed.
+#[wasm_bindgen]
+pub fn drawing_svg() -> String {
+    framewise_web_core::last_drawing_svg()
 }
 
 /// The frame measurement catalogue (keys, labels, definitions, units, ranges) as JSON text.
@@ -79,8 +90,19 @@ pub mod framewise_web_core {
         .unwrap_or_else(|_| "{}".into())
     }
 
+    std::thread_local! {
+        /// The drawing of the last linked evaluation, for [`last_drawing_svg`].
+        static LAST_DRAWING: std::cell::RefCell<Option<framewise_draw::Drawing>> =
+            const { std::cell::RefCell::new(None) };
+    }
+
+    /// The SVG of the drawing the last [`evaluate_form_linked_to_json`] made, or empty text.
+    pub fn last_drawing_svg() -> String {
+        LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.svg()).unwrap_or_default())
+    }
+
     /// The drawing's patch (crates/draw `Drawing::patch`): the page applies it in place when
-    /// `structure` equals that of the drawing it shows, else writes `svg`.
+    /// `structure` equals that of the drawing it shows, else writes the SVG.
     #[derive(Serialize)]
     struct DrawingPatch {
         structure: String,
@@ -213,13 +235,22 @@ pub mod framewise_web_core {
                         .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
                         .collect(),
                 };
+                // The page's per-edit (linked) call leaves the SVG text for `drawing_svg`:
+                // writing it costs most of the drawing's time and the page rarely needs it.
+                let svg = if link.is_some() {
+                    LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
+                    None
+                } else {
+                    Some(d.svg())
+                };
                 (
-                    (d.svg(), patch),
+                    (svg, patch),
                     framewise_formats::fields::residual_notes(bike),
                 )
             });
         let (drawn, notes) = drawn.unzip();
         let (svg, drawing) = drawn.unzip();
+        let svg = svg.flatten();
         let result = FormResult {
             report: &report,
             svg,
@@ -335,8 +366,11 @@ mod tests {
         assert_eq!(linked["link"], link.as_str());
         if let Some(obj) = linked.as_object_mut() {
             obj.remove("link");
+            // The linked call leaves the SVG text to `last_drawing_svg`.
+            assert_eq!(obj.insert("svg".into(), alone["svg"].clone()), Some(serde_json::Value::Null));
         }
         assert_eq!(linked, alone);
+        assert_eq!(last_drawing_svg(), alone["svg"].as_str().unwrap_or("none"));
         // A field that does not read, or a view that does not: no link, the errors as before.
         let bad: serde_json::Value = serde_json::from_str(&evaluate_form_linked_to_json(
             r#"{"frame.reach_mm":"long"}"#,
@@ -348,7 +382,7 @@ mod tests {
         let bad_view: serde_json::Value =
             serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
         assert!(bad_view["link"].is_null());
-        assert!(bad_view["svg"].is_string());
+        assert!(bad_view["drawing"]["structure"].is_string());
     }
 
     #[test]
