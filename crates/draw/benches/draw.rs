@@ -40,18 +40,24 @@ fn bench(c: &mut Criterion) {
     c.bench_function("draw one bike with a rider: SVG document", |b| {
         b.iter(|| framewise_draw::draw_bike(black_box(bike)))
     });
-    c.bench_function("draw one bike with a rider: model, patch list and structure", |b| {
-        b.iter(|| {
-            let d = framewise_draw::drawing_of_bike(black_box(bike));
-            black_box((d.patch().len(), d.structure()));
-        })
-    });
-    c.bench_function("draw one bike with a rider: model, SVG, patch and structure", |b| {
-        b.iter(|| {
-            let d = framewise_draw::drawing_of_bike(black_box(bike));
-            black_box((d.svg(), d.patch().len(), d.structure()));
-        })
-    });
+    c.bench_function(
+        "draw one bike with a rider: model, patch list and structure",
+        |b| {
+            b.iter(|| {
+                let d = framewise_draw::drawing_of_bike(black_box(bike));
+                black_box((d.patch().len(), d.structure()));
+            })
+        },
+    );
+    c.bench_function(
+        "draw one bike with a rider: model, SVG, patch and structure",
+        |b| {
+            b.iter(|| {
+                let d = framewise_draw::drawing_of_bike(black_box(bike));
+                black_box((d.svg(), d.patch().len(), d.structure()));
+            })
+        },
+    );
 }
 
 criterion_group!(benches, bench);

@@ -37,15 +37,51 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
         anchor,
     };
     let mut v = vec![
-        d("reach_mm", [0.0, ry], [t[0], ry], [t[0] / 2.0, ry + 25.0], "middle"),
-        d("stack_mm", [sx, 0.0], [sx, t[1]], [sx + 20.0, t[1] / 4.0], "start"),
-        d("wheelbase_mm", [r, wy], [f, wy], [(r + f) / 2.0, wy - 50.0], "middle"),
-        d("bb_height_mm", [-OFF, gy], [-OFF, 0.0], [-OFF - 20.0, gy / 2.0], "end"),
-        d("trail_mm", [c, ty], [s, ty], [(c + s) / 2.0, gy - OFF - 50.0], "middle"),
+        d(
+            "reach_mm",
+            [0.0, ry],
+            [t[0], ry],
+            [t[0] / 2.0, ry + 25.0],
+            "middle",
+        ),
+        d(
+            "stack_mm",
+            [sx, 0.0],
+            [sx, t[1]],
+            [sx + 20.0, t[1] / 4.0],
+            "start",
+        ),
+        d(
+            "wheelbase_mm",
+            [r, wy],
+            [f, wy],
+            [(r + f) / 2.0, wy - 50.0],
+            "middle",
+        ),
+        d(
+            "bb_height_mm",
+            [-OFF, gy],
+            [-OFF, 0.0],
+            [-OFF - 20.0, gy / 2.0],
+            "end",
+        ),
+        d(
+            "trail_mm",
+            [c, ty],
+            [s, ty],
+            [(c + s) / 2.0, gy - OFF - 50.0],
+            "middle",
+        ),
     ];
     if let Some(ck) = &o.cockpit {
         let m = mid([0.0, 0.0], ck.grip);
-        v.push(d("bb_to_grip_mm", [0.0, 0.0], ck.grip, [m[0] - 30.0, m[1]], "end"));
+        v.push(d(
+            "bb_to_grip_mm",
+            [0.0, 0.0],
+            ck.grip,
+            [m[0] - 30.0, m[1]],
+            "end",
+        ));
     }
     v
 }
@@ -56,7 +92,11 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Node {
     let mut labels = Vec::new();
     for dim in dims_of(o) {
         let Some(v) = n.get(dim.key) else { continue };
-        let unit = if dim.key.ends_with("_deg") { "°" } else { " mm" };
+        let unit = if dim.key.ends_with("_deg") {
+            "°"
+        } else {
+            " mm"
+        };
         let words = format!("{} {}{unit}", label(dim.key).unwrap_or(dim.key), num(*v, 0));
         lines = lines.line(dim.a, dim.b);
         labels.push(Node::Group {

@@ -47,7 +47,9 @@ pub fn rider(f: &RiderFigure, posture: &str) -> Node {
                 .circle(f.head, f.head_radius)
                 .node(k("head"), "head"),
             limbs.node(k("limbs"), "limb"),
-            PathData::new().polyline(&foot(&near)).node(k("foot"), "foot"),
+            PathData::new()
+                .polyline(&foot(&near))
+                .node(k("foot"), "foot"),
             PathData::new()
                 .circle(f.hip, JOINT_R)
                 .node(k("joint"), "joint"),
@@ -63,7 +65,9 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
             .line(c, o.rear_contact)
             .line(c, o.front_contact)
             .node(k("tip-lines"), "tip-line"),
-        PathData::new().circle(c, COM_R).node(k("com-mark"), "com-mark"),
+        PathData::new()
+            .circle(c, COM_R)
+            .node(k("com-mark"), "com-mark"),
         PathData::new()
             .line([c[0] - COM_R, c[1]], [c[0] + COM_R, c[1]])
             .line([c[0], c[1] - COM_R], [c[0], c[1] + COM_R])

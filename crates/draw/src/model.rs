@@ -174,7 +174,11 @@ fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {
         Node::Path { key, d, .. } => out.push((key, "d", d)),
         Node::Text {
             key, x, y, words, ..
-        } => out.extend([(key.as_str(), "x", x.as_str()), (key, "y", y), (key, "text", words)]),
+        } => out.extend([
+            (key.as_str(), "x", x.as_str()),
+            (key, "y", y),
+            (key, "text", words),
+        ]),
     }
 }
 

@@ -259,7 +259,9 @@ fn the_structure_is_stable_across_numeric_edits() {
             .any(|(x, _)| x.0 == "ridden-fork-leg" && x.1 == "d"),
         "{changed:?}"
     );
-    assert!(changed.iter().any(|(x, _)| x.0 == "dim-reach_mm" && x.1 == "text"));
+    assert!(changed
+        .iter()
+        .any(|(x, _)| x.0 == "dim-reach_mm" && x.1 == "text"));
     for ((ka, aa, _), (kb, ab, _)) in pa.iter().zip(&pb) {
         assert_eq!((ka, aa), (kb, ab), "same keys in the same order");
     }
@@ -273,7 +275,7 @@ fn the_structure_changes_when_a_part_appears() {
     assert_ne!(base, drawing(&scene(&full, &n)).structure());
     let with_cockpit = Outline {
         cockpit: full.cockpit,
-        ..bare.clone()
+        ..bare
     };
     assert_ne!(base, drawing(&scene(&with_cockpit, &n)).structure());
     let mut no_limits = scene(&full, &n);
@@ -355,5 +357,8 @@ fn numbers_are_tenths_never_nan_or_minus_zero() {
             assert!(decimals <= 1, "{t} in {d}");
         }
     }
-    assert!(svg.contains("L800.1,0\""), "the front axle at 0.1 mm, -0.04 written as 0");
+    assert!(
+        svg.contains("L800.1,0\""),
+        "the front axle at 0.1 mm, -0.04 written as 0"
+    );
 }

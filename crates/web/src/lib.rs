@@ -367,7 +367,10 @@ mod tests {
         if let Some(obj) = linked.as_object_mut() {
             obj.remove("link");
             // The linked call leaves the SVG text to `last_drawing_svg`.
-            assert_eq!(obj.insert("svg".into(), alone["svg"].clone()), Some(serde_json::Value::Null));
+            assert_eq!(
+                obj.insert("svg".into(), alone["svg"].clone()),
+                Some(serde_json::Value::Null)
+            );
         }
         assert_eq!(linked, alone);
         assert_eq!(last_drawing_svg(), alone["svg"].as_str().unwrap_or("none"));
