@@ -8,6 +8,7 @@ import { attachView, getView, applyView } from './ui/view.js';
 import { attachChart } from './ui/chart.js';
 import { initShare } from './ui/share.js'; // share links (issue 6)
 import { registerOffline } from './ui/offline.js'; // offline use (issue 6)
+import { createPainter } from './ui/onscreen.js';
 
 await wasm.default();
 
@@ -24,6 +25,8 @@ const status = document.getElementById('status');
 const results = document.getElementById('results');
 
 buildForm(form, words);
+const painter = createPainter(); // on-screen parts at once, the rest in the next task
+painter.watch(drawing);
 attachView(drawing);
 const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 wireDefinitions(results, definitions);
@@ -40,7 +43,9 @@ const share = initShare({ getFields: () => readForm(form), applyFields: writeFor
 // The drawing (crates/draw): written whole (innerHTML of wasm.drawing_svg(), asked for only
 // then) when its structure changed (a part appeared or went); otherwise only the values that
 // changed are set, from the patch list [key, attribute, value] ('text' = the words) made by the
-// same Rust model as the SVG.
+// same Rust model as the SVG. A write the painter defers (drawing off the screen) still shows
+// the latest drawing: drawing_svg() is the last evaluated one, and the patch compares with what
+// the DOM holds.
 let shownStructure = null;
 let shownPatch = []; // the patch now in the DOM, entry by entry
 let shownElements = []; // the element of each entry
@@ -84,8 +89,8 @@ function update() {
     return;
   }
   status.textContent = '';
-  showDrawing(result);
-  renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions);
+  painter.paint(drawing, () => showDrawing(result));
+  renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   share.update(result.link); // the address follows the page
 }
 

@@ -40,3 +40,8 @@ export async function openPage(env, { width = 1280, height = 800, hash = '' } = 
   await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
   return { page, context, problems };
 }
+
+/** Waits until the page has written every queued part (web/ui/onscreen.js clears data-stale). */
+export async function settled(page) {
+  await page.waitForSelector('html:not([data-stale])', { state: 'attached', timeout: 5000 });
+}

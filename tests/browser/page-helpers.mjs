@@ -1,8 +1,10 @@
 // Helpers shared by the page tests: read a number from the result tables, wait for one.
 import assert from 'node:assert/strict';
+import { settled } from './harness.mjs';
 
 /** The number in a result cell (minus sign written as U+2212). */
 export async function cell(page, key, col = 'ridden') {
+  await settled(page);
   const text = await page.locator(`#results tr[data-key="${key}"] td[data-col="${col}"]`).first().textContent();
   return Number.parseFloat(text.replace('−', '-').replace(/[^0-9.+-]/g, ''));
 }

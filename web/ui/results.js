@@ -118,18 +118,16 @@ function shapeOf(blocks) {
     : [b.type, b.keys ?? b.items.map((i) => i.cls)])));
 }
 
-/** Every changeable value in render order: row classes, cell texts, notes, list items. */
-function values(blocks) {
+/** Every changeable value of one block in render order: row classes, cell texts, notes, items. */
+function values(b) {
   const out = [];
-  for (const b of blocks) {
-    if (b.type === 'table') {
-      for (const r of b.rows) {
-        out.push(r.cls, ...r.cells.map((c) => c[1]));
-        if (r.note) out.push(r.note);
-      }
-    } else if (b.items) {
-      for (const i of b.items) out.push(i.cls, i.text, i.source ?? '');
+  if (b.type === 'table') {
+    for (const r of b.rows) {
+      out.push(r.cls, ...r.cells.map((c) => c[1]));
+      if (r.note) out.push(r.note);
     }
+  } else if (b.items) {
+    for (const i of b.items) out.push(i.cls, i.text, i.source ?? '');
   }
   return out;
 }
@@ -184,26 +182,46 @@ function buildMissing(b, words) {
 }
 
 let lastShape = '';
-let refs = [];
+let parts = []; // one per block: [element, refs]
 
-/** Renders every table and list for one bike into the container. */
-export function renderResults(container, bike, notes, catalogue, words) {
+function build(b, words) {
+  const refs = [];
+  const node = b.type === 'table' ? buildTable(b, words, refs)
+    : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs);
+  return [node, refs];
+}
+
+/** Writes one block's values into its nodes, touching only what changed. */
+function patch(refs, vals) {
+  vals.forEach((v, i) => {
+    const [node, kind] = refs[i];
+    if (kind === 'class') { if (node.className !== v) node.className = v; }
+    else if (kind === 'text') { if (node.textContent !== v) node.textContent = v; }
+    else if (kind === 'source') { const t = v ? `Source: ${v}` : ''; if (node.textContent !== t) node.textContent = t; }
+  });
+}
+
+/**
+ * Renders every table and list for one bike into the container. An edit that keeps the blocks'
+ * shape (same rows, same columns, same notes) only rewrites changed texts and classes, block by
+ * block through `painter` (ui/onscreen.js): at once for a block on the screen, else in the next
+ * task. A new shape rebuilds every block at once.
+ */
+export function renderResults(container, bike, notes, catalogue, words, painter) {
   const blocks = model(bike, notes ?? {}, catalogue);
   const shape = shapeOf(blocks);
-  const vals = values(blocks);
-  if (shape === lastShape && vals.length === refs.length) {
-    vals.forEach((v, i) => {
-      const [node, kind] = refs[i];
-      if (kind === 'class') { if (node.className !== v) node.className = v; }
-      else if (kind === 'text') { if (node.textContent !== v) node.textContent = v; }
-      else if (kind === 'source') { const t = v ? `Source: ${v}` : ''; if (node.textContent !== t) node.textContent = t; }
+  if (shape === lastShape) {
+    blocks.forEach((b, i) => {
+      const [node, refs] = parts[i];
+      const vals = values(b);
+      painter.paint(node, () => patch(refs, vals));
     });
     return;
   }
   lastShape = shape;
-  refs = [];
-  container.replaceChildren(...blocks.map((b) => (b.type === 'table' ? buildTable(b, words, refs)
-    : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs))));
+  parts = blocks.map((b) => build(b, words));
+  for (const [node] of parts) painter.watch(node);
+  container.replaceChildren(...parts.map(([node]) => node));
 }
 
 /** Tapping a name shows or hides its definition row (the state survives re-rendering). */

@@ -370,18 +370,18 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
             let m = lookup(u.key);
             let label = m.map_or(u.key, |m| m.label);
             let unit = m.map_or("", |m| m.unit.symbol());
-            (u.key, label, u.prior.unwrap_or(u.typical), unit)
+            (label, u.prior.unwrap_or(u.typical), unit)
         })
     };
     for d in plan.priors.iter().filter_map(|&u| describe(u)) {
         out.push(Warning::new(
             "assumed",
             format!(
-                "{} is not fixed by the published numbers: assumed {} {} (give {} to replace it).",
-                d.1,
-                fmt_num(d.2),
-                d.3,
-                d.0
+                "{} is not fixed by the published numbers: assumed {} {} (enter the published \
+                 value to replace it).",
+                d.0,
+                fmt_num(d.1),
+                d.2
             ),
         ));
     }
@@ -390,7 +390,7 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
             .pinned
             .iter()
             .filter_map(|&u| describe(u))
-            .map(|d| format!("{} {} {}", d.1.to_lowercase(), fmt_num(d.2), d.3))
+            .map(|d| format!("{} {} {}", d.0.to_lowercase(), fmt_num(d.1), d.2))
             .collect();
         out.push(Warning::new(
             "underdetermined",

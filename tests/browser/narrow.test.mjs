@@ -1,0 +1,34 @@
+// Narrow phones (320 px) and 360 px windows that show a scrollbar (345 px of page): the drawing's
+// toolbar and the jump links stay on one row, nothing scrolls sideways, targets stay ≥ 44 px.
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { startAll, openPage, SHOTS } from './harness.mjs';
+
+let env;
+before(async () => { env = await startAll(); });
+after(async () => { await env?.stop(); });
+
+for (const width of [320, 345, 360]) {
+  test(`${width} px: toolbar and jump links on one row`, { timeout: 60000 }, async () => {
+    const { page, problems } = await openPage(env, { width, height: 740 });
+    const m = await page.evaluate(() => {
+      const tops = (sel) => [...document.querySelectorAll(sel)].map((e) => Math.round(e.getBoundingClientRect().top));
+      const sizes = [...document.querySelectorAll('.toolbar label, .toolbar .toggle, #fit-view')]
+        .map((e) => { const r = e.getBoundingClientRect(); return Math.min(r.width, r.height); });
+      return {
+        toolbar: new Set(tops('.toolbar label, .toolbar .toggle')).size,
+        jump: new Set(tops('.jump a')).size,
+        jumpHeights: [...document.querySelectorAll('.jump a')].map((e) => e.getBoundingClientRect().height),
+        sideways: document.documentElement.scrollWidth - window.innerWidth,
+        smallest: Math.min(...sizes),
+      };
+    });
+    assert.equal(m.toolbar, 1, 'toolbar controls share one row');
+    assert.equal(m.jump, 1, 'jump links share one row');
+    assert.ok(m.jumpHeights.every((h) => h < 50), `jump links are one line high: ${m.jumpHeights}`);
+    assert.equal(m.sideways, 0, 'nothing scrolls sideways');
+    assert.ok(m.smallest >= 44, `touch targets at least 44 px, smallest ${m.smallest}`);
+    await page.screenshot({ path: `${SHOTS}/narrow-${width}.png`, clip: { x: 0, y: 0, width, height: 420 } });
+    assert.deepEqual(problems, []);
+  });
+}

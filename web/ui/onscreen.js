@@ -1,0 +1,78 @@
+// What is on the screen is written at once; what is off it is written in the next task.
+//
+// Writing a changed number costs Chromium a re-layout of its text (about 50 µs a number on the
+// build machine, four times that with the CPU slowed like a phone's), and one edit changes 20–70
+// numbers, mostly in tables the person cannot see at that moment. So every part of the page that
+// an edit rewrites (the drawing, each result table or list) is painted through `paint`: at once
+// when the part is on or near the screen, else queued. The queue is written in the next task
+// (a run of quick edits writes only the last values), or earlier when a queued part scrolls near
+// the screen. The document never stays stale: `<html data-stale>` is set while anything is queued
+// and removed when the queue is written (tests and the benchmark wait for it).
+
+const MARGIN = '50%'; // "near": within half a screen of the viewport
+
+/**
+ * Returns { watch(el), paint(el, fn), flush(), settled() }.
+ * watch(el): track whether el is near the screen. paint(el, fn): run fn now when el is near the
+ * screen (or not yet known to be off it), else queue it (replacing what was queued for el).
+ * flush(): write the queue now. settled(): a promise for the moment the queue is empty.
+ */
+export function createPainter() {
+  const offscreen = new WeakSet(); // parts known to be away from the screen
+  const queued = new Map(); // part → the latest write for it
+  let timer = 0;
+  let waiters = [];
+  const root = document.documentElement;
+
+  const observer = new IntersectionObserver((entries) => {
+    for (const e of entries) {
+      if (e.isIntersecting) {
+        offscreen.delete(e.target);
+        run(e.target);
+      } else {
+        offscreen.add(e.target);
+      }
+    }
+  }, { rootMargin: `${MARGIN} 0px ${MARGIN} 0px` });
+
+  function run(el) {
+    const write = queued.get(el);
+    if (!write) return;
+    queued.delete(el);
+    write();
+    if (!queued.size) done();
+  }
+
+  function done() {
+    clearTimeout(timer);
+    timer = 0;
+    delete root.dataset.stale;
+    const w = waiters;
+    waiters = [];
+    for (const ok of w) ok();
+  }
+
+  function flush() {
+    for (const el of [...queued.keys()]) run(el);
+    if (!queued.size) done();
+  }
+
+  return {
+    watch(el) { observer.observe(el); },
+    paint(el, write) {
+      if (!offscreen.has(el)) {
+        queued.delete(el);
+        write();
+        if (!queued.size && timer) done();
+        return;
+      }
+      queued.set(el, write);
+      root.dataset.stale = 'true';
+      if (!timer) timer = setTimeout(flush, 0);
+    },
+    flush,
+    settled() {
+      return queued.size ? new Promise((ok) => waiters.push(ok)) : Promise.resolve();
+    },
+  };
+}
