@@ -69,7 +69,9 @@ fn typical_sheet_is_solved_exactly() {
     // Effective seat angle and effective top tube both see only the seat axis point at stack
     // height: the seat axis offset takes its stated prior (0 mm, true here).
     assert_eq!(sol.warnings.len(), 1, "{:?}", sol.warnings);
-    assert!(sol.warnings[0].message.starts_with("Seat axis offset is not fixed"));
+    assert!(sol.warnings[0]
+        .message
+        .starts_with("Seat axis offset is not fixed"));
 }
 
 #[test]
