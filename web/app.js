@@ -5,7 +5,7 @@ import { buildForm, readForm, clearMessages, showErrors, setField } from './ui/f
 import { renderResults, wireDefinitions } from './ui/results.js';
 import { attachZoom } from './ui/zoom.js';
 import { attachView, getView, applyView } from './ui/view.js';
-import { attachChart } from './ui/chart.js';
+import { attachChart } from './ui/chart.js'; // its wasm module loads on the first paste
 import { initShare } from './ui/share.js'; // share links (issue 6)
 import { registerOffline } from './ui/offline.js'; // offline use (issue 6)
 import { createPainter } from './ui/onscreen.js';
@@ -107,7 +107,7 @@ function applySize(size) {
   update();
 }
 
-attachChart(document.getElementById('chart'), wasm.import_chart_with_answers, applySize);
+attachChart(document.getElementById('chart'), applySize);
 
 form.addEventListener('input', update);
 document.addEventListener('framewise:view', () => share.update());

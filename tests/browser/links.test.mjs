@@ -132,6 +132,8 @@ test('the QR code of the link is drawn as SVG and the page asks nothing of other
   await page.goto(env.base + golden('v1-one-bike'));
   await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
   await page.click('#share-qr-toggle');
+  // The QR encoder is in the on-demand module: the first "Show QR code" loads it.
+  await page.waitForSelector('#share-qr svg[role="img"] path', { timeout: 10000 });
   assert.equal(await page.locator('#share-qr svg[role="img"] path').count(), 1);
   assert.equal(await page.locator('#share-qr-toggle').getAttribute('aria-expanded'), 'true');
   await page.setViewportSize({ width: 360, height: 740 });

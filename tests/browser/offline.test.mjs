@@ -1,6 +1,6 @@
 // Browser tests of offline use (issue 6): the service worker's precache list is exactly the
 // page's files, a missing file fails the install, and after one visit the page opens and draws
-// with the server gone.
+// with the server gone, and a pasted chart is read (the on-demand module comes from the cache).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync, readdirSync, statSync, cpSync, rmSync, mkdtempSync } from 'node:fs';
@@ -84,6 +84,14 @@ test('after one visit the page opens and draws with the server stopped', T, asyn
     assert.equal(await page.locator('#drawing svg .ridden .tyre').count(), 2);
     assert.equal(await page.inputValue('input[name="frame.head_angle_deg"]'), '64.5');
     for (const path of ['/', '/app.js', '/pkg/framewise_bg.wasm']) {
+      assert.ok(fromWorker.includes(path), `${path} not from the worker: ${fromWorker}`);
+    }
+    // The chart importer (the on-demand module, never loaded online here) works offline too:
+    // the worker precached it on the first visit.
+    await page.fill('#chart-text', 'Size\tS\tM\nReach\t450\t475\nStack\t620\t630\n');
+    await page.click('#chart-read');
+    await page.waitForSelector('#chart-out button.size[data-size="M"]', { timeout: 10000 });
+    for (const path of ['/pkg/framewise_extras.js', '/pkg/framewise_extras_bg.wasm']) {
       assert.ok(fromWorker.includes(path), `${path} not from the worker: ${fromWorker}`);
     }
     // A second tab with no network at all also opens from the cache.

@@ -15,12 +15,19 @@ const T = { timeout: 60000 };
 const SIZES = [['phone', 360, 740], ['desk', 1280, 800]];
 const chart = (name) => readFileSync(`${ROOT}tests/charts/${name}`, 'utf8');
 const rad = (d) => (d * Math.PI) / 180;
+// The first read loads the importer's wasm module (on demand): wait for its answer. Later reads
+// are answered in the same task as the click.
+const firstRead = (page) => page.waitForFunction(() => {
+  const out = document.querySelector('#chart-out');
+  return out.children.length > 0 && !out.querySelector('.chart-loading');
+}, null, { timeout: 10000 });
 
 for (const [name, width, height] of SIZES) {
   test(`${name}: paste a chart, pick a size, see its numbers`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     await page.fill('#chart-text', chart('01_web_tab_columns.txt'));
     await page.click('#chart-read');
+    await firstRead(page);
     assert.deepEqual(await page.locator('#chart-out button.size').allTextContents(), ['S', 'M', 'L', 'XL']);
     await page.click('#chart-out button.size[data-size="L"]');
     assert.equal(await page.locator('#chart-out button.size[data-size="L"]').getAttribute('aria-pressed'), 'true');
@@ -52,6 +59,7 @@ for (const [name, width, height] of SIZES) {
     const { page, context, problems } = await openPage(env, { width, height });
     await page.fill('#chart-text', chart('09_unknown_rows.txt'));
     await page.click('#chart-read');
+    await firstRead(page);
     const unknown = await page.locator('#chart-out .chart-unrecognised li').allTextContents();
     assert.ok(unknown.some((t) => /Stem length/.test(t)), unknown.join(' | '));
     assert.ok(unknown.some((t) => /Rider height/.test(t)), unknown.join(' | '));

@@ -1,6 +1,20 @@
 // The paste box: geometry chart text → the importer in wasm → a size run; picking a size fills
 // the frame and wheel fields. Rows the importer did not recognise, its questions and its notes
 // are listed, never dropped.
+// The importer (and the QR code, ui/share.js) live in a second wasm module, pkg/framewise_extras,
+// that the first view never requests: it is loaded on the first paste or "Read the chart".
+
+let extras = null;
+/**
+ * The on-demand module, initialised: one load shared by every caller; a failed load is
+ * forgotten, so the next call tries again.
+ */
+export function loadExtras() {
+  extras ??= import('../pkg/framewise_extras.js')
+    .then(async (m) => { await m.default(); return m; })
+    .catch((e) => { extras = null; throw e; });
+  return extras;
+}
 
 function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);
@@ -32,15 +46,33 @@ function questionList(questions, answers, reread) {
 }
 
 /**
- * Wires the paste box. `importChart(text, answersJson) → JSON text` is the wasm binding;
- * `apply(size)` fills the form from `{label, frame, wheels}` and recomputes.
+ * Wires the paste box. `apply(size)` fills the form from `{label, frame, wheels}` and
+ * recomputes. The importer (`import_chart_with_answers(text, answersJson) → JSON text`) is
+ * loaded on the first paste or press of "Read the chart".
  */
-export function attachChart(section, importChart, apply) {
+export function attachChart(section, apply) {
   section.hidden = false;
   const text = section.querySelector('#chart-text');
   const out = section.querySelector('#chart-out');
+  const button = section.querySelector('#chart-read');
   let answers = {};
   let picked = null;
+  let importChart = null;
+  async function load() {
+    if (importChart) return true;
+    out.replaceChildren(el('p', { class: 'chart-loading' }, 'Loading the chart reader…'));
+    button.disabled = true;
+    try {
+      importChart = (await loadExtras()).import_chart_with_answers;
+      return true;
+    } catch {
+      out.replaceChildren(el('p', { class: 'chart-error', role: 'alert' },
+        'The chart reader could not be loaded. Check the connection and press "Read the chart" again.'));
+      return false;
+    } finally {
+      button.disabled = false;
+    }
+  }
   function read() {
     const run = JSON.parse(importChart(text.value, JSON.stringify(answers)));
     const sizes = run.sizes ?? [];
@@ -68,5 +100,12 @@ export function attachChart(section, importChart, apply) {
     parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : n.message)), 'chart-notes'));
     out.replaceChildren(...parts.filter(Boolean));
   }
-  section.querySelector('#chart-read').addEventListener('click', () => { answers = {}; picked = null; read(); });
+  // A paste starts the load, so the reader is usually there by the time the button is pressed.
+  text.addEventListener('paste', () => { loadExtras().catch(() => {}); });
+  button.addEventListener('click', () => {
+    answers = {};
+    picked = null;
+    if (importChart) read(); // once loaded, the chart is read at once, in the same task
+    else load().then((ok) => { if (ok) read(); });
+  });
 }

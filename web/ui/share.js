@@ -2,7 +2,10 @@
 // where the browser has one, a QR code of the link, and opening a link fills the page.
 // Every encoding and decoding is done in Rust (crates/web/src/link.rs); this file only moves text.
 // Text from a link is only ever written with .value / .textContent, never as markup.
-import { link_from_form, form_from_link, qr_svg } from '../pkg/framewise.js';
+// The QR encoder is in the on-demand module (pkg/framewise_extras), loaded on the first
+// "Show QR code"; the first view never requests it.
+import { link_from_form, form_from_link } from '../pkg/framewise.js';
+import { loadExtras } from './chart.js';
 
 const byId = (id) => document.getElementById(id);
 
@@ -61,9 +64,24 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     return getView ? getView() : view;
   }
 
-  function showQr() {
+  let qrSvg = null;
+  async function showQr() {
+    if (!qrSvg) {
+      const loading = document.createElement('p');
+      loading.textContent = 'Loading the QR code…';
+      qr.replaceChildren(loading);
+      try {
+        qrSvg = (await loadExtras()).qr_svg;
+      } catch {
+        qr.replaceChildren();
+        shown(false);
+        say('The QR code could not be loaded. Check the connection and press "Show QR code" again.', 'bad');
+        return;
+      }
+      if (qr.hidden) return;
+    }
     try {
-      const doc = new DOMParser().parseFromString(qr_svg(location.href), 'image/svg+xml');
+      const doc = new DOMParser().parseFromString(qrSvg(location.href), 'image/svg+xml');
       qr.replaceChildren(document.importNode(doc.documentElement, true));
     } catch (e) {
       qr.replaceChildren();
@@ -135,11 +153,14 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     });
   }
 
-  qrToggle.addEventListener('click', () => {
-    const show = qr.hidden;
+  function shown(show) {
     qr.hidden = !show;
     qrToggle.setAttribute('aria-expanded', String(show));
     qrToggle.textContent = show ? 'Hide QR code' : 'Show QR code';
+  }
+  qrToggle.addEventListener('click', () => {
+    const show = qr.hidden;
+    shown(show);
     if (show) showQr();
   });
 

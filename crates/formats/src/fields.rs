@@ -82,7 +82,7 @@ pub struct Group {
 }
 
 /// The input groups in page order.
-pub const GROUPS: &[Group] = &[
+pub static GROUPS: &[Group] = &[
     Group {
         id: "frame",
         title: "Frame numbers from the listing",

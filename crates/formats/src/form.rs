@@ -102,7 +102,7 @@ pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<F
 /// one and the word is allowed; an error naming the allowed words otherwise.
 fn choice(name: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<String> {
     let f = field(name).filter(|f| f.kind == Kind::Choice)?;
-    let word = text.trim().to_lowercase();
+    let word = text.trim().to_ascii_lowercase(); // the allowed words are ASCII
     if f.choices.contains(&word.as_str()) {
         return Some(word);
     }

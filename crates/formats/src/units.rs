@@ -97,7 +97,9 @@ pub fn parse_quantity(text: &str, q: Quantity) -> Result<f64, UnitError> {
     if t.is_empty() {
         return Err(UnitError::Empty { accepted });
     }
-    let lower = t.to_lowercase();
+    // Unit words are ASCII (the marks ° ″ have no case): ASCII lower case is enough and keeps
+    // the Unicode case tables out of the wasm module.
+    let lower = t.to_ascii_lowercase();
     let bad = || UnitError::NotANumber {
         text: t.to_string(),
         accepted,

@@ -98,7 +98,7 @@ macro_rules! m {
 }
 
 /// Every §5 frame measurement, in the order the page lists them.
-pub const CATALOGUE: &[Measurement] = &[
+pub static CATALOGUE: &[Measurement] = &[
     m!("reach_mm", "Reach", Mm, 250.0, 560.0, 100.0, 800.0,
        "Horizontal distance from the bottom bracket centre to the centre of the top of the head tube."),
     m!("stack_mm", "Stack", Mm, 450.0, 700.0, 250.0, 900.0,

@@ -27,7 +27,7 @@ macro_rules! t {
 
 /// Definitions of the report's other numbers (derived, cockpit, fit, handling).
 #[rustfmt::skip]
-pub const TERMS: &[Term] = &[
+pub static TERMS: &[Term] = &[
     t!("mechanical_trail_mm", "Mechanical trail", "Trail measured square to the steering axis: ground trail times the sine of the head angle."),
     t!("wheel_flop_mm", "Wheel flop", "How far the front of the bike drops as the bar turns: trail times the sine and cosine of the head angle."),
     t!("steer_axis_height_at_axle_mm", "Steering axis height at the axle", "Height of the steering axis above the ground on the vertical through the front axle."),

@@ -126,7 +126,7 @@ fn wheel(bsd_mm: f64, width_mm: f64) -> Option<Wheel> {
 fn parse_designation(text: &str) -> Option<Wheel> {
     let t: String = text
         .trim()
-        .to_lowercase()
+        .to_ascii_lowercase() // designations are ASCII: only ASCII case matters
         .chars()
         .filter(|c| !c.is_whitespace())
         .collect();

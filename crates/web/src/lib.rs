@@ -3,33 +3,22 @@
 
 use wasm_bindgen::prelude::*;
 
-mod chart;
-pub use chart::{import_chart, import_chart_with_answers};
-// Share links and QR codes (issue 6): link_from_form, form_from_link, qr_svg.
+// Share links (issue 6): link_from_form, form_from_link. The chart importer and the QR code are
+// in the on-demand module (crates/extras), kept out of the module every visit loads.
 pub mod link;
 
-/// Evaluates a scenario given as JSON text; returns `{report, svg}` as JSON text.
-/// Bad input never throws: errors come back in `report.errors`.
-#[wasm_bindgen]
-pub fn evaluate_json(scenario_json: &str) -> String {
-    framewise_web_core::evaluate_to_json(scenario_json)
-}
+// Not exported to the page (it never calls them; each export keeps its code in the module):
+// scenario JSON and the form without its link are evaluated by the native core functions
+// `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI).
 
-/// Evaluates the page's form: `{ "<field name>": "<typed text>", … }` as JSON text. Returns
-/// `{report, svg, field_errors}` as JSON text, where each error's `field` is a form field name.
-#[wasm_bindgen]
-pub fn evaluate_form(fields_json: &str) -> String {
-    framewise_web_core::evaluate_form_to_json(fields_json)
-}
-
-/// As [`evaluate_form`], plus the share link of the same form: `view_json` is the view choices as
-/// a JSON object (or empty). The result has one more member, `link`: the link fragment with its
-/// leading `#`, or `null` when a field does not read or the link cannot hold a value. One call
-/// instead of two: the form is read once for the drawing, the tables and the link.
-///
-/// The page's call on every edit, so its `svg` is `null`: the drawing comes as `drawing`
-/// (`{structure, patch}`, applied in place) and [`drawing_svg`] gives the document when the
-/// structure changed.
+/// Evaluates the page's form and makes its share link. `fields_json`: `{ "<field name>":
+/// "<typed text>", … }`; `view_json`: the view choices as a JSON object (or empty). Returns
+/// `{report, svg, drawing, notes, field_errors, link}` as JSON text: each error's `field` is a
+/// form field name; `link` is the link fragment with its leading `#`, or `null` when a field does
+/// not read or the link cannot hold a value. One call: the form is read once for the drawing, the
+/// tables and the link. The page's call on every edit, so `svg` is `null`: the drawing comes as
+/// `drawing` (`{structure, patch}`, applied in place) and [`drawing_svg`] gives the document
+/// when the structure changed.
 #[wasm_bindgen]
 pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
     framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)

@@ -1,4 +1,5 @@
-//! Share links on the page: the form ↔ a link fragment, and a QR code of the link as SVG.
+//! Share links on the page: the form ↔ a link fragment. The QR code of a link is drawn by the
+//! on-demand module (crates/extras), not here.
 //! The wasm functions only convert; the logic is in [`link_core`], tested natively.
 
 use wasm_bindgen::prelude::*;
@@ -24,21 +25,10 @@ pub fn form_from_link(link: &str) -> Result<String, JsError> {
     link_core::form_from_link(link).map_err(|e| JsError::new(&e))
 }
 
-/// A QR code of `text` as SVG markup (black modules on white, 4-module quiet zone).
-///
-/// # Errors
-/// Text too long for a QR code.
-#[wasm_bindgen]
-pub fn qr_svg(text: &str) -> Result<String, JsError> {
-    link_core::qr_svg(text).map_err(|e| JsError::new(&e))
-}
-
 /// Native-testable core of the link functions: text in, text or a message out.
 pub mod link_core {
     use framewise_formats::{decode_link, encode_link, form_view, scenario_from_form};
     use framewise_kernel::View;
-    use qrcode::render::svg;
-    use qrcode::QrCode;
     use std::collections::BTreeMap;
 
     /// See [`super::link_from_form`].
@@ -68,29 +58,6 @@ pub mod link_core {
     pub fn form_from_link(link: &str) -> Result<String, String> {
         let scenario = decode_link(link).map_err(|e| e.to_string())?;
         serde_json::to_string(&form_view(&scenario)).map_err(|e| e.to_string())
-    }
-
-    /// See [`super::qr_svg`].
-    ///
-    /// # Errors
-    /// Text too long for any QR code version.
-    pub fn qr_svg(text: &str) -> Result<String, String> {
-        let code = QrCode::new(text.as_bytes())
-            .map_err(|e| format!("the link is too long for a QR code: {e}"))?;
-        let image = code
-            .render::<svg::Color>()
-            .min_dimensions(240, 240)
-            .dark_color(svg::Color("#000"))
-            .light_color(svg::Color("#fff"))
-            .build();
-        let body = image
-            .split_once("?>")
-            .map_or(image.as_str(), |(_, rest)| rest);
-        Ok(body.replacen(
-            "<svg ",
-            "<svg role=\"img\" aria-label=\"QR code of this link\" class=\"qr\" ",
-            1,
-        ))
     }
 }
 
@@ -123,21 +90,6 @@ mod tests {
         assert!(e.starts_with("frame.reach_mm:"), "{e}");
         let e = form_from_link("#AdwCeInU").unwrap_err();
         assert!(e.contains("copy the whole link again"), "{e}");
-    }
-
-    #[test]
-    fn the_qr_code_has_the_size_the_standard_gives_for_its_length() {
-        // Source: ISO/IEC 18004, capacity table [memory]: byte mode at error correction level M
-        // holds 84 bytes in version 5 and 106 in version 6, so 100 bytes need version 6,
-        // 17 + 4·6 = 41 modules a side, plus a 4-module quiet zone on each side = 49.
-        let text = "x".repeat(100);
-        let svg = qr_svg(&text).unwrap();
-        assert!(svg.starts_with("<svg role=\"img\""), "{}", &svg[..60]);
-        let vb = svg.split("viewBox=\"0 0 ").nth(1).unwrap();
-        let w: u32 = vb.split(' ').next().unwrap().parse().unwrap();
-        assert_eq!(w % 49, 0, "viewBox width {w}");
-        assert!(!svg.contains("style") && !svg.contains("<script"));
-        assert!(qr_svg(&"x".repeat(4000)).is_err());
     }
 
     #[test]

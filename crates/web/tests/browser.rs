@@ -5,11 +5,15 @@ use wasm_bindgen_test::*;
 
 wasm_bindgen_test_configure!(run_in_browser);
 
-const DEMO: &str = include_str!("../../../tests/scenarios/demo.json");
+// An invented bike as the page's form sends it (field name → typed text).
+const FORM: &str = r#"{"label":"Trail M","frame.reach_mm":"470","frame.stack_mm":"635",
+    "frame.head_angle_deg":"65","frame.head_tube_mm":"110","frame.fork_a2c_mm":"561",
+    "frame.fork_offset_mm":"44","wheels.front":"29x2.4","wheels.rear":"29x2.4",
+    "setup.stem_mm":"45","rider.height_mm":"1780"}"#;
 
 #[wasm_bindgen_test]
-fn demo_scenario_evaluates_and_draws_in_the_browser() {
-    let out = framewise_web::evaluate_json(DEMO);
+fn a_form_evaluates_draws_and_links_in_the_browser() {
+    let out = framewise_web::evaluate_form_linked(FORM, "");
     let v: serde_json::Value = serde_json::from_str(&out).unwrap_or_default();
     assert_eq!(v["report"]["errors"].as_array().map(Vec::len), Some(0));
     // Source: trail T = (R cos h − o) / sin h (Wikipedia, "Bicycle and motorcycle geometry"),
@@ -25,28 +29,18 @@ fn demo_scenario_evaluates_and_draws_in_the_browser() {
         "trail {trail} expected {expected}"
     );
     assert!(v["svg"].as_str().is_some_and(|s| s.starts_with("<svg")));
+    // The link of the same form opens into the same numbers.
+    let link = v["link"].as_str().unwrap_or_default();
+    let opened: serde_json::Value = serde_json::from_str(
+        &framewise_web::link::link_core::form_from_link(link).unwrap_or_default(),
+    )
+    .unwrap_or_default();
+    assert_eq!(opened["fields"]["frame.head_angle_deg"], "65");
 }
 
 #[wasm_bindgen_test]
 fn text_in_a_number_field_is_an_error_not_a_throw() {
-    let out = framewise_web::evaluate_form(r#"{"frame.reach_mm":"abc"}"#);
+    let out = framewise_web::evaluate_form_linked(r#"{"frame.reach_mm":"abc"}"#, "");
     let v: serde_json::Value = serde_json::from_str(&out).unwrap_or_default();
     assert_eq!(v["field_errors"][0]["field"], "frame.reach_mm");
-}
-
-#[wasm_bindgen_test]
-fn a_pasted_chart_becomes_a_size_run_in_the_browser() {
-    // Invented chart: sizes as columns, tab-separated, reach in inches with marks.
-    let out = framewise_web::import_chart(
-        "Size\tS\tM\nReach\t17\"\t18.5\"\nHead angle\t65°\t65°\nSaddle\t1\t2\n",
-    );
-    let v: serde_json::Value = serde_json::from_str(&out).unwrap_or_default();
-    // Source: 1 in = 25.4 mm exactly; 18.5 in = 469.9 mm.
-    assert_eq!(v["sizes"][1]["label"], "M");
-    assert_eq!(v["sizes"][1]["frame"]["reach_mm"], 469.9);
-    assert_eq!(v["sizes"][0]["frame"]["head_angle_deg"], 65.0);
-    assert_eq!(v["unrecognised"][0], "Saddle");
-    let bad: serde_json::Value =
-        serde_json::from_str(&framewise_web::import_chart("")).unwrap_or_default();
-    assert_eq!(bad["error"]["code"], "empty_chart");
 }

@@ -280,7 +280,7 @@ fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldEr
                         format!(
                             "wheelbase {} mm is not longer than the {} of {} mm; it must be longer (wheelbase = front centre + rear centre)",
                             fmt_num(wb),
-                            lookup(part).map_or(part, |m| m.label).to_lowercase(),
+                            lookup(part).map_or(part, |m| m.label).to_ascii_lowercase(),
                             fmt_num(p)
                         ),
                     ));
@@ -329,7 +329,7 @@ fn postcheck(
                 format!("{prefix}.{key}"),
                 format!(
                     "together the published numbers put the {} at {} {}, which no frame can have (allowed {} to {} {}); check the values",
-                    m.label.to_lowercase(),
+                    m.label.to_ascii_lowercase(),
                     fmt_num(v),
                     m.unit.symbol(),
                     fmt_num(m.hard.0),
@@ -390,7 +390,7 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
             .pinned
             .iter()
             .filter_map(|&u| describe(u))
-            .map(|d| format!("{} {} {}", d.0.to_lowercase(), fmt_num(d.1), d.2))
+            .map(|d| format!("{} {} {}", d.0.to_ascii_lowercase(), fmt_num(d.1), d.2))
             .collect();
         out.push(Warning::new(
             "underdetermined",
