@@ -1,6 +1,6 @@
 // Pinch, wheel and drag zoom and pan on the drawing, by changing the SVG viewBox. The drawing
 // arrives fitted to the bike; once the person zooms, the chosen view is kept across redraws
-// until "Fit" is pressed.
+// (restore) and patches (refit) until "Fit" is pressed.
 
 export function attachZoom(container, fitButton) {
   let view = null; // [x, y, w, h] chosen by the person, or null = the drawing's own fit
@@ -93,6 +93,13 @@ export function attachZoom(container, fitButton) {
   return {
     /** Re-applies the chosen view to a freshly drawn SVG. */
     restore: apply,
+    /** A patched drawing's new fit: shown unless the person has zoomed, kept for "Fit". */
+    refit(box) {
+      const s = svg();
+      if (!s) return;
+      s.dataset.fit = box;
+      if (!view) s.setAttribute('viewBox', box);
+    },
     /** True when the person has zoomed or panned away from the fit. */
     get zoomed() { return view !== null; },
   };

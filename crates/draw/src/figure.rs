@@ -1,64 +1,108 @@
 //! The rider figure and the centre of mass with its lines to the tyre contacts.
 
-use crate::shapes::{circle, line, mid, num, polyline, text};
+use crate::model::Node;
+use crate::shapes::{mid, num, text, PathData};
 use crate::Limits;
 use framewise_kernel::report::{Leg, RiderFigure, Xy};
 use framewise_kernel::Outline;
-use svg::node::element::Group;
 
-fn leg(hip: Xy, l: &Leg, class: &str) -> Group {
-    Group::new()
-        .set("class", format!("leg {class}"))
-        .add(polyline(&[hip, l.knee, l.ankle], "limb"))
-        .add(polyline(&[l.ankle, l.heel, l.toe, l.ball, l.ankle], "foot"))
+/// The hip joint's drawn radius, mm.
+const JOINT_R: f64 = 14.0;
+/// The centre-of-mass mark's radius, mm.
+const COM_R: f64 = 24.0;
+
+fn foot(l: &Leg) -> [Xy; 5] {
+    [l.ankle, l.heel, l.toe, l.ball, l.ankle]
 }
 
-/// The rider as a stick figure: far leg, torso, head, arm, near leg.
-pub fn rider(f: &RiderFigure) -> Group {
+/// The rider as a stick figure, keys prefixed by `posture`: the far leg (its own group, drawn
+/// fainter), then torso, head, the near limbs (neck, arm, near leg: one path), the near foot
+/// and the hip joint. One colour under one group opacity, so merging limbs changes nothing seen.
+pub fn rider(f: &RiderFigure, posture: &str) -> Node {
     let [near, far] = f.legs;
-    Group::new()
-        .set("class", "rider")
-        .add(leg(f.hip, &far, "far"))
-        .add(line(f.hip, f.shoulder, "limb torso"))
-        .add(line(f.shoulder, f.head, "limb neck"))
-        .add(circle(f.head, f.head_radius, "head"))
-        .add(polyline(&[f.shoulder, f.elbow, f.hand], "limb arm"))
-        .add(leg(f.hip, &near, "near"))
-        .add(circle(f.hip, 14.0, "joint"))
+    let k = |name: &str| format!("{posture}-{name}");
+    let far_leg = Node::Group {
+        class: "leg far".into(),
+        children: vec![
+            PathData::new()
+                .polyline(&[f.hip, far.knee, far.ankle])
+                .node(k("far-limb"), "limb"),
+            PathData::new()
+                .polyline(&foot(&far))
+                .node(k("far-foot"), "foot"),
+        ],
+    };
+    let limbs = PathData::new()
+        .line(f.shoulder, f.head)
+        .polyline(&[f.shoulder, f.elbow, f.hand])
+        .polyline(&[f.hip, near.knee, near.ankle]);
+    Node::Group {
+        class: "rider".into(),
+        children: vec![
+            far_leg,
+            PathData::new()
+                .line(f.hip, f.shoulder)
+                .node(k("torso"), "limb torso"),
+            PathData::new()
+                .circle(f.head, f.head_radius)
+                .node(k("head"), "head"),
+            limbs.node(k("limbs"), "limb"),
+            PathData::new()
+                .polyline(&foot(&near))
+                .node(k("foot"), "foot"),
+            PathData::new()
+                .circle(f.hip, JOINT_R)
+                .node(k("joint"), "joint"),
+        ],
+    }
 }
 
 /// The centre of mass, its lines to both contact points, and the limits written on them.
-pub fn com(c: Xy, o: &Outline, limits: &Limits) -> Group {
-    let mut g = Group::new()
-        .set("class", "com")
-        .add(line(c, o.rear_contact, "tip-line rear"))
-        .add(line(c, o.front_contact, "tip-line front"))
-        .add(circle(c, 24.0, "com-mark"))
-        .add(line([c[0] - 24.0, c[1]], [c[0] + 24.0, c[1]], "com-cross"))
-        .add(line([c[0], c[1] - 24.0], [c[0], c[1] + 24.0], "com-cross"));
+pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
+    let k = |name: &str| format!("{posture}-{name}");
+    let mut kids = vec![
+        PathData::new()
+            .line(c, o.rear_contact)
+            .line(c, o.front_contact)
+            .node(k("tip-lines"), "tip-line"),
+        PathData::new()
+            .circle(c, COM_R)
+            .node(k("com-mark"), "com-mark"),
+        PathData::new()
+            .line([c[0] - COM_R, c[1]], [c[0] + COM_R, c[1]])
+            .line([c[0], c[1] - COM_R], [c[0], c[1] + COM_R])
+            .node(k("com-cross"), "com-cross"),
+    ];
+    let class = "label com-label";
     if let Some(b) = limits.braking_g {
-        g = g.add(text(
+        kids.push(text(
+            k("braking"),
             [c[0] + 40.0, c[1] + 30.0],
-            &format!("braking limit {} g", num(b, 2)),
+            format!("braking limit {} g", num(b, 2)),
             "start",
-            "label com-label",
+            class,
         ));
     }
     if let Some(d) = limits.climb_deg {
-        g = g.add(text(
+        kids.push(text(
+            k("climb"),
             mid(c, o.rear_contact),
-            &format!("climb {}°", num(d, 0)),
+            format!("climb {}°", num(d, 0)),
             "end",
-            "label com-label",
+            class,
         ));
     }
     if let Some(d) = limits.descent_deg {
-        g = g.add(text(
+        kids.push(text(
+            k("descent"),
             mid(c, o.front_contact),
-            &format!("descent {}°", num(d, 0)),
+            format!("descent {}°", num(d, 0)),
             "start",
-            "label com-label",
+            class,
         ));
     }
-    g
+    Node::Group {
+        class: "com".into(),
+        children: kids,
+    }
 }

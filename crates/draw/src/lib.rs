@@ -8,20 +8,28 @@
 //! (`posture-standing`, `show-dims`, `hide-ghost`), so a toggle needs no new drawing.
 //! Lengths are in millimetres (the viewBox is the bike in mm), so strokes and text scale with
 //! the bike; thin annotation lines use `vector-effect: non-scaling-stroke` in the page's CSS.
+//!
+//! **Few elements, stable structure:** the lines, polylines and circles that share a class in
+//! one layer are one `<path>` (a circle is two arcs); numbers are written at 0.1 mm by our own
+//! integer writer ([`num`]). Every path and text has a stable key (`data-k`) and the set of
+//! elements depends only on which parts exist, so the page patches the changed values
+//! ([`Drawing::patch`]) instead of replacing the document when [`Drawing::structure`] is
+//! unchanged. One model ([`drawing`]), two serialisations ([`Drawing::svg`], [`Drawing::patch`]).
 #![deny(missing_docs)]
 
 mod dims;
 mod figure;
+pub mod model;
+pub mod num;
 mod parts;
 mod shapes;
 
+pub use model::{Drawing, Node, Patch};
 pub use shapes::flip;
 
 use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::{BikeReport, Outline};
-use shapes::{line, round};
-use svg::node::element::{Group, Title};
-use svg::Document;
+use shapes::PathData;
 
 /// The handling limits written on the centre-of-mass lines, for one posture.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
@@ -88,9 +96,14 @@ pub fn extent(o: &Outline) -> (f64, f64, f64, f64) {
     )
 }
 
+/// The side view of one scene as an SVG document (see [`drawing`]).
+pub fn draw(scene: &Scene) -> String {
+    drawing(scene).svg()
+}
+
 /// The side view of one scene: ground, the stock ghost, the ridden bike, riders, centres of
 /// mass and dimensions, fitted to its own extent.
-pub fn draw(scene: &Scene) -> String {
+pub fn drawing(scene: &Scene) -> Drawing {
     let o = scene.ridden;
     let (x0, y0, x1, y1) = extent(o);
     let (gx0, gy0, gx1, gy1) = extent(scene.stock);
@@ -99,25 +112,16 @@ pub fn draw(scene: &Scene) -> String {
     let max_x = x1.max(gx1) + pad;
     let top = y1.max(gy1) + pad * 1.8;
     let bottom = y0.min(gy0) - pad * 2.0;
-    let title = format!("Side view of {}", scene.label);
-    let ground = line([min_x, o.ground_y], [max_x, o.ground_y], "ground");
-    let mut doc = Document::new()
-        .set(
-            "viewBox",
-            (
-                round(min_x),
-                round(-top),
-                round(max_x - min_x),
-                round(top - bottom),
-            ),
-        )
-        .set("class", "bike-drawing")
-        .set("role", "img")
-        .set("aria-label", title.clone())
-        .add(Title::new(title))
-        .add(ground)
-        .add(parts::bike(scene.stock, "ghost"))
-        .add(parts::bike(o, "ridden"));
+    let view_box = [min_x, -top, max_x - min_x, top - bottom]
+        .map(num::mm)
+        .join(" ");
+    let mut nodes = vec![
+        PathData::new()
+            .line([min_x, o.ground_y], [max_x, o.ground_y])
+            .node("ground".into(), "ground"),
+        parts::bike(scene.stock, "ghost"),
+        parts::bike(o, "ridden"),
+    ];
     for (fig, com, limits, posture) in [
         (&o.rider_seated, o.com_seated, scene.seated, "seated"),
         (
@@ -127,21 +131,34 @@ pub fn draw(scene: &Scene) -> String {
             "standing",
         ),
     ] {
-        let mut g = Group::new().set("class", format!("posture {posture}"));
+        let mut children = Vec::new();
         if let Some(f) = fig {
-            g = g.add(figure::rider(f));
+            children.push(figure::rider(f, posture));
         }
         if let Some(c) = com {
-            g = g.add(figure::com(c, o, &limits));
+            children.push(figure::com(c, o, &limits, posture));
         }
-        doc = doc.add(g);
+        nodes.push(Node::Group {
+            class: format!("posture {posture}"),
+            children,
+        });
     }
-    doc.add(dims::dimensions(o, scene.numbers)).to_string()
+    nodes.push(dims::dimensions(o, scene.numbers));
+    Drawing {
+        view_box,
+        title: format!("Side view of {}", scene.label),
+        nodes,
+    }
 }
 
 /// The drawing of a report's bike with no handling labels (the CLI's `draw`).
 pub fn draw_bike(report: &BikeReport) -> String {
-    draw(&Scene {
+    drawing_of_bike(report).svg()
+}
+
+/// The model of [`draw_bike`].
+pub fn drawing_of_bike(report: &BikeReport) -> Drawing {
+    drawing(&Scene {
         label: &report.label,
         ridden: &report.outline,
         stock: &report.stock_outline,

@@ -1,85 +1,159 @@
 //! The bike: wheels, frame, fork, headset and spacers, stem and bar, seatpost and saddle,
-//! cranks and pedals. Drawn back to front so the near parts cover the far ones.
+//! cranks and pedals. Drawn back to front so the near parts cover the far ones; the lines and
+//! circles of one class are one path.
 
-use crate::shapes::{circle, line};
-use framewise_kernel::report::{CockpitOutline, CrankOutline, SeatOutline};
+use crate::model::Node;
+use crate::shapes::PathData;
+use framewise_kernel::report::Xy;
 use framewise_kernel::Outline;
-use svg::node::element::Group;
 
 /// The BB shell radius drawn, mm.
 const BB_R: f64 = 22.0;
 /// The pedal's drawn half length, mm (a drawing size, not a measurement).
 const PEDAL_HALF: f64 = 45.0;
+/// The hub's drawn radius, mm.
+const HUB_R: f64 = 10.0;
+/// The grip's drawn radius, mm.
+const GRIP_R: f64 = 16.0;
 
-fn wheels(o: &Outline, mut g: Group) -> Group {
-    for (axle, r, rim) in [
-        (o.rear_axle, o.rear_radius, o.rear_rim_radius),
-        (o.front_axle, o.front_radius, o.front_rim_radius),
-    ] {
-        g = g.add(circle(axle, r, "tyre"));
-        if rim > 0.0 {
-            g = g.add(circle(axle, rim, "rim"));
+/// The paths of one bike, pushed with keys `{layer}-{name}`. For the ghost (one thin dashed
+/// style for every part: `.ghost *` in the page's CSS) every part but the tyres goes into one
+/// path, `{layer}-outline`.
+struct Parts<'a> {
+    layer: &'a str,
+    out: Vec<Node>,
+    merged: Option<PathData>,
+}
+
+impl Parts<'_> {
+    fn add(&mut self, name: &str, class: &str, d: PathData) {
+        match self.merged.take() {
+            Some(all) if !name.starts_with("tyre") => self.merged = Some(all.append(d)),
+            merged => {
+                self.merged = merged;
+                let key = format!("{}-{name}", self.layer);
+                self.out.push(d.node(key, class));
+            }
         }
-        g = g.add(circle(axle, 10.0, "hub"));
     }
-    g
+
+    fn crank(&mut self, pedal: Xy, side: &str) {
+        let bb = [0.0, 0.0];
+        self.add(
+            &format!("crank-{side}"),
+            &format!("crank {side}"),
+            PathData::new().line(bb, pedal),
+        );
+        self.add(
+            &format!("pedal-{side}"),
+            &format!("pedal {side}"),
+            PathData::new().line(
+                [pedal[0] - PEDAL_HALF, pedal[1]],
+                [pedal[0] + PEDAL_HALF, pedal[1]],
+            ),
+        );
+    }
+
+    fn wheels(&mut self, o: &Outline) {
+        let ends = [
+            ("rear", o.rear_axle, o.rear_radius, o.rear_rim_radius),
+            ("front", o.front_axle, o.front_radius, o.front_rim_radius),
+        ];
+        // A tyre per wheel (the page and its tests count them); rims and hubs merged.
+        for (end, axle, r, _) in ends {
+            self.add(
+                &format!("tyre-{end}"),
+                &format!("tyre {end}"),
+                PathData::new().circle(axle, r),
+            );
+        }
+        let mut rims = PathData::new();
+        let mut hubs = PathData::new();
+        for (_, axle, _, rim) in ends {
+            if rim > 0.0 {
+                rims = rims.circle(axle, rim);
+            }
+            hubs = hubs.circle(axle, HUB_R);
+        }
+        self.add("rim", "rim", rims);
+        self.add("hub", "hub", hubs);
+    }
+
+    fn frame(&mut self, o: &Outline) {
+        let bb = [0.0, 0.0];
+        let tubes = PathData::new()
+            .line(bb, o.rear_axle)
+            .line(o.seat_top, o.rear_axle)
+            .line(bb, o.seat_top)
+            .line(o.seat_top, o.head_top)
+            .line(bb, o.head_bottom);
+        self.add("tubes", "tube", tubes);
+        self.add(
+            "head-tube",
+            "tube head-tube",
+            PathData::new().line(o.head_top, o.head_bottom),
+        );
+        let mut headset = PathData::new().line(o.head_bottom, o.crown);
+        if let Some(c) = &o.cockpit {
+            headset = headset.line(o.head_top, c.headset_top);
+        }
+        self.add("headset", "headset", headset);
+        self.add(
+            "fork-crown",
+            "fork fork-crown",
+            PathData::new().line(o.crown, o.fork_leg_top),
+        );
+        self.add(
+            "fork-leg",
+            "fork fork-leg",
+            PathData::new().line(o.fork_leg_top, o.front_axle),
+        );
+    }
+
+    fn cockpit(&mut self, o: &Outline) {
+        let Some(c) = &o.cockpit else { return };
+        let l = |a, b| PathData::new().line(a, b);
+        self.add("spacers", "spacers", l(c.headset_top, c.spacers_top));
+        self.add("stem-clamp", "stem-clamp", l(c.spacers_top, c.steerer_top));
+        self.add("stem", "stem", l(c.stem_clamp, c.bar_clamp));
+        self.add("bar", "bar", l(c.bar_clamp, c.grip));
+        self.add("grip", "grip", PathData::new().circle(c.grip, GRIP_R));
+    }
+
+    fn seat(&mut self, o: &Outline) {
+        let Some(s) = &o.seat else { return };
+        let l = |a, b| PathData::new().line(a, b);
+        self.add("post", "post", l(s.post_exit, s.post_top));
+        self.add("saddle-clamp", "saddle-clamp", l(s.post_top, s.saddle));
+        self.add("saddle", "saddle", l(s.saddle_tail, s.saddle_nose));
+    }
 }
 
-fn frame(o: &Outline, g: Group) -> Group {
-    let bb = [0.0, 0.0];
-    g.add(line(bb, o.rear_axle, "tube chainstay"))
-        .add(line(o.seat_top, o.rear_axle, "tube seatstay"))
-        .add(line(bb, o.seat_top, "tube seat-tube"))
-        .add(line(o.seat_top, o.head_top, "tube top-tube"))
-        .add(line(bb, o.head_bottom, "tube down-tube"))
-        .add(line(o.head_top, o.head_bottom, "tube head-tube"))
-        .add(line(o.head_bottom, o.crown, "headset"))
-        .add(line(o.crown, o.fork_leg_top, "fork fork-crown"))
-        .add(line(o.fork_leg_top, o.front_axle, "fork fork-leg"))
-}
-
-fn cockpit(o: &Outline, c: &CockpitOutline, g: Group) -> Group {
-    g.add(line(o.head_top, c.headset_top, "headset"))
-        .add(line(c.headset_top, c.spacers_top, "spacers"))
-        .add(line(c.spacers_top, c.steerer_top, "stem-clamp"))
-        .add(line(c.stem_clamp, c.bar_clamp, "stem"))
-        .add(line(c.bar_clamp, c.grip, "bar"))
-        .add(circle(c.grip, 16.0, "grip"))
-}
-
-fn seat(s: &SeatOutline, g: Group) -> Group {
-    g.add(line(s.post_exit, s.post_top, "post"))
-        .add(line(s.post_top, s.saddle, "saddle-clamp"))
-        .add(line(s.saddle_tail, s.saddle_nose, "saddle"))
-}
-
-fn crank(bb: [f64; 2], pedal: [f64; 2], class: &str, g: Group) -> Group {
-    g.add(line(bb, pedal, &format!("crank {class}"))).add(line(
-        [pedal[0] - PEDAL_HALF, pedal[1]],
-        [pedal[0] + PEDAL_HALF, pedal[1]],
-        &format!("pedal {class}"),
-    ))
-}
-
-/// One bike as a group with the given class (`ridden` or `ghost`).
-pub fn bike(o: &Outline, class: &str) -> Group {
-    let bb = [0.0, 0.0];
-    let mut g = Group::new().set("class", format!("bike {class}"));
-    let cranks: Option<&CrankOutline> = o.cranks.as_ref();
-    if let Some(c) = cranks {
-        g = crank(bb, c.pedal_far, "far", g);
+/// One bike as a group with the given class (`ridden` or `ghost`), which also prefixes keys.
+/// The ghost is its two tyres and one outline path.
+pub fn bike(o: &Outline, layer: &str) -> Node {
+    let ghost = layer == "ghost";
+    let mut p = Parts {
+        layer,
+        out: Vec::with_capacity(24),
+        merged: ghost.then(PathData::new),
+    };
+    if let Some(c) = &o.cranks {
+        p.crank(c.pedal_far, "far");
     }
-    g = wheels(o, g);
-    g = frame(o, g);
-    if let Some(c) = &o.cockpit {
-        g = cockpit(o, c, g);
+    p.wheels(o);
+    p.frame(o);
+    p.cockpit(o);
+    p.seat(o);
+    p.add("bb", "bb", PathData::new().circle([0.0, 0.0], BB_R));
+    if let Some(c) = &o.cranks {
+        p.crank(c.pedal_near, "near");
     }
-    if let Some(s) = &o.seat {
-        g = seat(s, g);
+    if let Some(all) = p.merged.take() {
+        p.out.push(all.node(format!("{layer}-outline"), "outline"));
     }
-    g = g.add(circle(bb, BB_R, "bb"));
-    if let Some(c) = cranks {
-        g = crank(bb, c.pedal_near, "near", g);
+    Node::Group {
+        class: format!("bike {layer}"),
+        children: p.out,
     }
-    g
 }

@@ -125,7 +125,7 @@ fn a_bare_outline_draws_frame_wheels_and_fork_only() {
     let n = numbers();
     let o = bare();
     let svg = draw(&scene(&o, &n));
-    assert_eq!(svg.matches("class=\"tyre\"").count(), 4, "ridden and ghost");
+    assert_eq!(svg.matches("class=\"tyre ").count(), 4, "ridden and ghost");
     assert!(svg.contains("class=\"fork fork-leg\""));
     assert!(!svg.contains("class=\"rider\"") && !svg.contains("class=\"com\""));
     assert!(!svg.contains("NaN"));
@@ -146,7 +146,7 @@ fn every_part_is_drawn_when_present() {
         "pedal far",
         "rider",
         "com",
-        "tip-line front",
+        "tip-line",
         "dim dim-reach_mm",
         "dim dim-bb_to_grip_mm",
         "posture standing",
@@ -171,5 +171,194 @@ fn the_svg_matches_its_golden_file() {
     assert_eq!(
         svg, want,
         "run UPDATE_GOLDEN=1 cargo test -p framewise-draw to refresh"
+    );
+}
+
+/// The element with `data-k="key"` in an SVG string: (start of its tag, end of its start tag).
+fn element_at(svg: &str, key: &str) -> (usize, usize) {
+    let at = svg
+        .find(&format!("data-k=\"{key}\""))
+        .unwrap_or_else(|| panic!("no element {key}"));
+    let start = svg[..at].rfind('<').unwrap();
+    let end = at + svg[at..].find('>').unwrap();
+    (start, end)
+}
+
+/// The SVG's markup for a text (`&`, `<`, `>` escaped) or, with `attr`, an attribute value
+/// (quotes escaped too), as the `svg` crate writes them.
+fn esc(v: &str, attr: bool) -> String {
+    let v = v
+        .replace('&', "&amp;")
+        .replace('<', "&lt;")
+        .replace('>', "&gt;");
+    if attr {
+        v.replace('"', "&quot;").replace('\'', "&#39;")
+    } else {
+        v
+    }
+}
+
+/// Applies a patch list to an SVG string as the page applies it to the DOM: each attribute or
+/// text of the keyed element set to the new value.
+fn apply(svg: &str, patch: &[Patch]) -> String {
+    let mut out = svg.to_string();
+    for (key, attr, value) in patch {
+        let (start, end) = if *key == model::ROOT_KEY {
+            (0, out.find('>').unwrap())
+        } else {
+            element_at(&out, key)
+        };
+        if *attr == "text" {
+            let close = end + out[end..].find("</").unwrap();
+            out.replace_range(end + 1..close, &esc(value, false));
+        } else {
+            let tag = &out[start..end];
+            let name = format!(" {attr}=\"");
+            let a = start + tag.find(&name).unwrap() + name.len();
+            let b = a + out[a..].find('"').unwrap();
+            out.replace_range(a..b, &esc(value, true));
+        }
+    }
+    out
+}
+
+/// The full outline with every number moved (the same parts present).
+fn moved() -> Outline {
+    let mut o = full();
+    let shift = |p: &mut Xy, dx: f64, dy: f64| {
+        p[0] += dx;
+        p[1] += dy;
+    };
+    shift(&mut o.head_top, 12.3, -4.0);
+    shift(&mut o.front_axle, 30.0, 0.0);
+    o.front_rim_radius = 0.0; // a rim that is not drawn still leaves its (empty) path
+    if let Some(c) = o.cockpit.as_mut() {
+        shift(&mut c.grip, -20.0, 15.0);
+    }
+    if let Some(r) = o.rider_seated.as_mut() {
+        shift(&mut r.hip, 5.0, 5.0);
+    }
+    o.com_seated = Some([-60.0, 720.0]);
+    o
+}
+
+#[test]
+fn the_structure_is_stable_across_numeric_edits() {
+    let (n, mut n2) = (numbers(), numbers());
+    n2.insert("reach_mm".into(), 482.5);
+    let (a, b) = (full(), moved());
+    let (da, db) = (drawing(&scene(&a, &n)), drawing(&scene(&b, &n2)));
+    assert_eq!(da.structure(), db.structure());
+    assert_ne!(da.svg(), db.svg());
+    let (pa, pb) = (da.patch(), db.patch());
+    assert_eq!(pa.len(), pb.len());
+    let changed: Vec<_> = pa.iter().zip(&pb).filter(|(x, y)| x != y).collect();
+    assert!(
+        changed
+            .iter()
+            .any(|(x, _)| x.0 == "ridden-fork-leg" && x.1 == "d"),
+        "{changed:?}"
+    );
+    assert!(changed
+        .iter()
+        .any(|(x, _)| x.0 == "dim-reach_mm" && x.1 == "text"));
+    for ((ka, aa, _), (kb, ab, _)) in pa.iter().zip(&pb) {
+        assert_eq!((ka, aa), (kb, ab), "same keys in the same order");
+    }
+}
+
+#[test]
+fn the_structure_changes_when_a_part_appears() {
+    let n = numbers();
+    let (bare, full) = (bare(), full());
+    let base = drawing(&scene(&bare, &n)).structure();
+    assert_ne!(base, drawing(&scene(&full, &n)).structure());
+    let with_cockpit = Outline {
+        cockpit: full.cockpit,
+        ..bare
+    };
+    assert_ne!(base, drawing(&scene(&with_cockpit, &n)).structure());
+    let mut no_limits = scene(&full, &n);
+    no_limits.seated = Limits::default();
+    assert_ne!(
+        drawing(&scene(&full, &n)).structure(),
+        drawing(&no_limits).structure(),
+        "the limit labels are elements"
+    );
+    let mut fewer = n.clone();
+    fewer.remove("trail_mm");
+    assert_ne!(base, drawing(&scene(&bare, &fewer)).structure());
+}
+
+#[test]
+fn the_patch_list_turns_one_drawing_into_another() {
+    let (n, mut n2) = (numbers(), numbers());
+    n2.insert("stack_mm".into(), 641.0);
+    let (a, b) = (full(), moved());
+    let mut sb = scene(&b, &n2);
+    sb.label = "Other <bike> & \"rider\"";
+    let (da, db) = (drawing(&scene(&a, &n)), drawing(&sb));
+    // Every patch value is in the SVG at its element.
+    for d in [&da, &db] {
+        assert_eq!(apply(&d.svg(), &d.patch()), d.svg());
+    }
+    assert_eq!(apply(&da.svg(), &db.patch()), db.svg());
+    assert!(db.svg().contains("Other &lt;bike&gt;"));
+}
+
+#[test]
+fn every_path_and_text_has_a_unique_key() {
+    let n = numbers();
+    let o = full();
+    let d = drawing(&scene(&o, &n));
+    let svg = d.svg();
+    let keys: Vec<&str> = svg
+        .split("data-k=\"")
+        .skip(1)
+        .map(|s| &s[..s.find('"').unwrap()])
+        .collect();
+    let unique: std::collections::BTreeSet<_> = keys.iter().collect();
+    assert_eq!(unique.len(), keys.len(), "{keys:?}");
+    assert_eq!(
+        svg.matches("<path").count() + svg.matches("<text").count() + 1,
+        keys.len()
+    );
+    // Few elements: the whole two-posture drawing with dimensions; one element per line, line
+    // by line, was 150 here (lines, circles and polylines one by one).
+    let elements = svg.matches('<').count() - svg.matches("</").count();
+    assert!(elements <= 80, "{elements} elements");
+}
+
+#[test]
+fn numbers_are_tenths_never_nan_or_minus_zero() {
+    let n = numbers();
+    let mut o = full();
+    o.head_top = [f64::NAN, 625.04];
+    o.front_axle = [800.06, -0.04];
+    let svg = draw(&scene(&o, &n));
+    for bad in ["NaN", "inf"] {
+        assert!(!svg.contains(bad), "{bad}");
+    }
+    let numbers_in = |s: &str| -> Vec<String> {
+        s.split(|c: char| !(c.is_ascii_digit() || c == '.' || c == '-'))
+            .filter(|t| t.chars().any(|c| c.is_ascii_digit()))
+            .map(str::to_string)
+            .collect()
+    };
+    for part in svg.split(" d=\"").skip(1) {
+        let d = &part[..part.find('"').unwrap()];
+        assert!(
+            d.chars().all(|c| "MLAZ0123456789.-, ".contains(c)),
+            "only path commands and plain numbers (no exponent): {d}"
+        );
+        for t in numbers_in(d) {
+            assert_ne!(t, "-0", "{d}");
+            let decimals = t.split('.').nth(1).map_or(0, str::len);
+            assert!(decimals <= 1, "{t} in {d}");
+        }
+    }
+    assert!(
+        svg.contains("L800.1,0\""),
+        "the front axle at 0.1 mm, -0.04 written as 0"
     );
 }

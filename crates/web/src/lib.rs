@@ -13,13 +13,22 @@ pub mod link;
 
 /// Evaluates the page's form and makes its share link. `fields_json`: `{ "<field name>":
 /// "<typed text>", … }`; `view_json`: the view choices as a JSON object (or empty). Returns
-/// `{report, svg, notes, field_errors, link}` as JSON text: each error's `field` is a form field
-/// name; `link` is the link fragment with its leading `#`, or `null` when a field does not read or
-/// the link cannot hold a value. One call: the form is read once for the drawing, the tables and
-/// the link.
+/// `{report, svg, drawing, notes, field_errors, link}` as JSON text: each error's `field` is a
+/// form field name; `link` is the link fragment with its leading `#`, or `null` when a field does
+/// not read or the link cannot hold a value. One call: the form is read once for the drawing, the
+/// tables and the link. The page's call on every edit, so `svg` is `null`: the drawing comes as
+/// `drawing` (`{structure, patch}`, applied in place) and [`drawing_svg`] gives the document
+/// when the structure changed.
 #[wasm_bindgen]
 pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
     framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)
+}
+
+/// The SVG document of the drawing the last [`evaluate_form_linked`] call made (empty text when
+/// it made none): asked for only when the drawing's structure changed.
+#[wasm_bindgen]
+pub fn drawing_svg() -> String {
+    framewise_web_core::last_drawing_svg()
 }
 
 /// The frame measurement catalogue (keys, labels, definitions, units, ranges) as JSON text.
@@ -70,10 +79,31 @@ pub mod framewise_web_core {
         .unwrap_or_else(|_| "{}".into())
     }
 
+    std::thread_local! {
+        /// The drawing of the last linked evaluation, for [`last_drawing_svg`].
+        static LAST_DRAWING: std::cell::RefCell<Option<framewise_draw::Drawing>> =
+            const { std::cell::RefCell::new(None) };
+    }
+
+    /// The SVG of the drawing the last [`evaluate_form_linked_to_json`] made, or empty text.
+    pub fn last_drawing_svg() -> String {
+        LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.svg()).unwrap_or_default())
+    }
+
+    /// The drawing's patch (crates/draw `Drawing::patch`): the page applies it in place when
+    /// `structure` equals that of the drawing it shows, else writes the SVG.
+    #[derive(Serialize)]
+    struct DrawingPatch {
+        structure: String,
+        patch: Vec<(String, &'static str, String)>,
+    }
+
     #[derive(Serialize)]
     struct FormResult<'a> {
         report: &'a Report,
         svg: Option<String>,
+        #[serde(skip_serializing_if = "Option::is_none")]
+        drawing: Option<DrawingPatch>,
         /// One sentence per inconsistent published value, keyed like the residuals.
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
@@ -165,6 +195,7 @@ pub mod framewise_web_core {
             serde_json::to_string(&FormResult {
                 report: &report,
                 svg: None,
+                drawing: None,
                 notes: None,
                 field_errors: Vec::new(),
                 link: None,
@@ -201,7 +232,7 @@ pub mod framewise_web_core {
             .first()
             .filter(|_| field_errors.is_empty())
             .map(|bike| {
-                let svg = framewise_draw::draw(&framewise_draw::Scene {
+                let d = framewise_draw::drawing(&framewise_draw::Scene {
                     label: &bike.label,
                     ridden: &bike.outline,
                     stock: &bike.stock_outline,
@@ -209,12 +240,34 @@ pub mod framewise_web_core {
                     seated: limits(&bike.handling.seated),
                     standing: limits(&bike.handling.standing),
                 });
-                (svg, framewise_formats::fields::residual_notes(bike))
+                let patch = DrawingPatch {
+                    structure: d.structure(),
+                    patch: d
+                        .patch()
+                        .into_iter()
+                        .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
+                        .collect(),
+                };
+                // The page's per-edit (linked) call leaves the SVG text for `drawing_svg`:
+                // writing it costs most of the drawing's time and the page rarely needs it.
+                let svg = if link.is_some() {
+                    LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
+                    None
+                } else {
+                    Some(d.svg())
+                };
+                (
+                    (svg, patch),
+                    framewise_formats::fields::residual_notes(bike),
+                )
             });
-        let (svg, notes) = drawn.unzip();
+        let (drawn, notes) = drawn.unzip();
+        let (svg, drawing) = drawn.unzip();
+        let svg = svg.flatten();
         serde_json::to_string(&FormResult {
             report: &report,
             svg,
+            drawing,
             notes,
             field_errors,
             link,
@@ -323,8 +376,14 @@ mod tests {
         assert_eq!(linked["link"], link.as_str());
         if let Some(obj) = linked.as_object_mut() {
             obj.remove("link");
+            // The linked call leaves the SVG text to `last_drawing_svg`.
+            assert_eq!(
+                obj.insert("svg".into(), alone["svg"].clone()),
+                Some(serde_json::Value::Null)
+            );
         }
         assert_eq!(linked, alone);
+        assert_eq!(last_drawing_svg(), alone["svg"].as_str().unwrap_or("none"));
         // A field that does not read, or a view that does not: no link, the errors as before.
         let bad: serde_json::Value = serde_json::from_str(&evaluate_form_linked_to_json(
             r#"{"frame.reach_mm":"long"}"#,
@@ -336,7 +395,7 @@ mod tests {
         let bad_view: serde_json::Value =
             serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
         assert!(bad_view["link"].is_null());
-        assert!(bad_view["svg"].is_string());
+        assert!(bad_view["drawing"]["structure"].is_string());
     }
 
     /// The page's solve memo changes only the time: a series of form edits (frame, rider,

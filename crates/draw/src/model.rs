@@ -1,0 +1,209 @@
+//! The drawing model: one tree of groups, paths and texts, serialised two ways — as an SVG
+//! document (the `svg` crate) and as a patch list of the values that change with the numbers.
+//!
+//! Every path and text carries a stable key (`data-k`): the set of elements and their keys
+//! depend only on which parts exist (rider, cockpit, seat, cranks, handling limits, dimension
+//! numbers), never on the numbers themselves. [`Drawing::structure`] names that set, so a page
+//! that already shows a drawing of the same structure can apply [`Drawing::patch`] instead of
+//! replacing the document.
+
+use svg::node::element::{Group, Path, Text, Title};
+use svg::Document;
+
+/// One element of the drawing.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Node {
+    /// A group (`<g class>`), for layers the page shows or hides with classes.
+    Group {
+        /// The group's classes.
+        class: String,
+        /// Its elements, back to front.
+        children: Vec<Node>,
+    },
+    /// A `<path>`: every line, polyline and circle of one class in one layer.
+    Path {
+        /// Stable key (`data-k`).
+        key: String,
+        /// The path's classes (styled by the page's CSS).
+        class: String,
+        /// The path data, 0.1 mm numbers.
+        d: String,
+    },
+    /// A `<text>` label.
+    Text {
+        /// Stable key (`data-k`).
+        key: String,
+        /// The text's classes.
+        class: String,
+        /// `start`, `middle` or `end`.
+        anchor: &'static str,
+        /// x, 0.1 mm.
+        x: String,
+        /// y, 0.1 mm.
+        y: String,
+        /// The words.
+        words: String,
+    },
+}
+
+/// A whole drawing: the root's view box and title, and its elements back to front.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Drawing {
+    /// `min-x min-y width height`, 0.1 mm numbers.
+    pub view_box: String,
+    /// The title (also the root's `aria-label`).
+    pub title: String,
+    /// The elements, back to front.
+    pub nodes: Vec<Node>,
+}
+
+/// The key of the root `<svg>` element in the patch list.
+pub const ROOT_KEY: &str = "svg";
+/// The key of the `<title>` element in the patch list.
+pub const TITLE_KEY: &str = "title";
+
+/// One patch: `(key, attribute, value)`; the attribute `text` means the element's text.
+pub type Patch<'a> = (&'a str, &'static str, &'a str);
+
+impl Drawing {
+    /// The SVG document (markup for `innerHTML` or a file).
+    pub fn svg(&self) -> String {
+        let mut doc = Document::new()
+            .set("viewBox", self.view_box.as_str())
+            .set("class", "bike-drawing")
+            .set("role", "img")
+            .set("aria-label", self.title.as_str())
+            .add(Title::new(self.title.as_str()).set("data-k", TITLE_KEY));
+        for n in &self.nodes {
+            doc = match to_svg(n) {
+                Element::G(g) => doc.add(g),
+                Element::P(p) => doc.add(p),
+                Element::T(t) => doc.add(t),
+            };
+        }
+        doc.to_string()
+    }
+
+    /// Every value that depends on the numbers, in document order: the root's `viewBox` and
+    /// `aria-label`, the title's text, each path's `d`, each text's `x`, `y` and text. Applying
+    /// it to a drawing of the same [`Drawing::structure`] gives this drawing.
+    pub fn patch(&self) -> Vec<Patch<'_>> {
+        let mut out = vec![
+            (ROOT_KEY, "viewBox", self.view_box.as_str()),
+            (ROOT_KEY, "aria-label", self.title.as_str()),
+            (TITLE_KEY, "text", self.title.as_str()),
+        ];
+        for n in &self.nodes {
+            patch_of(n, &mut out);
+        }
+        out
+    }
+
+    /// A short name of the element set (tags, keys, classes, anchors; no numbers, no words):
+    /// equal for two drawings exactly when one can be patched into the other.
+    pub fn structure(&self) -> String {
+        // FNV-1a, 64 bits: a stable hash with no dependency; collisions between the few
+        // structures a page meets are negligible.
+        let mut h: u64 = 0xcbf2_9ce4_8422_2325;
+        let mut eat = |s: &str| {
+            for b in s.bytes().chain([0u8]) {
+                h ^= u64::from(b);
+                h = h.wrapping_mul(0x0100_0000_01b3);
+            }
+        };
+        for n in &self.nodes {
+            shape_of(n, &mut eat);
+        }
+        format!("{h:016x}")
+    }
+}
+
+enum Element {
+    G(Group),
+    P(Path),
+    /// A `<text>` as a plain element: its words are written inline (`<text …>words</text>`),
+    /// exactly the text the patch list gives, with no added line breaks.
+    T(svg::node::element::Element),
+}
+
+fn to_svg(n: &Node) -> Element {
+    match n {
+        Node::Group { class, children } => {
+            let mut g = Group::new().set("class", class.as_str());
+            for c in children {
+                g = match to_svg(c) {
+                    Element::G(x) => g.add(x),
+                    Element::P(x) => g.add(x),
+                    Element::T(x) => g.add(x),
+                };
+            }
+            Element::G(g)
+        }
+        Node::Path { key, class, d } => Element::P(
+            Path::new()
+                .set("data-k", key.as_str())
+                .set("class", class.as_str())
+                .set("d", d.as_str()),
+        ),
+        Node::Text {
+            key,
+            class,
+            anchor,
+            x,
+            y,
+            words,
+        } => Element::T(
+            Text::new(words.as_str())
+                .set("data-k", key.as_str())
+                .set("class", class.as_str())
+                .set("text-anchor", *anchor)
+                .set("x", x.as_str())
+                .set("y", y.as_str())
+                .into(),
+        ),
+    }
+}
+
+fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {
+    match n {
+        Node::Group { children, .. } => {
+            for c in children {
+                patch_of(c, out);
+            }
+        }
+        Node::Path { key, d, .. } => out.push((key, "d", d)),
+        Node::Text {
+            key, x, y, words, ..
+        } => out.extend([
+            (key.as_str(), "x", x.as_str()),
+            (key, "y", y),
+            (key, "text", words),
+        ]),
+    }
+}
+
+fn shape_of(n: &Node, eat: &mut impl FnMut(&str)) {
+    match n {
+        Node::Group { class, children } => {
+            eat("g");
+            eat(class);
+            for c in children {
+                shape_of(c, eat);
+            }
+            eat("/g");
+        }
+        Node::Path { key, class, .. } => {
+            eat("path");
+            eat(key);
+            eat(class);
+        }
+        Node::Text {
+            key, class, anchor, ..
+        } => {
+            eat("text");
+            eat(key);
+            eat(class);
+            eat(anchor);
+        }
+    }
+}

@@ -1,0 +1,108 @@
+// Browser tests of the drawing's in-place update (crates/draw Drawing::patch): an edit that keeps
+// the drawing's structure patches the shown SVG (the same nodes, new values) and gives exactly
+// the markup a fresh page draws for the same form; a part that appears or goes (the cockpit and
+// rider without a stem) replaces the drawing; a person's zoom survives a patch and "Fit" goes to the new fit. Also saves close-up
+// screenshots of the drawing (seated, standing, dimensions, a fork change with its ghost).
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { startAll, openPage, SHOTS } from './harness.mjs';
+
+let env;
+before(async () => { env = await startAll(); });
+after(async () => { await env?.stop(); });
+
+const T = { timeout: 60000 };
+const SIZES = [['phone', 360, 740], ['desk', 1280, 800]];
+
+const d = (page, key) => page.getAttribute(`#drawing [data-k="${key}"]`, 'd');
+const markup = (page) => page.locator('#drawing svg').evaluate((s) => s.outerHTML.replace(/ data-fit="[^"]*"/, ''));
+
+for (const [name, width, height] of SIZES) {
+  test(`${name}: an edit patches the shown drawing in place`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    await page.evaluate(() => {
+      window.marked = {
+        svg: document.querySelector('#drawing svg'),
+        fork: document.querySelector('#drawing [data-k="ridden-fork-leg"]'),
+        reach: document.querySelector('#drawing [data-k="dim-reach_mm"]'),
+      };
+    });
+    const fork = await d(page, 'ridden-fork-leg');
+    const ghost = await d(page, 'ghost-outline');
+    await page.fill('input[name="frame.reach_mm"]', '489');
+    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+    const same = await page.evaluate(() => ({
+      svg: document.querySelector('#drawing svg') === window.marked.svg,
+      fork: document.querySelector('#drawing [data-k="ridden-fork-leg"]') === window.marked.fork,
+      reach: document.querySelector('#drawing [data-k="dim-reach_mm"]') === window.marked.reach,
+      reachText: window.marked.reach.textContent,
+    }));
+    assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 489 mm' });
+    assert.notEqual(await d(page, 'ridden-fork-leg'), fork);
+    assert.notEqual(await d(page, 'ghost-outline'), ghost, 'the stock frame moved with its reach');
+    // The patched drawing is exactly what a fresh page draws for the same form.
+    await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
+    const url = await page.locator('#share-url').inputValue();
+    const fresh = await openPage(env, { width, height, hash: new URL(url).hash });
+    assert.equal(await markup(fresh.page), await markup(page));
+    assert.deepEqual([...problems, ...fresh.problems], []);
+    await fresh.context.close();
+    await context.close();
+  });
+}
+
+test('a part that goes or comes replaces the drawing; a zoom survives a patch', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  assert.equal(await page.locator('#drawing svg .rider').count(), 2);
+  await page.evaluate(() => { window.first = document.querySelector('#drawing svg'); });
+  // No stem: no cockpit, so no hands on a bar and no rider drawn.
+  await page.fill('input[name="setup.stem_mm"]', '');
+  await page.waitForFunction(() => document.querySelectorAll('#drawing svg .ridden .stem').length === 0, null, { timeout: 5000 });
+  assert.equal(await page.locator('#drawing svg .rider').count(), 0);
+  assert.equal(await page.evaluate(() => document.querySelector('#drawing svg') === window.first), false, 'replaced');
+  await page.fill('input[name="setup.stem_mm"]', '45');
+  await page.waitForFunction(() => document.querySelectorAll('#drawing svg .rider').length === 2, null, { timeout: 5000 });
+  // Zoom, then an edit that moves the bike's fit: the view stays; Fit shows the new fit.
+  const svg = page.locator('#drawing svg');
+  await svg.scrollIntoViewIfNeeded();
+  const fit = await svg.getAttribute('viewBox');
+  const box = await svg.boundingBox();
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.wheel(0, -400);
+  const zoomed = await svg.getAttribute('viewBox');
+  assert.notEqual(zoomed, fit);
+  await page.evaluate(() => { window.kept = document.querySelector('#drawing svg'); });
+  const fork = await d(page, 'ridden-fork-leg');
+  await page.fill('input[name="frame.reach_mm"]', '520');
+  await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+  assert.equal(await page.evaluate(() => document.querySelector('#drawing svg') === window.kept), true, 'patched');
+  assert.equal(await svg.getAttribute('viewBox'), zoomed);
+  await page.locator('#fit-view').click();
+  assert.notEqual(await svg.getAttribute('viewBox'), fit, 'the new fit, not the one before the edit');
+  const url = await page.locator('#share-url').inputValue();
+  const fresh = await openPage(env, { width: 360, height: 740, hash: new URL(url).hash });
+  assert.equal(await svg.getAttribute('viewBox'), await fresh.page.locator('#drawing svg').getAttribute('viewBox'));
+  assert.deepEqual([...problems, ...fresh.problems], []);
+  await fresh.context.close();
+  await context.close();
+});
+
+for (const [name, width, height] of SIZES) {
+  test(`${name}: close-up screenshots of the drawing`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    const shot = (what) => page.locator('#drawing').screenshot({ path: `${SHOTS}/drawing-${name}-${what}.png` });
+    await shot('seated');
+    await page.locator('label[for="posture-standing"]').click();
+    await shot('standing');
+    await page.locator('label[for="posture-seated"]').click();
+    await page.locator('label.toggle:has(#show-dims)').click();
+    await shot('dims');
+    await page.locator('label.toggle:has(#show-dims)').click();
+    const fork = await d(page, 'ridden-fork-leg');
+    await page.fill('input[name="changes.fork_a2c_delta_mm"]', '40');
+    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+    await shot('fork-ghost');
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+}
