@@ -12,8 +12,8 @@
 const MARGIN = '50%'; // "near": within half a screen of the viewport
 
 /**
- * Returns { watch(el), paint(el, fn), flush(), settled() }.
- * watch(el): track whether el is near the screen. paint(el, fn): run fn now when el is near the
+ * Returns { watch(el), forget(el), paint(el, fn), flush(), settled() }.
+ * watch(el): track whether el is near the screen; forget(el): stop (el left the page). paint(el, fn): run fn now when el is near the
  * screen (or not yet known to be off it), else queue it (replacing what was queued for el).
  * flush(): write the queue now. settled(): a promise for the moment the queue is empty.
  */
@@ -59,6 +59,11 @@ export function createPainter() {
 
   return {
     watch(el) { observer.observe(el); },
+    forget(el) {
+      observer.unobserve(el);
+      offscreen.delete(el);
+      if (queued.delete(el) && !queued.size) done();
+    },
     paint(el, write) {
       if (!offscreen.has(el)) {
         queued.delete(el);

@@ -112,10 +112,16 @@ function model(bike, notes, catalogue) {
   ].filter(Boolean);
 }
 
-function shapeOf(blocks) {
-  return JSON.stringify(blocks.map((b) => (b.type === 'table'
+/** A block's identity: which table or list it is. */
+function idOf(b) {
+  return b.type === 'table' ? `table|${b.caption}` : b.type;
+}
+
+/** A block's shape: what its nodes are (rows, columns, notes, items), not what they say. */
+function shapeOf(b) {
+  return JSON.stringify(b.type === 'table'
     ? [b.caption, b.cols, b.rows.map((r) => [r.key, Boolean(r.note)])]
-    : [b.type, b.keys ?? b.items.map((i) => i.cls)])));
+    : [b.type, b.keys ?? b.items.map((i) => i.cls)]);
 }
 
 /** Every changeable value of one block in render order: row classes, cell texts, notes, items. */
@@ -181,14 +187,24 @@ function buildMissing(b, words) {
       el('strong', {}, names.join(', ')), '.'));
 }
 
-let lastShape = '';
-let parts = []; // one per block: [element, refs]
+let rebuildAll = true; // set when the tables' rows were changed by hand (definitions)
+let parts = []; // one per block: { id, shape, node, refs }
 
 function build(b, words) {
   const refs = [];
   const node = b.type === 'table' ? buildTable(b, words, refs)
     : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs);
-  return [node, refs];
+  return { id: idOf(b), shape: shapeOf(b), node, refs };
+}
+
+/** Sets a node's text, changing its one text node in place where it has one (cheaper layout). */
+function setText(node, text) {
+  const t = node.firstChild;
+  if (t && t === node.lastChild && t.nodeType === Node.TEXT_NODE) {
+    if (t.data !== text) t.data = text;
+  } else if (node.textContent !== text) {
+    node.textContent = text;
+  }
 }
 
 /** Writes one block's values into its nodes, touching only what changed. */
@@ -196,32 +212,44 @@ function patch(refs, vals) {
   vals.forEach((v, i) => {
     const [node, kind] = refs[i];
     if (kind === 'class') { if (node.className !== v) node.className = v; }
-    else if (kind === 'text') { if (node.textContent !== v) node.textContent = v; }
-    else if (kind === 'source') { const t = v ? `Source: ${v}` : ''; if (node.textContent !== t) node.textContent = t; }
+    else if (kind === 'text') setText(node, v);
+    else if (kind === 'source') setText(node, v ? `Source: ${v}` : '');
   });
 }
 
 /**
- * Renders every table and list for one bike into the container. An edit that keeps the blocks'
- * shape (same rows, same columns, same notes) only rewrites changed texts and classes, block by
- * block through `painter` (ui/onscreen.js): at once for a block on the screen, else in the next
- * task. A new shape rebuilds every block at once.
+ * Renders every table and list for one bike into the container. A block that keeps its shape
+ * (same rows, same columns, same notes, same kinds of items) only gets its changed texts and
+ * classes; a block whose shape changed is rebuilt alone; a new list of blocks rebuilds them all.
+ * Every write goes through `painter` (ui/onscreen.js): at once for a block on the screen, else
+ * in the next task.
  */
 export function renderResults(container, bike, notes, catalogue, words, painter) {
   const blocks = model(bike, notes ?? {}, catalogue);
-  const shape = shapeOf(blocks);
-  if (shape === lastShape) {
-    blocks.forEach((b, i) => {
-      const [node, refs] = parts[i];
-      const vals = values(b);
-      painter.paint(node, () => patch(refs, vals));
-    });
+  const sameList = !rebuildAll && blocks.length === parts.length
+    && blocks.every((b, i) => idOf(b) === parts[i].id);
+  if (!sameList) {
+    for (const p of parts) painter.forget(p.node);
+    parts = blocks.map((b) => build(b, words));
+    for (const p of parts) painter.watch(p.node);
+    container.replaceChildren(...parts.map((p) => p.node));
+    rebuildAll = false;
     return;
   }
-  lastShape = shape;
-  parts = blocks.map((b) => build(b, words));
-  for (const [node] of parts) painter.watch(node);
-  container.replaceChildren(...parts.map(([node]) => node));
+  blocks.forEach((b, i) => {
+    const part = parts[i];
+    if (shapeOf(b) === part.shape) {
+      const vals = values(b);
+      painter.paint(part.node, () => patch(part.refs, vals));
+      return;
+    }
+    const fresh = build(b, words);
+    parts[i] = fresh;
+    const old = part.node;
+    painter.forget(old);
+    old.replaceWith(fresh.node);
+    painter.watch(fresh.node);
+  });
 }
 
 /** Tapping a name shows or hides its definition row (the state survives re-rendering). */
@@ -239,6 +267,6 @@ export function wireDefinitions(container, words) {
     const existing = row.parentElement.querySelector(`tr.def-row[data-def-for="${key}"]`);
     if (shown) existing?.remove();
     else next.after(defRow(key, words, row.children.length));
-    lastShape = '';
+    rebuildAll = true;
   });
 }
