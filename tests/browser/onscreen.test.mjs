@@ -54,3 +54,37 @@ test('phone at the top: the drawing and the first table are written in the handl
   await settled(page);
   assert.deepEqual(problems, []);
 });
+
+test('a block whose rows change is rebuilt alone; the other blocks keep their nodes', T, async () => {
+  const { page, problems } = await openPage(env, { width: 1280, height: 800 });
+  const set = (n, v) => page.evaluate(([n, v]) => {
+    const i = document.querySelector(`[name="${n}"]`);
+    i.value = v;
+    i.dispatchEvent(new Event('input', { bubbles: true }));
+  }, [n, v]);
+  await set('changes.fork_travel_mm', '150');
+  await set('changes.front_sag_pct', '20');
+  await settled(page);
+  const before = await page.evaluate(() => {
+    window.__blocks = [...document.getElementById('results').children];
+    return document.querySelectorAll('#results .checks li.outside').length;
+  });
+  // 25 % sag moves a fit and safety check across its range: the checks list changes shape.
+  await set('changes.front_sag_pct', '25');
+  await settled(page);
+  const after = await page.evaluate(() => {
+    const now = [...document.getElementById('results').children];
+    return {
+      kept: now.map((e, i) => e === window.__blocks[i]),
+      tables: now.map((e) => e.tagName),
+      outside: document.querySelectorAll('#results .checks li.outside').length,
+    };
+  });
+  assert.notEqual(after.outside, before, 'a check crosses its range');
+  const checks = after.tables.lastIndexOf('DIV');
+  assert.equal(after.kept[checks], false, 'the checks list is rebuilt');
+  after.tables.forEach((tag, i) => {
+    if (tag === 'TABLE') assert.equal(after.kept[i], true, `table ${i} keeps its node`);
+  });
+  assert.deepEqual(problems, []);
+});
