@@ -18,19 +18,18 @@ pub fn tenths(v: f64) -> i64 {
     ((v * 10.0).round() as i64).clamp(-LIMIT_TENTHS, LIMIT_TENTHS)
 }
 
-/// Appends `v` rounded to 0.1 mm: `12`, `-3.5`, `0` (never `-0`).
+/// Appends `v` rounded to 0.1 mm: `12`, `-3.5`, `0` (never `-0`). Integers are written by the
+/// standard library's integer formatting (cheap, unlike `f64`'s).
 pub fn push_mm(out: &mut String, v: f64) {
+    use std::fmt::Write;
     let t = tenths(v);
-    if t < 0 {
-        out.push('-');
-    }
+    let sign = if t < 0 { "-" } else { "" };
     let a = t.unsigned_abs();
-    push_uint(out, a / 10);
-    let frac = a % 10;
-    if frac != 0 {
-        out.push('.');
-        push_uint(out, frac);
-    }
+    // Writing to a String cannot fail.
+    let _ = match a % 10 {
+        0 => write!(out, "{sign}{}", a / 10),
+        frac => write!(out, "{sign}{}.{frac}", a / 10),
+    };
 }
 
 /// `v` rounded to 0.1 mm as a new string.
@@ -38,25 +37,6 @@ pub fn mm(v: f64) -> String {
     let mut s = String::with_capacity(8);
     push_mm(&mut s, v);
     s
-}
-
-/// Appends an unsigned integer in decimal.
-fn push_uint(out: &mut String, mut n: u64) {
-    let mut buf = [0u8; 20];
-    let mut i = buf.len();
-    loop {
-        i = i.saturating_sub(1);
-        if let Some(b) = buf.get_mut(i) {
-            *b = b'0' + (n % 10) as u8;
-        }
-        n /= 10;
-        if n == 0 || i == 0 {
-            break;
-        }
-    }
-    for &b in buf.get(i..).unwrap_or_default() {
-        out.push(char::from(b));
-    }
 }
 
 #[cfg(test)]

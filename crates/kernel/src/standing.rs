@@ -4,8 +4,9 @@
 //! Model: the hip height is the one at which, with the hip midway between the two ankles, each
 //! knee bends by the stated angle (`y = ankle_y + √(span² − (Δx/2)²)`, `span` the hip–ankle
 //! distance of [`Body::leg_span`]). The trunk leans forward at the stated standing torso angle.
-//! The hip then moves fore and aft (bracketed regula falsi) until the body's centre of mass is straight above
-//! the midpoint of the balls of the feet ([`balance_root`]). Both hands hold the grips; the elbow angle follows.
+//! The hip then moves fore and aft (bracketed regula falsi, [`balance_root`]) until the body's
+//! centre of mass is straight above the midpoint of the balls of the feet. Both hands hold the
+//! grips; the elbow angle follows.
 
 use crate::error::{fmt_num, Warning};
 use crate::posture::{describe, foot_on_pedal, interior, two_link, Figure, Foot, Reach};
