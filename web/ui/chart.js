@@ -1,20 +1,9 @@
 // The paste box: geometry chart text → the importer in wasm → a size run; picking a size fills
 // the frame and wheel fields. Rows the importer did not recognise, its questions and its notes
 // are listed, never dropped.
-// The importer (and the QR code, ui/share.js) live in a second wasm module, pkg/framewise_extras,
-// that the first view never requests: it is loaded on the first paste or "Read the chart".
-
-let extras = null;
-/**
- * The on-demand module, initialised: one load shared by every caller; a failed load is
- * forgotten, so the next call tries again.
- */
-export function loadExtras() {
-  extras ??= import('../pkg/framewise_extras.js')
-    .then(async (m) => { await m.default(); return m; })
-    .catch((e) => { extras = null; throw e; });
-  return extras;
-}
+// The importer lives in the on-demand module (ui/extras.js), loaded on the first paste or
+// "Read the chart".
+import { loadExtras } from './extras.js';
 
 function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);

@@ -5,7 +5,7 @@
 // The QR encoder is in the on-demand module (pkg/framewise_extras), loaded on the first
 // "Show QR code"; the first view never requests it.
 import { link_from_form, form_from_link } from '../pkg/framewise.js';
-import { loadExtras } from './chart.js';
+import { loadExtras } from './extras.js';
 
 const byId = (id) => document.getElementById(id);
 
