@@ -20,7 +20,7 @@ function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);
   for (const [k, v] of Object.entries(props)) {
     if (k === 'class') node.className = v;
-    else if (k.startsWith('data-') || k.startsWith('aria-') || k === 'colspan' || k === 'scope') node.setAttribute(k, v);
+    else if (k.startsWith('data-') || k.startsWith('aria-') || k === 'colspan' || k === 'scope' || k === 'role') node.setAttribute(k, v);
     else node[k] = v;
   }
   node.append(...children);
@@ -41,8 +41,8 @@ function term(key, scope, words) {
 
 function defRow(key, words, span) {
   const t = words.get(key);
-  return el('tr', { class: 'def-row', 'data-def-for': key },
-    el('td', { colspan: String(span) }, t?.definition ?? 'No definition recorded for this number yet.'));
+  return el('tr', { class: 'def-row', 'data-def-for': key, role: 'row' },
+    el('td', { colspan: String(span), role: 'cell' }, t?.definition ?? 'No definition recorded for this number yet.'));
 }
 
 // The results as data first: blocks of tables and lists. An edit that keeps the blocks' shape
@@ -140,21 +140,23 @@ function values(b) {
 
 function buildTable(b, words, refs) {
   const scope = b.caption.split(':')[0];
-  const head = el('tr', {}, ...b.cols.map((c, i) => el('th', { scope: 'col', class: i ? 'num' : '' }, c)));
-  const body = el('tbody');
+  // The CSS lays rows out as flex lines (style.css), which can drop a table's native semantics in
+  // some browsers, so every part also carries its table role.
+  const head = el('tr', { role: 'row' }, ...b.cols.map((c, i) => el('th', { scope: 'col', role: 'columnheader', class: i ? 'num' : '' }, c)));
+  const body = el('tbody', { role: 'rowgroup' });
   for (const r of b.rows) {
-    const tds = r.cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num' }, text));
-    const tr = el('tr', { 'data-key': r.key, class: r.cls }, el('th', { scope: 'row' }, ...term(r.key, scope, words)), ...tds);
+    const tds = r.cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num', role: 'cell' }, text));
+    const tr = el('tr', { 'data-key': r.key, class: r.cls, role: 'row' }, el('th', { scope: 'row', role: 'rowheader' }, ...term(r.key, scope, words)), ...tds);
     refs.push([tr, 'class'], ...tds.map((td) => [td, 'text']));
     body.append(tr);
     if (r.note) {
-      const td = el('td', { colspan: String(b.cols.length) }, r.note);
+      const td = el('td', { colspan: String(b.cols.length), role: 'cell' }, r.note);
       refs.push([td, 'text']);
-      body.append(el('tr', { class: 'note-row' }, td));
+      body.append(el('tr', { class: 'note-row', role: 'row' }, td));
     }
     if (open.has(`${scope}|${r.key}`)) body.append(defRow(r.key, words, b.cols.length));
   }
-  return el('table', { class: 'numbers' }, el('caption', {}, b.caption), el('thead', {}, head), body);
+  return el('table', { class: 'numbers', role: 'table' }, el('caption', {}, b.caption), el('thead', { role: 'rowgroup' }, head), body);
 }
 
 function buildItems(b, refs) {

@@ -110,11 +110,10 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
       url.value = location.href; // a field does not read: the address keeps the last good link
       return;
     }
-    // The link box shows the new link at once; the address itself (history.replaceState, about
-    // 2 ms even on a fast machine) and the QR code follow in the next task, after the edit's
-    // drawing and tables are written, and only for the latest edit of a quick run of them.
-    const next = location.href.split('#')[0] + hash;
-    if (url.value !== next) url.value = next;
+    // The address (history.replaceState, about 2 ms even on a fast machine), the link box (a
+    // text box's value costs a layout of about 1 ms) and the QR code follow in the next task,
+    // after the edit's drawing and tables are written, and only for the latest edit of a quick
+    // run of them.
     pending = hash;
     if (!scheduled) {
       scheduled = true;
@@ -130,7 +129,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     pending = null;
     if (hash === null || hold) return;
     if (hash !== location.hash) history.replaceState(history.state, '', hash);
-    url.value = location.href;
+    if (url.value !== location.href) url.value = location.href;
     if (!qr.hidden) showQr();
   }
 
