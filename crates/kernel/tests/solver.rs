@@ -123,7 +123,13 @@ fn dropping_the_fork_values_names_them_missing() {
     let keep = without_fork();
     let sol = run(&f, &givens(&f.published(), &keep, false));
     assert_eq!(sol.missing, ["fork_a2c_mm", "fork_offset_mm"]);
-    assert!(sol.warnings.iter().any(|w| w.code == "underdetermined"));
+    // The sentence asks for them by the names a person reads on a chart, not by their keys.
+    let w = sol.warnings.iter().find(|w| w.code == "underdetermined");
+    let msg = w.map_or("", |w| w.message.as_str());
+    assert!(
+        msg.ends_with("Add Fork axle-to-crown, Fork offset to fix them.") && !msg.contains("_mm"),
+        "{msg}"
+    );
     // What the published numbers do fix is still exact.
     assert_recovered(&f, &sol, &[0, 6, 7]);
 }
@@ -149,7 +155,7 @@ fn one_wrong_value_is_named() {
         .find(|w| w.code == "inconsistent")
         .unwrap();
     assert!(
-        w.message.contains("Most likely wrong: Reach (reach_mm)"),
+        w.message.contains("Most likely wrong: Reach;") && !w.message.contains("reach_mm"),
         "{}",
         w.message
     );
@@ -326,7 +332,8 @@ proptest! {
         let sol = run(&f, &g);
         prop_assert!(!sol.residuals[key].consistent, "{key}: {:?}", sol.residuals[key]);
         let w = sol.warnings.iter().find(|w| w.code == "inconsistent");
-        let named = format!("({key})");
+        let named = framewise_kernel::lookup(key).map_or(key, |m| m.label);
+        let named = format!("{named} is published as");
         prop_assert!(w.is_some_and(|w| w.message.contains(&named)), "{:?}", w);
     }
 }

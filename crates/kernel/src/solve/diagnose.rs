@@ -15,9 +15,10 @@ fn key(index: usize) -> &'static str {
     MEASURED_KEYS.get(index).copied().unwrap_or("?")
 }
 
+/// The measurement's name as the page and the charts say it (its catalogue label), not its key.
 fn label(index: usize) -> String {
     let k = key(index);
-    format!("{} ({k})", lookup(k).map_or(k, |m| m.label))
+    lookup(k).map_or(k, |m| m.label).to_string()
 }
 
 /// Per row, whether it is consistent. A value is inconsistent when its residual exceeds

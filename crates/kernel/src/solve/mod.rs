@@ -397,7 +397,11 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
             format!(
                 "The published numbers do not fix the whole frame; these are typical values, not this frame's: {}. Add {} to fix them.",
                 list.join(", "),
-                plan.missing.join(", ")
+                plan.missing
+                    .iter()
+                    .map(|k| crate::catalogue::lookup(k).map_or(k.as_str(), |m| m.label))
+                    .collect::<Vec<_>>()
+                    .join(", ")
             ),
         ));
     }
