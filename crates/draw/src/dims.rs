@@ -3,7 +3,7 @@
 //! shows them). The lines are one path; each label keeps its own group `dim dim-{key}`.
 
 use crate::model::Node;
-use crate::shapes::{mid, num, text, PathData};
+use crate::shapes::{num, text, PathData};
 use framewise_kernel::glossary::label;
 use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::Outline;
@@ -20,6 +20,10 @@ struct Dim {
     anchor: &'static str,
 }
 
+/// Where each label goes, chosen so that on the demo bike (and bikes like it) no label lies on a
+/// tyre or on another label (tested in `tests.rs`): reach above its line; stack beside its line,
+/// halfway between the head tube top and the front tyre; wheelbase and trail below the ground;
+/// BB height beside the foot of its line, low between the wheels; BB-to-grip beyond the grip.
 fn dims_of(o: &Outline) -> Vec<Dim> {
     let t = o.head_top;
     let gy = o.ground_y;
@@ -29,6 +33,10 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
     let (r, f) = (o.rear_axle[0], o.front_axle[0]);
     let ty = gy - OFF / 2.0;
     let (c, s) = (o.front_contact[0], o.steer_ground[0]);
+    // The top of the front tyre, stroke included, and the baseline that centres a label
+    // between it and the head tube top.
+    let tyre_top = o.front_axle[1] + o.front_radius + TYRE_HALF_STROKE;
+    let stack_y = (t[1] + tyre_top) / 2.0 - LABEL_MID;
     let d = |key, a, b, at, anchor| Dim {
         key,
         a,
@@ -48,7 +56,7 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
             "stack_mm",
             [sx, 0.0],
             [sx, t[1]],
-            [sx + 20.0, t[1] / 4.0],
+            [sx + 20.0, stack_y],
             "start",
         ),
         d(
@@ -62,8 +70,8 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
             "bb_height_mm",
             [-OFF, gy],
             [-OFF, 0.0],
-            [-OFF - 20.0, gy / 2.0],
-            "end",
+            [-OFF + 12.0, gy + 22.0],
+            "start",
         ),
         d(
             "trail_mm",
@@ -74,16 +82,31 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
         ),
     ];
     if let Some(ck) = &o.cockpit {
-        let m = mid([0.0, 0.0], ck.grip);
         v.push(d(
             "bb_to_grip_mm",
             [0.0, 0.0],
             ck.grip,
-            [m[0] - 30.0, m[1]],
-            "end",
+            [ck.grip[0] + 40.0, ck.grip[1] + 30.0],
+            "start",
         ));
     }
     v
+}
+
+/// Half the tyre's stroke width in the page's CSS (`.tyre { stroke-width: 30 }`), mm.
+const TYRE_HALF_STROKE: f64 = 15.0;
+/// From a label's baseline to the middle of its capitals: about 0.35 of the 64 mm type, mm.
+const LABEL_MID: f64 = 22.0;
+
+/// The words of a dimension label. BB-to-grip uses a shorter name than the glossary's ("BB to
+/// grip") so that the label fits beside the front wheel.
+fn words_of(key: &str, v: f64) -> String {
+    let unit = if key.ends_with("_deg") { "°" } else { " mm" };
+    let name = match key {
+        "bb_to_grip_mm" => "BB to grip",
+        _ => label(key).unwrap_or(key),
+    };
+    format!("{name} {}{unit}", num(v, 0))
 }
 
 /// The dimension group of one outline.
@@ -92,12 +115,7 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Node {
     let mut labels = Vec::new();
     for dim in dims_of(o) {
         let Some(v) = n.get(dim.key) else { continue };
-        let unit = if dim.key.ends_with("_deg") {
-            "°"
-        } else {
-            " mm"
-        };
-        let words = format!("{} {}{unit}", label(dim.key).unwrap_or(dim.key), num(*v, 0));
+        let words = words_of(dim.key, *v);
         lines = lines.line(dim.a, dim.b);
         labels.push(Node::Group {
             class: format!("dim dim-{}", dim.key),

@@ -362,3 +362,80 @@ fn numbers_are_tenths_never_nan_or_minus_zero() {
         "the front axle at 0.1 mm, -0.04 written as 0"
     );
 }
+
+/// A label's box in SVG axes `[x0, y0, x1, y1]`, estimated from its words: 0.6 em a character
+/// (a wide estimate for the page's sans-serif type), 0.75 em above the baseline and 0.25 em
+/// below, at the page's 64 mm type (`.bike-drawing .label` in web/style.css).
+fn label_box(node: &Node) -> Option<(String, [f64; 4])> {
+    let Node::Text {
+        key,
+        anchor,
+        x,
+        y,
+        words,
+        ..
+    } = node
+    else {
+        return None;
+    };
+    let (x, y): (f64, f64) = (x.parse().ok()?, y.parse().ok()?);
+    let em = 64.0;
+    let w = words.chars().count() as f64 * 0.6 * em;
+    let x0 = match *anchor {
+        "middle" => x - w / 2.0,
+        "end" => x - w,
+        _ => x,
+    };
+    Some((key.clone(), [x0, y - 0.75 * em, x0 + w, y + 0.25 * em]))
+}
+
+fn dim_labels(nodes: &[Node], out: &mut Vec<(String, [f64; 4])>) {
+    for n in nodes {
+        match n {
+            Node::Group { children, .. } => dim_labels(children, out),
+            n => out.extend(label_box(n).filter(|(k, _)| k.starts_with("dim-"))),
+        }
+    }
+}
+
+/// Whether a box and a disc (centre, radius) overlap: the box point nearest the centre is
+/// inside the disc.
+fn box_meets_disc(b: [f64; 4], c: [f64; 2], r: f64) -> bool {
+    let nx = c[0].clamp(b[0], b[2]);
+    let ny = c[1].clamp(b[1], b[3]);
+    (nx - c[0]).hypot(ny - c[1]) < r
+}
+
+/// With dimensions shown, every label is readable: none lies on a tyre (the disc out to the
+/// tyre's outer edge, stroke included), none on another label, and each is inside the view box.
+#[test]
+fn dimension_labels_keep_off_the_tyres_and_each_other() {
+    let n = numbers();
+    let o = full();
+    let d = drawing(&scene(&o, &n));
+    let mut labels = Vec::new();
+    dim_labels(&d.nodes, &mut labels);
+    assert_eq!(labels.len(), 6, "{labels:?}");
+    let tyres = [
+        ([o.rear_axle[0], -o.rear_axle[1]], o.rear_radius + 15.0),
+        ([o.front_axle[0], -o.front_axle[1]], o.front_radius + 15.0),
+    ];
+    let vb: Vec<f64> = d
+        .view_box
+        .split(' ')
+        .filter_map(|v| v.parse().ok())
+        .collect();
+    assert_eq!(vb.len(), 4);
+    for (i, (key, b)) in labels.iter().enumerate() {
+        for (c, r) in tyres {
+            assert!(!box_meets_disc(*b, c, r), "{key} {b:?} lies on a tyre");
+        }
+        for (other, ob) in &labels[i + 1..] {
+            let apart = b[2] <= ob[0] || ob[2] <= b[0] || b[3] <= ob[1] || ob[3] <= b[1];
+            assert!(apart, "{key} {b:?} overlaps {other} {ob:?}");
+        }
+        let inside =
+            b[0] >= vb[0] && b[1] >= vb[1] && b[2] <= vb[0] + vb[2] && b[3] <= vb[1] + vb[3];
+        assert!(inside, "{key} {b:?} outside the view box {vb:?}");
+    }
+}
