@@ -70,6 +70,7 @@ test('an edited page gives a link that opens the same in a new browser context',
   // Every value the page holds comes back (numbers as typed at the link's resolution).
   assert.deepEqual(got, want);
   assert.equal(await other.page.locator('#drawing svg').innerHTML(), await page.locator('#drawing svg').innerHTML());
+  await other.page.evaluate(() => { document.documentElement.dataset.renderAll = ''; });
   await other.page.screenshot({ path: `${SHOTS}/links-opened.png`, fullPage: true });
   assert.deepEqual([...problems, ...other.problems], []);
   await other.context.close();
@@ -99,6 +100,7 @@ test('a garbled link shows its message, the page stays usable and saved data is 
     assert.deepEqual(other.problems, []);
     await other.context.close();
   }
+  await page.evaluate(() => { document.documentElement.dataset.renderAll = ''; });
   await page.screenshot({ path: `${SHOTS}/links-garbled.png`, fullPage: true });
   assert.deepEqual(problems, []);
   await context.close();

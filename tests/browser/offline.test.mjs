@@ -100,6 +100,7 @@ test('after one visit the page opens and draws with the server stopped', T, asyn
     await second.goto(base);
     await second.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
     assert.equal(await second.locator('#drawing svg .ridden .tyre').count(), 2);
+    await second.evaluate(() => { document.documentElement.dataset.renderAll = ''; });
     await second.screenshot({ path: `${SHOTS}/offline.png`, fullPage: true });
     assert.deepEqual(problems, []);
   } finally {

@@ -4,16 +4,16 @@
 // build machine, four times that with the CPU slowed like a phone's), and one edit changes 20–70
 // numbers, mostly in tables the person cannot see at that moment. So every part of the page that
 // an edit rewrites (the drawing, each result table or list) is painted through `paint`: at once
-// when the part is on or near the screen, else queued. The queue is written in the next task
-// (a run of quick edits writes only the last values), or earlier when a queued part scrolls near
+// when the part is on the screen, else queued. The queue is written in the next task
+// (a run of quick edits writes only the last values), or earlier when a queued part scrolls onto
 // the screen. The document never stays stale: `<html data-stale>` is set while anything is queued
 // and removed when the queue is written (tests and the benchmark wait for it).
 
-const MARGIN = '50%'; // "near": within half a screen of the viewport
+const MARGIN = '0px'; // on the screen itself: a queued part is written in the next task anyway
 
 /**
  * Returns { watch(el), forget(el), paint(el, fn), flush(), settled() }.
- * watch(el): track whether el is near the screen; forget(el): stop (el left the page). paint(el, fn): run fn now when el is near the
+ * watch(el): track whether el is on the screen; forget(el): stop (el left the page). paint(el, fn): run fn now when el is on the
  * screen (or not yet known to be off it), else queue it (replacing what was queued for el).
  * flush(): write the queue now. settled(): a promise for the moment the queue is empty.
  */
