@@ -35,9 +35,11 @@ function fieldRow(f) {
   const id = idFor(f.name);
   const input = control(f, id);
   input.setAttribute('aria-describedby', `${id}-def`);
+  // A text box sits in its own block (`.box`, styled with containment in style.css), so that
+  // typing re-lays out the box alone and not the form around it.
   return el('div', { class: `field kind-${f.kind}` },
     el('label', { htmlFor: id }, f.label),
-    input,
+    input.tagName === 'INPUT' ? el('span', { class: 'box' }, input) : input,
     el('span', { class: 'unit', 'aria-hidden': 'true' }, f.unit),
     el('p', { class: 'def', id: `${id}-def` }, f.definition),
     el('p', { class: 'msg', id: `${id}-msg`, role: 'alert' }));
