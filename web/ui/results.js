@@ -46,7 +46,9 @@ function defRow(key, words, span) {
 }
 
 // The results as data first: blocks of tables and lists. An edit that keeps the blocks' shape
-// (same rows, same columns, same notes) only rewrites texts and classes through `refs`.
+// (same rows, same columns, same notes) only rewrites texts and classes through `refs`. A row's
+// cells are formatted only when read (a getter), so a block off the screen formats its numbers
+// when the painter writes it, not in the edit's handler.
 
 function numberKeys(obj) {
   return Object.keys(obj ?? {}).filter((k) => typeof obj[k] === 'number');
@@ -59,11 +61,13 @@ function frameBlock(bike, notes, catalogue) {
     return {
       key,
       cls: `${r ? 'given' : ''}${bad ? ' inconsistent' : ''}`,
-      cells: [
-        ['given', r ? `${bad ? '⚠ ' : ''}${format(key, r.given)}` : '–'],
-        ['stock', format(key, bike.stock[key])],
-        ['ridden', format(key, bike.ridden[key])],
-      ],
+      get cells() {
+        return [
+          ['given', r ? `${bad ? '⚠ ' : ''}${format(key, r.given)}` : '–'],
+          ['stock', format(key, bike.stock[key])],
+          ['ridden', format(key, bike.ridden[key])],
+        ];
+      },
       note: notes[key],
     };
   });
@@ -73,7 +77,7 @@ function frameBlock(bike, notes, catalogue) {
 function simpleBlock(caption, obj) {
   const keys = numberKeys(obj);
   if (!keys.length) return null;
-  return { type: 'table', caption, cols: ['Measure', 'Value'], rows: keys.map((key) => ({ key, cls: '', cells: [['value', format(key, obj[key])]] })) };
+  return { type: 'table', caption, cols: ['Measure', 'Value'], rows: keys.map((key) => ({ key, cls: '', get cells() { return [['value', format(key, obj[key])]]; } })) };
 }
 
 function postureBlock(caption, block) {
@@ -83,7 +87,7 @@ function postureBlock(caption, block) {
   const title = (c) => c.charAt(0).toUpperCase() + c.slice(1);
   return {
     type: 'table', caption, cols: ['Measure', ...cols.map(title)],
-    rows: keys.map((key) => ({ key, cls: '', cells: cols.map((c) => [c, format(key, block[c][key])]) })),
+    rows: keys.map((key) => ({ key, cls: '', get cells() { return cols.map((c) => [c, format(key, block[c][key])]); } })),
   };
 }
 
@@ -238,19 +242,21 @@ export function renderResults(container, bike, notes, catalogue, words, painter)
     rebuildAll = false;
     return;
   }
+  // Each block is compared, formatted and written when the painter writes it: at once on the
+  // screen, in the next task off it. A later edit's write for the same node replaces a queued one.
   blocks.forEach((b, i) => {
     const part = parts[i];
-    if (shapeOf(b) === part.shape) {
-      const vals = values(b);
-      painter.paint(part.node, () => patch(part.refs, vals));
-      return;
-    }
-    const fresh = build(b, words);
-    parts[i] = fresh;
-    const old = part.node;
-    painter.forget(old);
-    old.replaceWith(fresh.node);
-    painter.watch(fresh.node);
+    painter.paint(part.node, () => {
+      if (shapeOf(b) === part.shape) {
+        patch(part.refs, values(b));
+        return;
+      }
+      const fresh = build(b, words);
+      parts[i] = fresh;
+      painter.forget(part.node);
+      part.node.replaceWith(fresh.node);
+      painter.watch(fresh.node);
+    });
   });
 }
 
