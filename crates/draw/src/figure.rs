@@ -57,7 +57,16 @@ pub fn rider(f: &RiderFigure, posture: &str) -> Node {
     }
 }
 
-/// The centre of mass, its lines to both contact points, and the limits written on them.
+/// The step of the handling labels' positions, mm: a label stays put while the centre of mass
+/// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
+const LABEL_STEP_MM: f64 = 10.0;
+
+fn snap(p: Xy) -> Xy {
+    p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
+}
+
+/// The centre of mass, its lines to both contact points, and the limits written on them (at
+/// positions on a [`LABEL_STEP_MM`] grid).
 pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
     let k = |name: &str| format!("{posture}-{name}");
     let mut kids = vec![
@@ -77,7 +86,7 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
     if let Some(b) = limits.braking_g {
         kids.push(text(
             k("braking"),
-            [c[0] + 40.0, c[1] + 30.0],
+            snap([c[0] + 40.0, c[1] + 30.0]),
             format!("braking limit {} g", num(b, 2)),
             "start",
             class,
@@ -86,7 +95,7 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
     if let Some(d) = limits.climb_deg {
         kids.push(text(
             k("climb"),
-            mid(c, o.rear_contact),
+            snap(mid(c, o.rear_contact)),
             format!("climb {}°", num(d, 0)),
             "end",
             class,
@@ -95,7 +104,7 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
     if let Some(d) = limits.descent_deg {
         kids.push(text(
             k("descent"),
-            mid(c, o.front_contact),
+            snap(mid(c, o.front_contact)),
             format!("descent {}°", num(d, 0)),
             "start",
             class,

@@ -101,17 +101,27 @@ pub fn draw(scene: &Scene) -> String {
     drawing(scene).svg()
 }
 
+/// The step of the view box's edges, mm: see [`drawing`].
+pub const VIEW_STEP_MM: f64 = 50.0;
+
 /// The side view of one scene: ground, the stock ghost, the ridden bike, riders, centres of
-/// mass and dimensions, fitted to its own extent.
+/// mass and dimensions, fitted to its own extent (edges on whole [`VIEW_STEP_MM`] steps).
 pub fn drawing(scene: &Scene) -> Drawing {
     let o = scene.ridden;
     let (x0, y0, x1, y1) = extent(o);
     let (gx0, gy0, gx1, gy1) = extent(scene.stock);
     let pad = 80.0;
-    let min_x = x0.min(gx0) - pad;
-    let max_x = x1.max(gx1) + pad;
-    let top = y1.max(gy1) + pad * 1.8;
-    let bottom = y0.min(gy0) - pad * 2.0;
+    // The view box grows outward to whole steps, so that an edit that moves the bike a few
+    // millimetres keeps the same view box: the page then lays out only the paths that changed,
+    // not every label again (scripts/bench-layout.mjs, docs/BENCHMARKS.md).
+    let out = |v: f64, up: bool| {
+        let q = v / VIEW_STEP_MM;
+        (if up { q.ceil() } else { q.floor() }) * VIEW_STEP_MM
+    };
+    let min_x = out(x0.min(gx0) - pad, false);
+    let max_x = out(x1.max(gx1) + pad, true);
+    let top = out(y1.max(gy1) + pad * 1.8, true);
+    let bottom = out(y0.min(gy0) - pad * 2.0, false);
     let view_box = [min_x, -top, max_x - min_x, top - bottom]
         .map(num::mm)
         .join(" ");

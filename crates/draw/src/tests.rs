@@ -439,3 +439,62 @@ fn dimension_labels_keep_off_the_tyres_and_each_other() {
         assert!(inside, "{key} {b:?} outside the view box {vb:?}");
     }
 }
+
+/// Small edits keep the view box and the handling labels where they were: the view box's edges
+/// are whole 50 mm steps and the labels sit on a 10 mm grid, so moving the front wheel by 0 to
+/// 5 mm (in 1 mm steps) gives at most two view boxes, not six.
+#[test]
+fn small_edits_keep_the_view_box_and_the_labels() {
+    let n = numbers();
+    let mut boxes = std::collections::BTreeSet::new();
+    for mm in 0..6 {
+        let mut o = full();
+        o.front_axle[0] += f64::from(mm);
+        o.front_contact[0] += f64::from(mm);
+        o.steer_ground[0] += f64::from(mm);
+        let d = drawing(&scene(&o, &n));
+        let edges: Vec<f64> = d
+            .view_box
+            .split(' ')
+            .filter_map(|v| v.parse().ok())
+            .collect();
+        assert_eq!(edges.len(), 4);
+        for e in [edges[0], edges[1], edges[0] + edges[2], edges[1] + edges[3]] {
+            assert!(
+                (e / VIEW_STEP_MM).fract().abs() < 1e-9,
+                "{} not on a step",
+                d.view_box
+            );
+        }
+        boxes.insert(d.view_box.clone());
+        let mut labels = Vec::new();
+        all_texts(&d.nodes, &mut labels);
+        for (key, x, y) in labels.iter().filter(|(k, _, _)| !k.starts_with("dim-")) {
+            assert!(
+                (x / 10.0).fract().abs() < 1e-9 && (y / 10.0).fract().abs() < 1e-9,
+                "{key} at {x}, {y}"
+            );
+        }
+        assert!(
+            labels.iter().any(|(k, _, _)| k == "seated-braking"),
+            "{labels:?}"
+        );
+    }
+    assert!(boxes.len() <= 2, "{boxes:?}");
+}
+
+fn all_texts(nodes: &[Node], out: &mut Vec<(String, f64, f64)>) {
+    for n in nodes {
+        match n {
+            Node::Group { children, .. } => all_texts(children, out),
+            Node::Text { key, x, y, .. } => {
+                out.push((
+                    key.clone(),
+                    x.parse().unwrap_or(f64::NAN),
+                    y.parse().unwrap_or(f64::NAN),
+                ));
+            }
+            Node::Path { .. } => {}
+        }
+    }
+}
