@@ -13,19 +13,27 @@ pub mod link;
 
 /// Evaluates the page's form and makes its share link. `fields_json`: `{ "<field name>":
 /// "<typed text>", … }`; `view_json`: the view choices as a JSON object (or empty). Returns
-/// `{report, svg, drawing, notes, field_errors, link}` as JSON text: each error's `field` is a
-/// form field name; `link` is the link fragment with its leading `#`, or `null` when a field does
-/// not read or the link cannot hold a value. One call: the form is read once for the drawing, the
-/// tables and the link. The page's call on every edit, so `svg` is `null`: the drawing comes as
-/// `drawing` (`{structure, patch}`, applied in place) and [`drawing_svg`] gives the document
-/// when the structure changed.
+/// `{report, svg, notes, field_errors, link}` as JSON text: each error's `field` is a form field
+/// name; `link` is the link fragment with its leading `#`, or `null` when a field does not read or
+/// the link cannot hold a value. One call: the form is read once for the tables and the link.
+/// The page's call on every edit, so `svg` is `null` and there is no drawing: the page asks
+/// [`drawing_patch`] for it (`{structure, patch}`, applied in place) when it writes the drawing,
+/// and [`drawing_svg`] for the document when the structure changed.
 #[wasm_bindgen]
 pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
     framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)
 }
 
-/// The SVG document of the drawing the last [`evaluate_form_linked`] call made (empty text when
-/// it made none): asked for only when the drawing's structure changed.
+/// The drawing of the last [`evaluate_form_linked`] call that evaluated, as `{structure, patch}`
+/// JSON text (`null` before any): the page asks for it when it writes the drawing, at once when
+/// the drawing is on the screen, else in the next task.
+#[wasm_bindgen]
+pub fn drawing_patch() -> String {
+    framewise_web_core::last_drawing_patch()
+}
+
+/// The SVG document of the drawing the last [`drawing_patch`] call made (empty text when it made
+/// none): asked for only when the drawing's structure changed.
 #[wasm_bindgen]
 pub fn drawing_svg() -> String {
     framewise_web_core::last_drawing_svg()
@@ -80,14 +88,57 @@ pub mod framewise_web_core {
     }
 
     std::thread_local! {
-        /// The drawing of the last linked evaluation, for [`last_drawing_svg`].
+        /// The report of the last linked evaluation that evaluated, for [`last_drawing_patch`].
+        static LAST_REPORT: std::cell::RefCell<Option<Report>> =
+            const { std::cell::RefCell::new(None) };
+        /// The drawing [`last_drawing_patch`] made last, for [`last_drawing_svg`].
         static LAST_DRAWING: std::cell::RefCell<Option<framewise_draw::Drawing>> =
             const { std::cell::RefCell::new(None) };
     }
 
-    /// The SVG of the drawing the last [`evaluate_form_linked_to_json`] made, or empty text.
+    /// The drawing of the last [`evaluate_form_linked_to_json`] that evaluated (a form with a
+    /// field that does not read leaves the one before), as `{structure, patch}` JSON text, or
+    /// `null` before any. The drawing is kept for [`last_drawing_svg`].
+    pub fn last_drawing_patch() -> String {
+        let d = LAST_REPORT.with(|r| {
+            r.borrow()
+                .as_ref()
+                .and_then(|r| r.bikes.first().map(drawing_of))
+        });
+        let Some(d) = d else {
+            return "null".into();
+        };
+        let json = serde_json::to_string(&patch_of(&d)).unwrap_or_else(|_| "null".into());
+        LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
+        json
+    }
+
+    /// The SVG of the drawing [`last_drawing_patch`] made last, or empty text.
     pub fn last_drawing_svg() -> String {
         LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.svg()).unwrap_or_default())
+    }
+
+    /// One bike's drawing with its handling limits (crates/draw).
+    fn drawing_of(bike: &framewise_kernel::report::BikeReport) -> framewise_draw::Drawing {
+        framewise_draw::drawing(&framewise_draw::Scene {
+            label: &bike.label,
+            ridden: &bike.outline,
+            stock: &bike.stock_outline,
+            numbers: &bike.ridden,
+            seated: limits(&bike.handling.seated),
+            standing: limits(&bike.handling.standing),
+        })
+    }
+
+    fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch {
+        DrawingPatch {
+            structure: d.structure(),
+            patch: d
+                .patch()
+                .into_iter()
+                .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
+                .collect(),
+        }
     }
 
     /// The drawing's patch (crates/draw `Drawing::patch`): the page applies it in place when
@@ -290,50 +341,37 @@ pub mod framewise_web_core {
                 field_errors.push(e);
             }
         }
-        let drawn = report
+        let ok = field_errors.is_empty() && !report.bikes.is_empty();
+        let notes = report
             .bikes
             .first()
-            .filter(|_| field_errors.is_empty())
-            .map(|bike| {
-                let d = framewise_draw::drawing(&framewise_draw::Scene {
-                    label: &bike.label,
-                    ridden: &bike.outline,
-                    stock: &bike.stock_outline,
-                    numbers: &bike.ridden,
-                    seated: limits(&bike.handling.seated),
-                    standing: limits(&bike.handling.standing),
-                });
-                let patch = DrawingPatch {
-                    structure: d.structure(),
-                    patch: d
-                        .patch()
-                        .into_iter()
-                        .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
-                        .collect(),
-                };
-                // The page's per-edit (linked) call leaves the SVG text for `drawing_svg`:
-                // writing it costs most of the drawing's time and the page rarely needs it.
-                let svg = if link.is_some() {
-                    LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
-                    None
-                } else {
-                    Some(d.svg())
-                };
-                (
-                    (svg, patch),
-                    framewise_formats::fields::residual_notes(bike),
-                )
-            });
-        let (drawn, notes) = drawn.unzip();
+            .filter(|_| ok)
+            .map(framewise_formats::fields::residual_notes);
+        if link.is_some() {
+            // The page's per-edit call: no drawing here. The page asks `drawing_patch` for it
+            // when it writes the drawing, which is in the next task when the drawing is off the
+            // screen (a person typing in a field lower down): the report is remembered for it.
+            let json = serde_json::to_string(&FormResult {
+                report: ReportJson::Page(PageReport::of(&report)),
+                svg: None,
+                drawing: None,
+                notes,
+                field_errors,
+                link,
+            })
+            .unwrap_or_else(|_| "{}".into());
+            if ok {
+                LAST_REPORT.with(|last| *last.borrow_mut() = Some(report));
+            }
+            return json;
+        }
+        let drawn = report.bikes.first().filter(|_| ok).map(|bike| {
+            let d = drawing_of(bike);
+            (d.svg(), patch_of(&d))
+        });
         let (svg, drawing) = drawn.unzip();
-        let svg = svg.flatten();
-        let report = if link.is_some() {
-            ReportJson::Page(PageReport::of(&report))
-        } else {
-            ReportJson::Whole(&report)
-        };
         serde_json::to_string(&FormResult {
-            report,
+            report: ReportJson::Whole(&report),
             svg,
             drawing,
             notes,
@@ -458,16 +496,21 @@ mod tests {
         let link = crate::link::link_core::link_from_form(form, view).unwrap_or_default();
         assert!(link.starts_with('#') && link.len() > 8, "{link}");
         assert_eq!(linked["link"], link.as_str());
-        if let Some(obj) = linked.as_object_mut() {
+        // The linked call leaves the drawing to `last_drawing_patch` (then the SVG text to
+        // `last_drawing_svg`): the same drawing as the plain call's.
+        let patch: serde_json::Value =
+            serde_json::from_str(&last_drawing_patch()).unwrap_or_default();
+        assert!(patch["patch"].as_array().is_some_and(|p| p.len() > 40));
+        assert_eq!(patch, alone["drawing"]);
+        assert_eq!(last_drawing_svg(), alone["svg"].as_str().unwrap_or("none"));
+        if let (Some(obj), Some(whole)) = (linked.as_object_mut(), alone.as_object_mut()) {
             obj.remove("link");
-            // The linked call leaves the SVG text to `last_drawing_svg`.
-            assert_eq!(
-                obj.insert("svg".into(), alone["svg"].clone()),
-                Some(serde_json::Value::Null)
-            );
+            assert_eq!(obj.remove("svg"), Some(serde_json::Value::Null));
+            assert_eq!(obj.get("drawing"), None);
+            whole.remove("svg");
+            whole.remove("drawing");
         }
         assert_eq!(linked, alone);
-        assert_eq!(last_drawing_svg(), alone["svg"].as_str().unwrap_or("none"));
         // A field that does not read, or a view that does not: no link, the errors as before.
         let bad: serde_json::Value = serde_json::from_str(&evaluate_form_linked_to_json(
             r#"{"frame.reach_mm":"long"}"#,
@@ -476,10 +519,14 @@ mod tests {
         .unwrap_or_default();
         assert!(bad["link"].is_null());
         assert_eq!(bad["field_errors"][0]["field"], "frame.reach_mm");
+        // … and the drawing stays the last good one.
+        let kept: serde_json::Value =
+            serde_json::from_str(&last_drawing_patch()).unwrap_or_default();
+        assert_eq!(kept, patch);
         let bad_view: serde_json::Value =
             serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
         assert!(bad_view["link"].is_null());
-        assert!(bad_view["drawing"]["structure"].is_string());
+        assert!(bad_view["report"]["bikes"][0]["stock"]["reach_mm"].is_number());
     }
 
     /// The page's solve memo changes only the time: a series of form edits (frame, rider,
