@@ -14,22 +14,14 @@ use criterion::{criterion_group, criterion_main, Criterion};
 use framewise_kernel::{evaluate, Scenario};
 use std::hint::black_box;
 
-/// An invented trail bike with a rider, a fork change and sag (ghost and ridden differ).
+/// The project's invented demo scenario (tests/scenarios/demo.json) with a fork change and sag,
+/// so that the ghost and the ridden bike differ.
 fn scenario() -> Scenario {
-    serde_json::from_value(serde_json::json!({
-        "rider": { "height_mm": 1780, "mass_kg": 74, "inseam_mm": 840 },
-        "bikes": [{ "label": "bench",
-            "frame": { "reach_mm": 470, "stack_mm": 635, "head_angle_deg": 65.0,
-                       "head_tube_mm": 110, "headset_lower_mm": 12, "fork_a2c_mm": 561,
-                       "fork_offset_mm": 44, "chainstay_mm": 435,
-                       "seat_angle_actual_deg": 76.5, "seat_tube_mm": 430 },
-            "wheels": { "front": "29x2.4", "rear": "29x2.4" },
-            "setup": { "headset_upper_mm": 8, "spacers_mm": 10, "stem_stack_mm": 40,
-                       "stem_mm": 45, "stem_angle_deg": 0, "bar_rise_mm": 25,
-                       "crank_mm": 170, "saddle_height_mm": 735 },
-            "changes": { "fork_travel_mm": 150, "front_sag_pct": 20, "rear_travel_mm": 140,
-                         "rear_sag_pct": 30 } }] }))
-    .expect("bench scenario")
+    let mut v: serde_json::Value =
+        serde_json::from_str(include_str!("../../../tests/scenarios/demo.json")).expect("demo");
+    v["bikes"][0]["changes"] = serde_json::json!({ "fork_travel_mm": 150, "front_sag_pct": 20,
+        "rear_travel_mm": 140, "rear_sag_pct": 30 });
+    serde_json::from_value(v).expect("bench scenario")
 }
 
 fn bench(c: &mut Criterion) {

@@ -13,28 +13,22 @@ use criterion::{criterion_group, criterion_main, Criterion};
 use framewise_kernel::{evaluate, Scenario};
 use std::hint::black_box;
 
+/// The project's invented demo scenario (tests/scenarios/demo.json) with a fork change and sag,
+/// a flat bar's sweep and width, and (`target`) a grip point for the cockpit parts search.
 fn scenario(target: bool) -> Scenario {
-    let mut setup = serde_json::json!({
-        "headset_upper_mm": 8, "spacers_mm": 10, "stem_stack_mm": 40, "stem_mm": 45,
-        "stem_angle_deg": 0, "bar_rise_mm": 25, "bar_backsweep_deg": 8, "bar_upsweep_deg": 5,
-        "bar_width_mm": 780, "crank_mm": 170, "saddle_height_mm": 735,
-        "post_length_mm": 430, "post_min_insertion_mm": 100, "max_insertion_mm": 280 });
+    let mut v: serde_json::Value =
+        serde_json::from_str(include_str!("../../../tests/scenarios/demo.json")).expect("demo");
+    let bike = &mut v["bikes"][0];
+    bike["changes"] = serde_json::json!({ "fork_travel_mm": 150, "front_sag_pct": 20,
+        "rear_travel_mm": 140, "rear_sag_pct": 30 });
+    bike["setup"]["bar_backsweep_deg"] = serde_json::json!(8);
+    bike["setup"]["bar_upsweep_deg"] = serde_json::json!(5);
+    bike["setup"]["bar_width_mm"] = serde_json::json!(780);
     if target {
-        setup["target_grip_x_mm"] = serde_json::json!(440);
-        setup["target_grip_y_mm"] = serde_json::json!(730);
+        bike["setup"]["target_grip_x_mm"] = serde_json::json!(440);
+        bike["setup"]["target_grip_y_mm"] = serde_json::json!(730);
     }
-    serde_json::from_value(serde_json::json!({
-        "rider": { "height_mm": 1780, "mass_kg": 74, "inseam_mm": 840 },
-        "bikes": [{ "label": "bench",
-            "frame": { "reach_mm": 470, "stack_mm": 635, "head_angle_deg": 65.0,
-                       "head_tube_mm": 110, "headset_lower_mm": 12, "fork_a2c_mm": 561,
-                       "fork_offset_mm": 44, "chainstay_mm": 435,
-                       "seat_angle_actual_deg": 76.5, "seat_tube_mm": 430 },
-            "wheels": { "front": "29x2.4", "rear": "29x2.4" },
-            "setup": setup,
-            "changes": { "fork_travel_mm": 150, "front_sag_pct": 20, "rear_travel_mm": 140,
-                         "rear_sag_pct": 30 } }] }))
-    .expect("bench scenario")
+    serde_json::from_value(v).expect("bench scenario")
 }
 
 fn bench(c: &mut Criterion) {

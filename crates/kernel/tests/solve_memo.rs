@@ -10,19 +10,12 @@ use framewise_kernel::{evaluate, evaluate_with, Scenario, SolveMemo};
 use proptest::prelude::*;
 use serde_json::{json, Value};
 
+/// The project's invented demo scenario (tests/scenarios/demo.json), with no changes.
 fn base() -> Value {
-    json!({
-        "rider": { "height_mm": 1780, "mass_kg": 74, "inseam_mm": 840 },
-        "bikes": [{ "label": "memo",
-            "frame": { "reach_mm": 470, "stack_mm": 635, "head_angle_deg": 65.0,
-                       "head_tube_mm": 110, "headset_lower_mm": 12, "fork_a2c_mm": 561,
-                       "fork_offset_mm": 44, "chainstay_mm": 435,
-                       "seat_angle_actual_deg": 76.5, "seat_tube_mm": 430 },
-            "wheels": { "front": "29x2.4", "rear": "29x2.4" },
-            "setup": { "headset_upper_mm": 8, "spacers_mm": 10, "stem_stack_mm": 40,
-                       "stem_mm": 45, "bar_rise_mm": 25, "crank_mm": 170,
-                       "saddle_height_mm": 735 },
-            "changes": {} }] })
+    let mut v: Value =
+        serde_json::from_str(include_str!("../../../tests/scenarios/demo.json")).unwrap();
+    v["bikes"][0]["changes"] = json!({});
+    v
 }
 
 /// Sets the member at a JSON pointer, making it when missing.
