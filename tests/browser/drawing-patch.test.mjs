@@ -6,6 +6,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { startAll, openPage, SHOTS } from './harness.mjs';
+import { zoomIn } from './page-helpers.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -65,11 +66,7 @@ test('a part that goes or comes replaces the drawing; a zoom survives a patch', 
   // Zoom, then an edit that moves the bike's fit: the view stays; Fit shows the new fit.
   const svg = page.locator('#drawing svg');
   await svg.scrollIntoViewIfNeeded();
-  const fit = await svg.getAttribute('viewBox');
-  const box = await svg.boundingBox();
-  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-  await page.mouse.wheel(0, -400);
-  const zoomed = await svg.getAttribute('viewBox');
+  const { fit, zoomed } = await zoomIn(page);
   assert.notEqual(zoomed, fit);
   await page.evaluate(() => { window.kept = document.querySelector('#drawing svg'); });
   const fork = await d(page, 'ridden-fork-leg');

@@ -5,7 +5,7 @@ import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import AxeBuilder from '@axe-core/playwright';
 import { startAll, openPage, SHOTS } from './harness.mjs';
-import { waitCell } from './page-helpers.mjs';
+import { waitCell, zoomIn } from './page-helpers.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -90,11 +90,7 @@ for (const [name, width, height] of SIZES) {
     await page.locator('label.toggle:has(#show-ghost)').click();
     assert.deepEqual(await shown(page, '#drawing svg .ghost'), [false]);
     const svg = page.locator('#drawing svg');
-    const fit = await svg.getAttribute('viewBox');
-    const box = await svg.boundingBox();
-    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-    await page.mouse.wheel(0, -400);
-    const zoomed = await svg.getAttribute('viewBox');
+    const { fit, zoomed, box } = await zoomIn(page);
     assert.notEqual(zoomed, fit);
     assert.ok(Number(zoomed.split(' ')[2]) < Number(fit.split(' ')[2]), 'zoomed in');
     // Drag pans; the view is kept when an edit redraws.

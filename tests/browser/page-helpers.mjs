@@ -1,4 +1,5 @@
-// Helpers shared by the page tests: read a number from the result tables, wait for one.
+// Helpers shared by the page tests: read a number from the result tables, wait for one, zoom
+// the drawing.
 import assert from 'node:assert/strict';
 import { settled } from './harness.mjs';
 
@@ -18,3 +19,16 @@ export async function waitCell(page, key, want, tol, col = 'ridden') {
   assert.ok(Math.abs(got - want) <= tol, `${key} (${col}) shown ${got}, formula ${want}`);
 }
 
+
+/**
+ * Wheel-zooms into the middle of the drawing; returns its viewBox before (`fit`) and after
+ * (`zoomed`), and its box.
+ */
+export async function zoomIn(page) {
+  const svg = page.locator('#drawing svg');
+  const fit = await svg.getAttribute('viewBox');
+  const box = await svg.boundingBox();
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.wheel(0, -400);
+  return { fit, zoomed: await svg.getAttribute('viewBox'), box };
+}

@@ -389,13 +389,16 @@ fn label_box(node: &Node) -> Option<(String, [f64; 4])> {
     Some((key.clone(), [x0, y - 0.75 * em, x0 + w, y + 0.25 * em]))
 }
 
-fn dim_labels(nodes: &[Node], out: &mut Vec<(String, [f64; 4])>) {
-    for n in nodes {
-        match n {
-            Node::Group { children, .. } => dim_labels(children, out),
-            n => out.extend(label_box(n).filter(|(k, _)| k.starts_with("dim-"))),
-        }
-    }
+/// Every text of a drawing, in order.
+fn texts(nodes: &[Node]) -> Vec<&Node> {
+    nodes
+        .iter()
+        .flat_map(|n| match n {
+            Node::Group { children, .. } => texts(children),
+            Node::Text { .. } => vec![n],
+            Node::Path { .. } => Vec::new(),
+        })
+        .collect()
 }
 
 /// Whether a box and a disc (centre, radius) overlap: the box point nearest the centre is
@@ -413,8 +416,11 @@ fn dimension_labels_keep_off_the_tyres_and_each_other() {
     let n = numbers();
     let o = full();
     let d = drawing(&scene(&o, &n));
-    let mut labels = Vec::new();
-    dim_labels(&d.nodes, &mut labels);
+    let labels: Vec<_> = texts(&d.nodes)
+        .into_iter()
+        .filter_map(label_box)
+        .filter(|(k, _)| k.starts_with("dim-"))
+        .collect();
     assert_eq!(labels.len(), 6, "{labels:?}");
     let tyres = [
         ([o.rear_axle[0], -o.rear_axle[1]], o.rear_radius + 15.0),
@@ -467,8 +473,15 @@ fn small_edits_keep_the_view_box_and_the_labels() {
             );
         }
         boxes.insert(d.view_box.clone());
-        let mut labels = Vec::new();
-        all_texts(&d.nodes, &mut labels);
+        let labels: Vec<(String, f64, f64)> = texts(&d.nodes)
+            .into_iter()
+            .filter_map(|n| match n {
+                Node::Text { key, x, y, .. } => {
+                    Some((key.clone(), x.parse().ok()?, y.parse().ok()?))
+                }
+                _ => None,
+            })
+            .collect();
         for (key, x, y) in labels.iter().filter(|(k, _, _)| !k.starts_with("dim-")) {
             assert!(
                 (x / 10.0).fract().abs() < 1e-9 && (y / 10.0).fract().abs() < 1e-9,
@@ -481,20 +494,4 @@ fn small_edits_keep_the_view_box_and_the_labels() {
         );
     }
     assert!(boxes.len() <= 2, "{boxes:?}");
-}
-
-fn all_texts(nodes: &[Node], out: &mut Vec<(String, f64, f64)>) {
-    for n in nodes {
-        match n {
-            Node::Group { children, .. } => all_texts(children, out),
-            Node::Text { key, x, y, .. } => {
-                out.push((
-                    key.clone(),
-                    x.parse().unwrap_or(f64::NAN),
-                    y.parse().unwrap_or(f64::NAN),
-                ));
-            }
-            Node::Path { .. } => {}
-        }
-    }
 }
