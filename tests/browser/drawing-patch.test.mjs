@@ -6,7 +6,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { startAll, openPage, SHOTS } from './harness.mjs';
-import { zoomIn } from './page-helpers.mjs';
+import { zoomIn, showEveryLayer } from './page-helpers.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -15,7 +15,8 @@ after(async () => { await env?.stop(); });
 const T = { timeout: 60000 };
 const SIZES = [['phone', 360, 740], ['desk', 1280, 800]];
 
-const d = (page, key) => page.getAttribute(`#drawing [data-k="${key}"]`, 'd');
+const d = (page, key) => page.getAttribute(`#drawing [data-k="${key}"]`, 'points');
+const ghostOf = (page) => page.evaluate(() => [...document.querySelectorAll('#drawing .ghost polyline')].map((p) => p.getAttribute('points')).join(' | '));
 const markup = (page) => page.locator('#drawing svg').evaluate((s) => s.outerHTML.replace(/ data-fit="[^"]*"/, ''));
 
 for (const [name, width, height] of SIZES) {
@@ -29,19 +30,25 @@ for (const [name, width, height] of SIZES) {
       };
     });
     const fork = await d(page, 'ridden-fork-leg');
-    const ghost = await d(page, 'ghost-outline');
+    const ghost = await ghostOf(page);
     await page.fill('input[name="frame.reach_mm"]', '489');
-    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('points') !== old, fork, { timeout: 5000 });
     const same = await page.evaluate(() => ({
       svg: document.querySelector('#drawing svg') === window.marked.svg,
       fork: document.querySelector('#drawing [data-k="ridden-fork-leg"]') === window.marked.fork,
       reach: document.querySelector('#drawing [data-k="dim-reach_mm"]') === window.marked.reach,
       reachText: window.marked.reach.textContent,
     }));
-    assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 489 mm' });
+    // The reach label is in the hidden dimensions layer: its new words wait until it is shown.
+    assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 470 mm' });
     assert.notEqual(await d(page, 'ridden-fork-leg'), fork);
-    assert.notEqual(await d(page, 'ghost-outline'), ghost, 'the stock frame moved with its reach');
-    // The patched drawing is exactly what a fresh page draws for the same form.
+    assert.notEqual(await ghostOf(page), ghost, 'the stock frame moved with its reach');
+    await page.locator('label.toggle:has(#show-dims)').click();
+    assert.equal(await page.evaluate(() => window.marked.reach.textContent), 'Reach 489 mm');
+    await page.locator('label.toggle:has(#show-dims)').click();
+    await showEveryLayer(page);
+    // Every layer shown once: the patched drawing is exactly what a fresh page draws for the
+    // same form.
     await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
     const url = await page.locator('#share-url').inputValue();
     const fresh = await openPage(env, { width, height, hash: new URL(url).hash });
@@ -71,7 +78,7 @@ test('a part that goes or comes replaces the drawing; a zoom survives a patch', 
   await page.evaluate(() => { window.kept = document.querySelector('#drawing svg'); });
   const fork = await d(page, 'ridden-fork-leg');
   await page.fill('input[name="frame.reach_mm"]', '520');
-  await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+  await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('points') !== old, fork, { timeout: 5000 });
   assert.equal(await page.evaluate(() => document.querySelector('#drawing svg') === window.kept), true, 'patched');
   assert.equal(await svg.getAttribute('viewBox'), zoomed);
   await page.locator('#fit-view').click();
@@ -97,7 +104,7 @@ for (const [name, width, height] of SIZES) {
     await page.locator('label.toggle:has(#show-dims)').click();
     const fork = await d(page, 'ridden-fork-leg');
     await page.fill('input[name="changes.fork_a2c_delta_mm"]', '40');
-    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('d') !== old, fork, { timeout: 5000 });
+    await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('points') !== old, fork, { timeout: 5000 });
     await shot('fork-ghost');
     assert.deepEqual(problems, []);
     await context.close();

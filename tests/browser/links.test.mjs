@@ -5,6 +5,7 @@ import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
 import { startAll, openPage, ROOT, SHOTS } from './harness.mjs';
+import { showEveryLayer } from './page-helpers.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -69,6 +70,7 @@ test('an edited page gives a link that opens the same in a new browser context',
   const got = await formValues(other.page);
   // Every value the page holds comes back (numbers as typed at the link's resolution).
   assert.deepEqual(got, want);
+  await showEveryLayer(page); // values in hidden layers wait until shown
   assert.equal(await other.page.locator('#drawing svg').innerHTML(), await page.locator('#drawing svg').innerHTML());
   await other.page.evaluate(() => { document.documentElement.dataset.renderAll = ''; });
   await other.page.screenshot({ path: `${SHOTS}/links-opened.png`, fullPage: true });

@@ -32,3 +32,20 @@ export async function zoomIn(page) {
   await page.mouse.wheel(0, -400);
   return { fit, zoomed: await svg.getAttribute('viewBox'), box };
 }
+
+/**
+ * Shows every layer of the drawing once (dimensions, the other posture, the ghost) and returns
+ * to the view it had: values that waited in a hidden layer (web/ui/drawing.js) are then written,
+ * so the drawing's markup is complete.
+ */
+export async function showEveryLayer(page) {
+  const flip = async (sel) => {
+    await page.locator(sel).click();
+    await page.locator(sel).click();
+  };
+  await flip('label.toggle:has(#show-dims)');
+  await flip('label.toggle:has(#show-ghost)');
+  const standing = await page.locator('#posture-standing').isChecked();
+  await page.locator(`label[for="posture-${standing ? 'seated' : 'standing'}"]`).click();
+  await page.locator(`label[for="posture-${standing ? 'standing' : 'seated'}"]`).click();
+}

@@ -1,6 +1,6 @@
 //! Dimension labels on demand: reach, stack, wheelbase, BB height, trail and BB-to-grip, each a
 //! thin line between kernel points with its number from the report (hidden unless the page
-//! shows them). The lines are one path; each label keeps its own group `dim dim-{key}`.
+//! shows them). The lines are one part; each label keeps its own group `dim dim-{key}`.
 
 use crate::model::Node;
 use crate::shapes::{num, text, PathData};

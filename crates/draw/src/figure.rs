@@ -16,7 +16,7 @@ fn foot(l: &Leg) -> [Xy; 5] {
 }
 
 /// The rider as a stick figure, keys prefixed by `posture`: the far leg (its own group, drawn
-/// fainter), then torso, head, the near limbs (neck, arm, near leg: one path), the near foot
+/// fainter), then torso, head, the near limbs (neck, arm, near leg: one part), the near foot
 /// and the hip joint. One colour under one group opacity, so merging limbs changes nothing seen.
 pub fn rider(f: &RiderFigure, posture: &str) -> Node {
     let [near, far] = f.legs;

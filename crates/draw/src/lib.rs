@@ -9,9 +9,10 @@
 //! Lengths are in millimetres (the viewBox is the bike in mm), so strokes and text scale with
 //! the bike; thin annotation lines use `vector-effect: non-scaling-stroke` in the page's CSS.
 //!
-//! **Few elements, stable structure:** the lines, polylines and circles that share a class in
-//! one layer are one `<path>` (a circle is two arcs); numbers are written at 0.1 mm by our own
-//! integer writer ([`num`]). Every path and text has a stable key (`data-k`) and the set of
+//! **Cheap to change, stable structure:** every line, polyline and circle is a `<polyline>` (a
+//! circle is a fine regular polygon), because in Chromium changing a polyline's `points` needs
+//! no restyle, unlike a path's `d` ([`shapes::PathData`]); numbers are written at 0.1 mm by our
+//! own integer writer ([`num`]). Every polyline and text has a stable key (`data-k`) and the set of
 //! elements depends only on which parts exist, so the page patches the changed values
 //! ([`Drawing::patch`]) instead of replacing the document when [`Drawing::structure`] is
 //! unchanged. One model ([`drawing`]), two serialisations ([`Drawing::svg`], [`Drawing::patch`]).
@@ -112,7 +113,7 @@ pub fn drawing(scene: &Scene) -> Drawing {
     let (gx0, gy0, gx1, gy1) = extent(scene.stock);
     let pad = 80.0;
     // The view box grows outward to whole steps, so that an edit that moves the bike a few
-    // millimetres keeps the same view box: the page then lays out only the paths that changed,
+    // millimetres keeps the same view box: the page then lays out only the polylines that changed,
     // not every label again (scripts/bench-layout.mjs, docs/BENCHMARKS.md).
     let out = |v: f64, up: bool| {
         let q = v / VIEW_STEP_MM;

@@ -1,13 +1,13 @@
-//! The drawing model: one tree of groups, paths and texts, serialised two ways — as an SVG
+//! The drawing model: one tree of groups, polylines and texts, serialised two ways — as an SVG
 //! document (the `svg` crate) and as a patch list of the values that change with the numbers.
 //!
-//! Every path and text carries a stable key (`data-k`): the set of elements and their keys
+//! Every polyline and text carries a stable key (`data-k`): the set of elements and their keys
 //! depend only on which parts exist (rider, cockpit, seat, cranks, handling limits, dimension
 //! numbers), never on the numbers themselves. [`Drawing::structure`] names that set, so a page
 //! that already shows a drawing of the same structure can apply [`Drawing::patch`] instead of
 //! replacing the document.
 
-use svg::node::element::{Group, Path, Text, Title};
+use svg::node::element::{Group, Polyline, Text, Title};
 use svg::Document;
 
 /// One element of the drawing.
@@ -20,14 +20,13 @@ pub enum Node {
         /// Its elements, back to front.
         children: Vec<Node>,
     },
-    /// A `<path>`: every line, polyline and circle of one class in one layer.
-    Path {
-        /// Stable key (`data-k`).
-        key: String,
-        /// The path's classes (styled by the page's CSS).
+    /// One styled part: its lines, polylines and circles, each a `<polyline>` with the part's
+    /// classes (styled by the page's CSS).
+    Lines {
+        /// The part's classes.
         class: String,
-        /// The path data, 0.1 mm numbers.
-        d: String,
+        /// Its polylines, in drawing order.
+        lines: Vec<Line>,
     },
     /// A `<text>` label.
     Text {
@@ -44,6 +43,15 @@ pub enum Node {
         /// The words.
         words: String,
     },
+}
+
+/// One `<polyline>` of a [`Node::Lines`].
+#[derive(Debug, Clone, PartialEq)]
+pub struct Line {
+    /// Stable key (`data-k`).
+    pub key: String,
+    /// The `points` text: `x,y` pairs in 0.1 mm numbers, separated by spaces.
+    pub points: String,
 }
 
 /// A whole drawing: the root's view box and title, and its elements back to front.
@@ -77,7 +85,7 @@ impl Drawing {
         for n in &self.nodes {
             doc = match to_svg(n) {
                 Element::G(g) => doc.add(g),
-                Element::P(p) => doc.add(p),
+                Element::L(lines) => lines.into_iter().fold(doc, |d, l| d.add(l)),
                 Element::T(t) => doc.add(t),
             };
         }
@@ -85,7 +93,7 @@ impl Drawing {
     }
 
     /// Every value that depends on the numbers, in document order: the root's `viewBox` and
-    /// `aria-label`, the title's text, each path's `d`, each text's `x`, `y` and text. Applying
+    /// `aria-label`, the title's text, each polyline's `points`, each text's `x`, `y` and text. Applying
     /// it to a drawing of the same [`Drawing::structure`] gives this drawing.
     pub fn patch(&self) -> Vec<Patch<'_>> {
         let mut out = vec![
@@ -120,7 +128,8 @@ impl Drawing {
 
 enum Element {
     G(Group),
-    P(Path),
+    /// A part's polylines, added one by one to the parent.
+    L(Vec<Polyline>),
     /// A `<text>` as a plain element: its words are written inline (`<text …>words</text>`),
     /// exactly the text the patch list gives, with no added line breaks.
     T(svg::node::element::Element),
@@ -133,17 +142,22 @@ fn to_svg(n: &Node) -> Element {
             for c in children {
                 g = match to_svg(c) {
                     Element::G(x) => g.add(x),
-                    Element::P(x) => g.add(x),
+                    Element::L(x) => x.into_iter().fold(g, |g, l| g.add(l)),
                     Element::T(x) => g.add(x),
                 };
             }
             Element::G(g)
         }
-        Node::Path { key, class, d } => Element::P(
-            Path::new()
-                .set("data-k", key.as_str())
-                .set("class", class.as_str())
-                .set("d", d.as_str()),
+        Node::Lines { class, lines } => Element::L(
+            lines
+                .iter()
+                .map(|l| {
+                    Polyline::new()
+                        .set("data-k", l.key.as_str())
+                        .set("class", class.as_str())
+                        .set("points", l.points.as_str())
+                })
+                .collect(),
         ),
         Node::Text {
             key,
@@ -171,7 +185,11 @@ fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {
                 patch_of(c, out);
             }
         }
-        Node::Path { key, d, .. } => out.push((key, "d", d)),
+        Node::Lines { lines, .. } => out.extend(
+            lines
+                .iter()
+                .map(|l| (l.key.as_str(), "points", l.points.as_str())),
+        ),
         Node::Text {
             key, x, y, words, ..
         } => out.extend([
@@ -192,10 +210,12 @@ fn shape_of(n: &Node, eat: &mut impl FnMut(&str)) {
             }
             eat("/g");
         }
-        Node::Path { key, class, .. } => {
-            eat("path");
-            eat(key);
-            eat(class);
+        Node::Lines { class, lines } => {
+            for l in lines {
+                eat("polyline");
+                eat(&l.key);
+                eat(class);
+            }
         }
         Node::Text {
             key, class, anchor, ..

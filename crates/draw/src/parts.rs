@@ -1,6 +1,6 @@
 //! The bike: wheels, frame, fork, headset and spacers, stem and bar, seatpost and saddle,
 //! cranks and pedals. Drawn back to front so the near parts cover the far ones; the lines and
-//! circles of one class are one path.
+//! circles of one class are one part (one polyline each).
 
 use crate::model::Node;
 use crate::shapes::PathData;
@@ -16,9 +16,9 @@ const HUB_R: f64 = 10.0;
 /// The grip's drawn radius, mm.
 const GRIP_R: f64 = 16.0;
 
-/// The paths of one bike, pushed with keys `{layer}-{name}`. For the ghost (one thin dashed
+/// The parts of one bike, pushed with keys `{layer}-{name}`. For the ghost (one thin dashed
 /// style for every part: `.ghost *` in the page's CSS) every part but the tyres goes into one
-/// path, `{layer}-outline`.
+/// part, `{layer}-outline`.
 struct Parts<'a> {
     layer: &'a str,
     out: Vec<Node>,
@@ -70,9 +70,8 @@ impl Parts<'_> {
         let mut rims = PathData::new();
         let mut hubs = PathData::new();
         for (_, axle, _, rim) in ends {
-            if rim > 0.0 {
-                rims = rims.circle(axle, rim);
-            }
+            // A rim of radius 0 (not known) is an empty polyline: the same elements either way.
+            rims = rims.circle(axle, rim);
             hubs = hubs.circle(axle, HUB_R);
         }
         self.add("rim", "rim", rims);
@@ -81,12 +80,10 @@ impl Parts<'_> {
 
     fn frame(&mut self, o: &Outline) {
         let bb = [0.0, 0.0];
+        // Chainstay, seatstay, top tube and down tube in one run; the seat tube alone.
         let tubes = PathData::new()
-            .line(bb, o.rear_axle)
-            .line(o.seat_top, o.rear_axle)
-            .line(bb, o.seat_top)
-            .line(o.seat_top, o.head_top)
-            .line(bb, o.head_bottom);
+            .polyline(&[o.head_bottom, bb, o.rear_axle, o.seat_top, o.head_top])
+            .line(bb, o.seat_top);
         self.add("tubes", "tube", tubes);
         self.add(
             "head-tube",
@@ -130,7 +127,7 @@ impl Parts<'_> {
 }
 
 /// One bike as a group with the given class (`ridden` or `ghost`), which also prefixes keys.
-/// The ghost is its two tyres and one outline path.
+/// The ghost is its two tyres and one outline part.
 pub fn bike(o: &Outline, layer: &str) -> Node {
     let ghost = layer == "ghost";
     let mut p = Parts {

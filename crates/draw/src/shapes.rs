@@ -1,8 +1,8 @@
 //! Drawing primitives from kernel points. Every point passes through [`flip`] exactly once, in
 //! [`PathData`] or [`text`]; numbers are written by [`crate::num`].
 
-use crate::model::Node;
-use crate::num::push_mm;
+use crate::model::{Line, Node};
+use crate::num::push_mm_bytes;
 use framewise_kernel::report::Xy;
 
 /// The one place where kernel coordinates (y up) become SVG coordinates (y down).
@@ -10,74 +10,120 @@ pub fn flip(p: Xy) -> (f64, f64) {
     (p[0], -p[1])
 }
 
-/// An SVG path's `d` text, built from kernel points: lines, polylines and circles that share a
-/// class become subpaths of one `<path>`.
+/// The polylines of one styled part, built from kernel points: each line, polyline and circle
+/// is one `<polyline>` (its `points` text); the part becomes one [`Node::Lines`].
+///
+/// Why polylines and not one `<path>`: in Chromium a path's `d` (like a circle's `cx`, `cy`, `r`
+/// or any `transform`) is a CSS property, so changing it restyles the element, about 15 µs an
+/// element; a polyline's `points` is not, and changing it costs only the layout (40 changed
+/// elements: 0.6–0.7 ms as paths, 0.0–0.1 ms as polylines, docs/BENCHMARKS.md). The number of
+/// polylines depends only on which calls were made, never on the numbers, so the drawing's
+/// structure stays stable across edits.
 #[derive(Debug, Default)]
-pub struct PathData(String);
+pub struct PathData(Vec<Vec<u8>>);
+
+/// The largest gap between a circle and the polygon drawn for it, mm: a tenth of a pixel at the
+/// page's widest drawing scale, far below what the eye sees even zoomed in.
+const CIRCLE_SAGITTA_MM: f64 = 0.5;
+/// Fewest and most vertices of a circle's polygon.
+const CIRCLE_VERTICES: (usize, usize) = (12, 72);
+
+/// Vertices of the regular polygon drawn for a circle of radius `r` mm: the fewest for which
+/// the sagitta `r (1 − cos(π / n))` stays under [`CIRCLE_SAGITTA_MM`] (within the bounds).
+pub fn circle_vertices(r: f64) -> usize {
+    let (fewest, most) = CIRCLE_VERTICES;
+    if !(r.is_finite() && r > CIRCLE_SAGITTA_MM) {
+        return fewest;
+    }
+    let half_angle = (1.0 - CIRCLE_SAGITTA_MM / r).acos();
+    // π / half_angle is finite and positive here; `as` saturates.
+    ((std::f64::consts::PI / half_angle).ceil() as usize).clamp(fewest, most)
+}
 
 impl PathData {
-    /// An empty path.
+    /// No polylines yet.
     pub fn new() -> Self {
-        PathData(String::with_capacity(64))
+        PathData(Vec::with_capacity(2))
     }
 
-    fn point(&mut self, cmd: char, p: Xy) {
+    fn push_point(out: &mut Vec<u8>, p: Xy) {
         let (x, y) = flip(p);
-        self.0.push(cmd);
-        push_mm(&mut self.0, x);
-        self.0.push(',');
-        push_mm(&mut self.0, y);
+        if !out.is_empty() {
+            out.push(b' ');
+        }
+        push_mm_bytes(out, x);
+        out.push(b',');
+        push_mm_bytes(out, y);
     }
 
-    /// A straight segment from `a` to `b` (a new subpath).
-    pub fn line(mut self, a: Xy, b: Xy) -> Self {
-        self.point('M', a);
-        self.point('L', b);
-        self
+    /// A straight segment from `a` to `b` (a polyline of two points).
+    pub fn line(self, a: Xy, b: Xy) -> Self {
+        self.polyline(&[a, b])
     }
 
-    /// An open polyline through the points (a new subpath).
+    /// An open polyline through the points.
     pub fn polyline(mut self, points: &[Xy]) -> Self {
-        let mut cmd = 'M';
+        let mut out = Vec::with_capacity(12 * points.len());
         for p in points {
-            self.point(cmd, *p);
-            cmd = 'L';
+            Self::push_point(&mut out, *p);
         }
+        self.0.push(out);
         self
     }
 
-    /// A circle about `c` of radius `r` mm: two half arcs, closed.
+    /// A circle about `c` of radius `r` mm: a closed regular polygon ([`circle_vertices`]),
+    /// first vertex repeated at the end. A radius of zero or less (a part not drawn) gives an
+    /// empty polyline, so the number of polylines does not depend on the radius.
     pub fn circle(mut self, c: Xy, r: f64) -> Self {
-        let mut radius = String::new();
-        push_mm(&mut radius, r);
-        self.point('M', [c[0] - r, c[1]]);
-        for end in [[c[0] + r, c[1]], [c[0] - r, c[1]]] {
-            self.0.push('A');
-            self.0.push_str(&radius);
-            self.0.push(',');
-            self.0.push_str(&radius);
-            self.0.push_str(" 0 1 0 ");
-            let (x, y) = flip(end);
-            push_mm(&mut self.0, x);
-            self.0.push(',');
-            push_mm(&mut self.0, y);
+        if !(r.is_finite() && r > 0.0) {
+            self.0.push(Vec::new());
+            return self;
         }
-        self.0.push('Z');
+        let n = circle_vertices(r);
+        let mut out = Vec::with_capacity(12 * (n + 1));
+        // Vertex i at angle 2πi/n, by rotating the unit vector one step at a time (4 products a
+        // vertex instead of a sine and a cosine; the error after 72 steps is near 1e-14).
+        let (step_sin, step_cos) = (std::f64::consts::TAU / n as f64).sin_cos();
+        let (mut cos, mut sin) = (1.0_f64, 0.0_f64);
+        for i in 0..=n {
+            if i == n {
+                (cos, sin) = (1.0, 0.0); // closed exactly on the first vertex
+            }
+            Self::push_point(&mut out, [c[0] + r * cos, c[1] + r * sin]);
+            (cos, sin) = (
+                cos * step_cos - sin * step_sin,
+                sin * step_cos + cos * step_sin,
+            );
+        }
+        self.0.push(out);
         self
     }
 
-    /// Appends every subpath of `other`.
+    /// Appends every polyline of `other`.
     pub fn append(mut self, other: PathData) -> Self {
-        self.0.push_str(&other.0);
+        self.0.extend(other.0);
         self
     }
 
-    /// The path as an element with a stable key and its class.
+    /// The part as a node with its class; the polylines' keys are `key`, then `key.1`, `key.2`….
     pub fn node(self, key: String, class: &str) -> Node {
-        Node::Path {
-            key,
+        let lines = self
+            .0
+            .into_iter()
+            .enumerate()
+            .map(|(i, points)| Line {
+                key: if i == 0 {
+                    key.clone()
+                } else {
+                    format!("{key}.{i}")
+                },
+                // Only ASCII digits, '-', '.', ',' and ' ' are written: always valid text.
+                points: String::from_utf8(points).unwrap_or_default(),
+            })
+            .collect();
+        Node::Lines {
             class: class.into(),
-            d: self.0,
+            lines,
         }
     }
 }

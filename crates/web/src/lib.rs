@@ -7,6 +7,12 @@ use wasm_bindgen::prelude::*;
 // in the on-demand module (crates/extras), kept out of the module every visit loads.
 pub mod link;
 
+// The drawing as only what changed since the page's last one (drawing_changes).
+pub mod changes;
+
+// The page's per-edit work run for nothing once the page is idle (rehearse).
+pub mod rehearse;
+
 // Not exported to the page (it never calls them; each export keeps its code in the module):
 // scenario JSON and the form without its link are evaluated by the native core functions
 // `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI).
@@ -32,8 +38,27 @@ pub fn drawing_patch() -> String {
     framewise_web_core::last_drawing_patch()
 }
 
-/// The SVG document of the drawing the last [`drawing_patch`] call made (empty text when it made
-/// none): asked for only when the drawing's structure changed.
+/// The drawing of the last [`evaluate_form_linked`] call that evaluated, as only what changed
+/// since the drawing the page shows: `shown` is the `seq` of the last answer the page applied
+/// (0 for none). JSON text: `{seq, structure, changes: [[index, value], …]}` (indexes into the
+/// patch list) when `shown` is the last answer and the structure is the same, else
+/// `{seq, structure, patch}` (the whole list); `null` before any evaluation. See [`changes`].
+#[wasm_bindgen]
+pub fn drawing_changes(shown: u32) -> String {
+    changes::last_drawing_changes(shown)
+}
+
+/// Runs the page's per-edit work once on a form without changing anything the page shows, and
+/// returns the length of the text it made: the page calls it in idle time after loading so
+/// that the engine has optimised the module's code before the person's first edits. See
+/// [`rehearse`].
+#[wasm_bindgen]
+pub fn rehearse(fields_json: &str, view_json: &str) -> usize {
+    rehearse::rehearse(fields_json, view_json)
+}
+
+/// The SVG document of the drawing the last [`drawing_patch`] or [`drawing_changes`] call made
+/// (empty text when it made none): asked for only when the drawing's structure changed.
 #[wasm_bindgen]
 pub fn drawing_svg() -> String {
     framewise_web_core::last_drawing_svg()
@@ -100,17 +125,26 @@ pub mod framewise_web_core {
     /// field that does not read leaves the one before), as `{structure, patch}` JSON text, or
     /// `null` before any. The drawing is kept for [`last_drawing_svg`].
     pub fn last_drawing_patch() -> String {
-        let d = LAST_REPORT.with(|r| {
-            r.borrow()
-                .as_ref()
-                .and_then(|r| r.bikes.first().map(drawing_of))
-        });
-        let Some(d) = d else {
+        let Some(d) = last_drawing() else {
             return "null".into();
         };
         let json = serde_json::to_string(&patch_of(&d)).unwrap_or_else(|_| "null".into());
-        LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
+        keep_drawing(d);
         json
+    }
+
+    /// The drawing of the last linked evaluation that evaluated, made now.
+    pub(crate) fn last_drawing() -> Option<framewise_draw::Drawing> {
+        LAST_REPORT.with(|r| {
+            r.borrow()
+                .as_ref()
+                .and_then(|r| r.bikes.first().map(drawing_of))
+        })
+    }
+
+    /// Keeps a drawing for [`last_drawing_svg`].
+    pub(crate) fn keep_drawing(d: framewise_draw::Drawing) {
+        LAST_DRAWING.with(|last| *last.borrow_mut() = Some(d));
     }
 
     /// The SVG of the drawing [`last_drawing_patch`] made last, or empty text.
@@ -130,23 +164,19 @@ pub mod framewise_web_core {
         })
     }
 
-    fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch {
+    fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch<'_> {
         DrawingPatch {
             structure: d.structure(),
-            patch: d
-                .patch()
-                .into_iter()
-                .map(|(k, a, v)| (k.to_string(), a, v.to_string()))
-                .collect(),
+            patch: d.patch(),
         }
     }
 
     /// The drawing's patch (crates/draw `Drawing::patch`): the page applies it in place when
     /// `structure` equals that of the drawing it shows, else writes the SVG.
     #[derive(Serialize)]
-    struct DrawingPatch {
+    struct DrawingPatch<'a> {
         structure: String,
-        patch: Vec<(String, &'static str, String)>,
+        patch: Vec<framewise_draw::Patch<'a>>,
     }
 
     /// The report as the page's per-edit call writes it: every member the page reads, without
@@ -217,7 +247,7 @@ pub mod framewise_web_core {
         report: ReportJson<'a>,
         svg: Option<String>,
         #[serde(skip_serializing_if = "Option::is_none")]
-        drawing: Option<DrawingPatch>,
+        drawing: Option<DrawingPatch<'a>>,
         /// One sentence per inconsistent published value, keyed like the residuals.
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
@@ -260,7 +290,7 @@ pub mod framewise_web_core {
         match read_form(fields_json) {
             Ok(fields) => {
                 let (scenario, errors) = framewise_formats::scenario_from_form(&fields);
-                form_result_json(&scenario, errors, None)
+                form_result_json(&scenario, errors, None, Run::Page)
             }
             Err(json) => json,
         }
@@ -270,6 +300,20 @@ pub mod framewise_web_core {
     /// and the view choices `view_json` (a JSON object or empty), or `null` when a field does not
     /// read, the view does not read or the link cannot hold a value.
     pub fn evaluate_form_linked_to_json(fields_json: &str, view_json: &str) -> String {
+        linked(fields_json, view_json, Run::Page)
+    }
+
+    /// How a linked evaluation runs: for the page (its solve memo; the report kept for the
+    /// drawing) or as a rehearsal (a solve of its own, the drawing made and written too; nothing
+    /// kept), see [`crate::rehearse`].
+    #[derive(Clone, Copy, PartialEq, Eq)]
+    pub(crate) enum Run {
+        Page,
+        Rehearsal,
+    }
+
+    /// [`evaluate_form_linked_to_json`], run as `run` says.
+    pub(crate) fn linked(fields_json: &str, view_json: &str, run: Run) -> String {
         match read_form(fields_json) {
             Ok(fields) => {
                 let (mut scenario, errors) = framewise_formats::scenario_from_form(&fields);
@@ -287,7 +331,7 @@ pub mod framewise_web_core {
                     }
                     _ => None,
                 };
-                form_result_json(&scenario, errors, Some(link))
+                form_result_json(&scenario, errors, Some(link), run)
             }
             Err(json) => json,
         }
@@ -323,6 +367,7 @@ pub mod framewise_web_core {
         scenario: &framewise_kernel::Scenario,
         mut field_errors: Vec<framewise_kernel::FieldError>,
         link: Option<Option<String>>,
+        run: Run,
     ) -> String {
         let mut report = Report {
             version: REPORT_VERSION,
@@ -330,7 +375,10 @@ pub mod framewise_web_core {
             errors: Vec::new(),
         };
         if field_errors.is_empty() {
-            report = evaluate_remembered(scenario);
+            report = match run {
+                Run::Page => evaluate_remembered(scenario),
+                Run::Rehearsal => evaluate(scenario),
+            };
             for e in &report.errors {
                 let mut e = e.clone();
                 e.field = e
@@ -360,16 +408,22 @@ pub mod framewise_web_core {
                 link,
             })
             .unwrap_or_else(|_| "{}".into());
-            if ok {
-                LAST_REPORT.with(|last| *last.borrow_mut() = Some(report));
+            match run {
+                Run::Page if ok => LAST_REPORT.with(|last| *last.borrow_mut() = Some(report)),
+                Run::Page => {}
+                // The rehearsal also makes and writes the drawing the page would ask for.
+                Run::Rehearsal => {
+                    if let Some(d) = report.bikes.first().filter(|_| ok).map(drawing_of) {
+                        let patch = serde_json::to_string(&patch_of(&d)).unwrap_or_default();
+                        return format!("{json}{patch}");
+                    }
+                }
             }
             return json;
         }
-        let drawn = report.bikes.first().filter(|_| ok).map(|bike| {
-            let d = drawing_of(bike);
-            (d.svg(), patch_of(&d))
-        });
-        let (svg, drawing) = drawn.unzip();
+        let drawn = report.bikes.first().filter(|_| ok).map(drawing_of);
+        let svg = drawn.as_ref().map(framewise_draw::Drawing::svg);
+        let drawing = drawn.as_ref().map(patch_of);
         serde_json::to_string(&FormResult {
             report: ReportJson::Whole(&report),
             svg,

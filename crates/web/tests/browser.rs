@@ -35,6 +35,16 @@ fn a_form_evaluates_draws_and_links_in_the_browser() {
         serde_json::from_str(&framewise_web::drawing_patch()).unwrap_or_default();
     assert!(d["patch"].as_array().is_some_and(|p| !p.is_empty()));
     assert!(framewise_web::drawing_svg().starts_with("<svg"));
+    // The page's writer asks for what changed since the answer it shows (none: the whole list);
+    // a rehearsal of another form leaves that answer as it was.
+    let whole: serde_json::Value =
+        serde_json::from_str(&framewise_web::drawing_changes(0)).unwrap_or_default();
+    assert_eq!(whole["patch"], d["patch"]);
+    let seq = u32::try_from(whole["seq"].as_u64().unwrap_or(0)).unwrap_or(0);
+    assert!(framewise_web::rehearse(r#"{"frame.reach_mm":"500"}"#, "") > 0);
+    let none: serde_json::Value =
+        serde_json::from_str(&framewise_web::drawing_changes(seq)).unwrap_or_default();
+    assert_eq!(none["changes"], serde_json::json!([]));
     // The link of the same form opens into the same numbers.
     let link = v["link"].as_str().unwrap_or_default();
     let opened: serde_json::Value = serde_json::from_str(
