@@ -43,9 +43,11 @@ function writeForm(fields) {
 const share = initShare({ getFields: () => readForm(form), applyFields: writeForm, getView, applyView });
 
 function update() {
+  share.settle(); // a link still to be made of the previous form
   // share.fields(): the form plus values of an opened link that have no input here. One wasm
-  // call reads the form once for the drawing, the tables and the share link.
-  const result = JSON.parse(wasm.evaluate_form_linked(JSON.stringify(share.fields()), JSON.stringify(share.view())));
+  // call reads the form once for the tables, the drawing (made when written) and the share link
+  // (made in the next task).
+  const result = JSON.parse(wasm.evaluate_form_page(JSON.stringify(share.fields()), JSON.stringify(share.view())));
   clearMessages(form);
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
@@ -60,7 +62,7 @@ function update() {
   // the screen (a person typing in a field lower down), so the handler does not make it.
   painter.paint(drawing, showDrawing);
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
-  share.update(result.link); // the address follows the page
+  share.update(wasm.last_link); // the address follows the page, in the next task
 }
 
 function applySize(size) {

@@ -15,10 +15,12 @@ const byId = (id) => document.getElementById(id);
  *   getFields()        → { "<field name>": "<typed text>" } of the form
  *   applyFields(f)     fills the form from a link; returns the names it has no field for
  *   getView()/applyView(v)  the page's view choices (optional; kept from the link otherwise)
- * Returns { fields(), view(), update(link) }: fields() is the form plus the opened link's values
- * the form has no input for (evaluate these, so the drawing shows the whole link); view() the
- * view choices for the link; call update(link) after every evaluation that succeeded, with the
- * link fragment it computed (evaluate_form_linked; null when none), or update() to compute it.
+ * Returns { fields(), view(), update(link), settle() }: fields() is the form plus the opened
+ * link's values the form has no input for (evaluate these, so the drawing shows the whole
+ * link); view() the view choices for the link; call update(link) after every evaluation that succeeded, with the
+ * link fragment (null when none), a function that makes it (wasm last_link: called in the next
+ * task, for the latest edit only; empty text when none), or update() to compute it now; call
+ * settle() before an evaluation that would replace the form a pending function makes a link of.
  */
 export function initShare({ getFields, applyFields, getView, applyView = () => {} }) {
   const msg = byId('share-msg');
@@ -106,7 +108,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
         hash = null;
       }
     }
-    if (typeof hash !== 'string') {
+    if (typeof hash !== 'string' && typeof hash !== 'function') {
       url.value = location.href; // a field does not read: the address keeps the last good link
       return;
     }
@@ -123,11 +125,21 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
 
   let pending = null;
   let scheduled = false;
+  // A link still to be made is made now, before the next evaluation replaces the form it is of
+  // (only when edits come faster than a task; the flush normally runs first).
+  function settle() {
+    if (typeof pending === 'function') pending = pending() || null;
+  }
   function flush() {
     scheduled = false;
-    const hash = pending;
+    let hash = pending;
     pending = null;
     if (hash === null || hold) return;
+    if (typeof hash === 'function') hash = hash();
+    if (!hash) {
+      url.value = location.href; // no link for this form: the address keeps the last good link
+      return;
+    }
     if (hash !== location.hash) history.replaceState(history.state, '', hash);
     if (url.value !== location.href) url.value = location.href;
     if (!qr.hidden) showQr();
@@ -173,5 +185,5 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
 
   open(location.hash);
   url.value = location.href;
-  return { fields, view: currentView, update };
+  return { fields, view: currentView, update, settle };
 }

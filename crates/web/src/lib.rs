@@ -17,20 +17,25 @@ pub mod rehearse;
 // scenario JSON and the form without its link are evaluated by the native core functions
 // `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI).
 
-/// Evaluates the page's form and makes its share link. `fields_json`: `{ "<field name>":
+/// Evaluates the page's form: the page's call on every edit. `fields_json`: `{ "<field name>":
 /// "<typed text>", … }`; `view_json`: the view choices as a JSON object (or empty). Returns
-/// `{report, svg, notes, field_errors, link}` as JSON text: each error's `field` is a form field
-/// name; `link` is the link fragment with its leading `#`, or `null` when a field does not read or
-/// the link cannot hold a value. One call: the form is read once for the tables and the link.
-/// The page's call on every edit, so `svg` is `null` and there is no drawing: the page asks
-/// [`drawing_patch`] for it (`{structure, patch}`, applied in place) when it writes the drawing,
-/// and [`drawing_svg`] for the document when the structure changed.
+/// `{report, svg, notes, field_errors}` as JSON text; each error's `field` is a form field name.
+/// No drawing (`svg` is `null`): the page asks [`drawing_changes`] for it when it writes the
+/// drawing, and [`drawing_svg`] for the document when the structure changed. No share link: the
+/// page asks [`last_link`] for it in the next task, with the address.
 #[wasm_bindgen]
-pub fn evaluate_form_linked(fields_json: &str, view_json: &str) -> String {
-    framewise_web_core::evaluate_form_linked_to_json(fields_json, view_json)
+pub fn evaluate_form_page(fields_json: &str, view_json: &str) -> String {
+    framewise_web_core::evaluate_form_page_json(fields_json, view_json)
 }
 
-/// The drawing of the last [`evaluate_form_linked`] call that evaluated, as `{structure, patch}`
+/// The share link fragment (`#…`) of the last [`evaluate_form_page`] call's form and view, or
+/// empty text when a field did not read, the view did not read or the link cannot hold a value.
+#[wasm_bindgen]
+pub fn last_link() -> String {
+    framewise_web_core::last_link()
+}
+
+/// The drawing of the last [`evaluate_form_page`] call that evaluated, as `{structure, patch}`
 /// JSON text (`null` before any): the page asks for it when it writes the drawing, at once when
 /// the drawing is on the screen, else in the next task.
 #[wasm_bindgen]
@@ -38,7 +43,7 @@ pub fn drawing_patch() -> String {
     framewise_web_core::last_drawing_patch()
 }
 
-/// The drawing of the last [`evaluate_form_linked`] call that evaluated, as only what changed
+/// The drawing of the last [`evaluate_form_page`] call that evaluated, as only what changed
 /// since the drawing the page shows: `shown` is the `seq` of the last answer the page applied
 /// (0 for none). JSON text: `{seq, structure, changes: [[index, value], …]}` (indexes into the
 /// patch list) when `shown` is the last answer and the structure is the same, else
@@ -290,7 +295,7 @@ pub mod framewise_web_core {
         match read_form(fields_json) {
             Ok(fields) => {
                 let (scenario, errors) = framewise_formats::scenario_from_form(&fields);
-                form_result_json(&scenario, errors, None, Run::Page)
+                form_result_json(&scenario, errors, None, false, Run::Page)
             }
             Err(json) => json,
         }
@@ -300,7 +305,7 @@ pub mod framewise_web_core {
     /// and the view choices `view_json` (a JSON object or empty), or `null` when a field does not
     /// read, the view does not read or the link cannot hold a value.
     pub fn evaluate_form_linked_to_json(fields_json: &str, view_json: &str) -> String {
-        linked(fields_json, view_json, Run::Page)
+        linked(fields_json, view_json, Run::Page, Link::Now)
     }
 
     /// How a linked evaluation runs: for the page (its solve memo; the report kept for the
@@ -313,7 +318,12 @@ pub mod framewise_web_core {
     }
 
     /// [`evaluate_form_linked_to_json`], run as `run` says.
-    pub(crate) fn linked(fields_json: &str, view_json: &str, run: Run) -> String {
+    pub(crate) fn linked(fields_json: &str, view_json: &str, run: Run, when: Link) -> String {
+        // Only the page's own call remembers its form for `last_link`; a rehearsal keeps nothing.
+        let later = when == Link::Later && run == Run::Page;
+        if later {
+            LINKABLE.with(|l| *l.borrow_mut() = None);
+        }
         match read_form(fields_json) {
             Ok(fields) => {
                 let (mut scenario, errors) = framewise_formats::scenario_from_form(&fields);
@@ -322,19 +332,60 @@ pub mod framewise_web_core {
                 } else {
                     serde_json::from_str(view_json).ok()
                 };
-                let link = match view {
+                let linkable = match view {
                     Some(view) if errors.is_empty() => {
                         scenario.view = view;
-                        framewise_formats::encode_link(&scenario)
-                            .ok()
-                            .map(|frag| format!("#{frag}"))
+                        true
                     }
-                    _ => None,
+                    _ => false,
                 };
-                form_result_json(&scenario, errors, Some(link), run)
+                let link = match when {
+                    Link::Now => Some(linkable.then(|| link_of(&scenario)).flatten()),
+                    Link::Later => None,
+                };
+                let json = form_result_json(&scenario, errors, link, true, run);
+                if later && linkable {
+                    LINKABLE.with(|l| *l.borrow_mut() = Some(scenario));
+                }
+                json
             }
             Err(json) => json,
         }
+    }
+
+    /// When the share link is made: in the same call (the result's `link` member) or later by
+    /// [`last_link`] (no member): the page makes it in the task after the edit, with the
+    /// address, so the edit's own work is about a fifth shorter (callgrind, docs/BENCHMARKS.md).
+    #[derive(Clone, Copy, PartialEq, Eq)]
+    pub(crate) enum Link {
+        Now,
+        Later,
+    }
+
+    thread_local! {
+        /// The scenario of the page's last [`evaluate_form_page_json`] call, with its view, when
+        /// every field read and the view read; `None` otherwise.
+        static LINKABLE: std::cell::RefCell<Option<framewise_kernel::Scenario>> =
+            const { std::cell::RefCell::new(None) };
+    }
+
+    /// The share link fragment (`#…`) of a scenario, or `None` when the link cannot hold it.
+    fn link_of(scenario: &framewise_kernel::Scenario) -> Option<String> {
+        framewise_formats::encode_link(scenario)
+            .ok()
+            .map(|frag| format!("#{frag}"))
+    }
+
+    /// [`evaluate_form_linked_to_json`] without the `link` member: the link is made later by
+    /// [`last_link`]. The page's call on every edit.
+    pub fn evaluate_form_page_json(fields_json: &str, view_json: &str) -> String {
+        linked(fields_json, view_json, Run::Page, Link::Later)
+    }
+
+    /// The share link fragment of the last [`evaluate_form_page_json`] call, or empty text when
+    /// a field did not read, the view did not read or the link cannot hold a value.
+    pub fn last_link() -> String {
+        LINKABLE.with(|l| l.borrow().as_ref().and_then(link_of).unwrap_or_default())
     }
 
     /// The form's fields, or the whole error result as JSON text when the text does not read.
@@ -367,6 +418,7 @@ pub mod framewise_web_core {
         scenario: &framewise_kernel::Scenario,
         mut field_errors: Vec<framewise_kernel::FieldError>,
         link: Option<Option<String>>,
+        page_call: bool,
         run: Run,
     ) -> String {
         let mut report = Report {
@@ -395,7 +447,7 @@ pub mod framewise_web_core {
             .first()
             .filter(|_| ok)
             .map(framewise_formats::fields::residual_notes);
-        if link.is_some() {
+        if page_call {
             // The page's per-edit call: no drawing here. The page asks `drawing_patch` for it
             // when it writes the drawing, which is in the next task when the drawing is off the
             // screen (a person typing in a field lower down): the report is remembered for it.
@@ -581,6 +633,36 @@ mod tests {
             serde_json::from_str(&evaluate_form_linked_to_json(form, "[1]")).unwrap_or_default();
         assert!(bad_view["link"].is_null());
         assert!(bad_view["report"]["bikes"][0]["stock"]["reach_mm"].is_number());
+    }
+
+    /// The page's call leaves the link for later: the same result less the `link` member, and
+    /// `last_link` then gives the link the one-call form gives. A form with a field that does
+    /// not read, or a view that does not read, has no link (empty text).
+    #[test]
+    fn the_page_call_gives_the_one_call_result_and_its_link_later() {
+        let form = r#"{"label":"Trail M","frame.reach_mm":"47 cm","frame.stack_mm":"635",
+            "frame.head_angle_deg":"64,5°","wheels.front":"29x2.4","wheels.rear":"29x2.4",
+            "setup.stem_mm":"45","rider.height_mm":"1780"}"#;
+        let view = r#"{"posture":"standing","dimensions":true}"#;
+        let mut whole: serde_json::Value =
+            serde_json::from_str(&evaluate_form_linked_to_json(form, view)).unwrap_or_default();
+        let page: serde_json::Value =
+            serde_json::from_str(&evaluate_form_page_json(form, view)).unwrap_or_default();
+        let link = whole
+            .as_object_mut()
+            .and_then(|o| o.remove("link"))
+            .unwrap_or_default();
+        assert!(link
+            .as_str()
+            .is_some_and(|l| l.starts_with('#') && l.len() > 8));
+        assert_eq!(page, whole);
+        assert_eq!(last_link(), link.as_str().unwrap_or("none"));
+        evaluate_form_page_json(r#"{"frame.reach_mm":"long"}"#, view);
+        assert_eq!(last_link(), "");
+        evaluate_form_page_json(form, "[1]");
+        assert_eq!(last_link(), "");
+        evaluate_form_page_json("not json", view);
+        assert_eq!(last_link(), "");
     }
 
     /// The page's solve memo changes only the time: a series of form edits (frame, rider,

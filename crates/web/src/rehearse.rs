@@ -11,12 +11,12 @@
 //! drawing, so [`crate::drawing_changes`], [`crate::drawing_svg`] and the memo answer exactly
 //! as before it.
 
-use crate::framewise_web_core::{linked, Run};
+use crate::framewise_web_core::{linked, Link, Run};
 
 /// One rehearsal of the page's per-edit work on the form `fields_json` with the view
 /// `view_json`; returns the length of the text made (so the work cannot be skipped as unused).
 pub fn rehearse(fields_json: &str, view_json: &str) -> usize {
-    linked(fields_json, view_json, Run::Rehearsal).len()
+    linked(fields_json, view_json, Run::Rehearsal, Link::Now).len()
 }
 
 #[cfg(test)]
