@@ -1,5 +1,5 @@
 // Times the page's wasm calls `evaluate_form_page` (older builds: `evaluate_form_linked`) and
-// `drawing_patch` in Node's V8 (the engine of the page's Chromium), for one or more builds of
+// the drawing (`drawing_changes(0)`: the whole patch list) in Node's V8 (the engine of the page's Chromium), for one or more builds of
 // web/pkg side by side: each round runs a batch of 20 edits through every build in turn, so all
 // builds see the same machine load.
 // Edits: "frame" = reach or head angle (the frame is solved again), "other" = stem, rider height,
@@ -41,14 +41,16 @@ for (let r = 0; r < rounds + warm; r++) {
     builds.forEach((w, k) => {
       // "evaluate": the handler's call (`evaluate_form_page`, which leaves the link to the next
       // task; older builds: `evaluate_form_linked`, with the link); "+ drawing": with the
-      // drawing the page asks for when the drawing is on the screen (`drawing_patch`, in builds
-      // that have it; older builds made the drawing inside `evaluate_form_linked`).
+      // drawing the page asks for when the drawing is on the screen (`drawing_changes(0)` or
+      // `drawing_patch`, in builds that have them; older builds made the drawing inside
+      // `evaluate_form_linked`).
       for (const withDrawing of [false, true]) {
         const t0 = process.hrtime.bigint();
         for (const t of texts) {
           if (w.evaluate_form_page) w.evaluate_form_page(t, view);
           else w.evaluate_form_linked(t, view);
-          if (withDrawing && w.drawing_patch) w.drawing_patch();
+          if (withDrawing && w.drawing_changes) w.drawing_changes(0);
+          else if (withDrawing && w.drawing_patch) w.drawing_patch();
         }
         const ms = Number(process.hrtime.bigint() - t0) / 1e6 / texts.length;
         const what = withDrawing ? 'evaluate + drawing' : 'evaluate';

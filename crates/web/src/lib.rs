@@ -15,7 +15,9 @@ pub mod rehearse;
 
 // Not exported to the page (it never calls them; each export keeps its code in the module):
 // scenario JSON and the form without its link are evaluated by the native core functions
-// `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI).
+// `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI); the whole
+// patch list of the last drawing by `last_drawing_patch` (tests; the page's
+// `drawing_changes(0)` gives the same list).
 
 /// Evaluates the page's form: the page's call on every edit. `fields_json`: `{ "<field name>":
 /// "<typed text>", … }`; `view_json`: the view choices as a JSON object (or empty). Returns
@@ -33,14 +35,6 @@ pub fn evaluate_form_page(fields_json: &str, view_json: &str) -> String {
 #[wasm_bindgen]
 pub fn last_link() -> String {
     framewise_web_core::last_link()
-}
-
-/// The drawing of the last [`evaluate_form_page`] call that evaluated, as `{structure, patch}`
-/// JSON text (`null` before any): the page asks for it when it writes the drawing, at once when
-/// the drawing is on the screen, else in the next task.
-#[wasm_bindgen]
-pub fn drawing_patch() -> String {
-    framewise_web_core::last_drawing_patch()
 }
 
 /// The drawing of the last [`evaluate_form_page`] call that evaluated, as only what changed
@@ -62,7 +56,7 @@ pub fn rehearse(fields_json: &str, view_json: &str) -> usize {
     rehearse::rehearse(fields_json, view_json)
 }
 
-/// The SVG document of the drawing the last [`drawing_patch`] or [`drawing_changes`] call made
+/// The SVG document of the drawing the last [`drawing_changes`] call made
 /// (empty text when it made none): asked for only when the drawing's structure changed.
 #[wasm_bindgen]
 pub fn drawing_svg() -> String {
@@ -448,7 +442,7 @@ pub mod framewise_web_core {
             .filter(|_| ok)
             .map(framewise_formats::fields::residual_notes);
         if page_call {
-            // The page's per-edit call: no drawing here. The page asks `drawing_patch` for it
+            // The page's per-edit call: no drawing here. The page asks `drawing_changes` for it
             // when it writes the drawing, which is in the next task when the drawing is off the
             // screen (a person typing in a field lower down): the report is remembered for it.
             let json = serde_json::to_string(&FormResult {

@@ -28,18 +28,14 @@ fn a_form_evaluates_draws_and_links_in_the_browser() {
         (trail - expected).abs() < 1e-6,
         "trail {trail} expected {expected}"
     );
-    // The per-edit call leaves the drawing to drawing_patch() (a patch list) and its SVG
-    // document to drawing_svg().
+    // The per-edit call leaves the drawing to drawing_changes() and its SVG document to
+    // drawing_svg(). The page's writer asks for what changed since the answer it shows (none:
+    // the whole list); a rehearsal of another form leaves that answer as it was.
     assert!(v.get("drawing").is_none());
-    let d: serde_json::Value =
-        serde_json::from_str(&framewise_web::drawing_patch()).unwrap_or_default();
-    assert!(d["patch"].as_array().is_some_and(|p| !p.is_empty()));
-    assert!(framewise_web::drawing_svg().starts_with("<svg"));
-    // The page's writer asks for what changed since the answer it shows (none: the whole list);
-    // a rehearsal of another form leaves that answer as it was.
     let whole: serde_json::Value =
         serde_json::from_str(&framewise_web::drawing_changes(0)).unwrap_or_default();
-    assert_eq!(whole["patch"], d["patch"]);
+    assert!(whole["patch"].as_array().is_some_and(|p| p.len() > 40));
+    assert!(framewise_web::drawing_svg().starts_with("<svg"));
     let seq = u32::try_from(whole["seq"].as_u64().unwrap_or(0)).unwrap_or(0);
     assert!(framewise_web::rehearse(r#"{"frame.reach_mm":"500"}"#, "") > 0);
     let none: serde_json::Value =
