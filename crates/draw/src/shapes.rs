@@ -22,11 +22,12 @@ pub fn flip(p: Xy) -> (f64, f64) {
 #[derive(Debug, Default)]
 pub struct PathData(Vec<Vec<u8>>);
 
-/// The largest gap between a circle and the polygon drawn for it, mm: a tenth of a pixel at the
-/// page's widest drawing scale, far below what the eye sees even zoomed in.
-const CIRCLE_SAGITTA_MM: f64 = 0.5;
+/// The largest gap between a circle and the polygon drawn for it, mm: about a pixel at the
+/// page's closest zoom (150 mm across a desk drawing, web/ui/zoom.js), a twentieth of one at
+/// the fitted view. (At 0.5 mm the tyres' facets showed at the closest zoom.)
+const CIRCLE_SAGITTA_MM: f64 = 0.2;
 /// Fewest and most vertices of a circle's polygon.
-const CIRCLE_VERTICES: (usize, usize) = (12, 72);
+const CIRCLE_VERTICES: (usize, usize) = (12, 128);
 
 /// Vertices of the regular polygon drawn for a circle of radius `r` mm: the fewest for which
 /// the sagitta `r (1 − cos(π / n))` stays under [`CIRCLE_SAGITTA_MM`] (within the bounds).
@@ -82,7 +83,7 @@ impl PathData {
         let n = circle_vertices(r);
         let mut out = Vec::with_capacity(12 * (n + 1));
         // Vertex i at angle 2πi/n, by rotating the unit vector one step at a time (4 products a
-        // vertex instead of a sine and a cosine; the error after 72 steps is near 1e-14).
+        // vertex instead of a sine and a cosine; the error after 128 steps is near 1e-14).
         let (step_sin, step_cos) = (std::f64::consts::TAU / n as f64).sin_cos();
         let (mut cos, mut sin) = (1.0_f64, 0.0_f64);
         for i in 0..=n {
