@@ -82,20 +82,25 @@ attachChart(document.getElementById('chart'), applySize);
 
 // Rehearsal: V8 runs a wasm function unoptimised until it has run a while, so a person's first
 // edits would each take about twice as long as later ones. Once the page is drawn, the kernel
-// rehearses an edit of the loaded form in idle time (a few ms at a time, stopped while the tab
-// is hidden): wasm.rehearse changes nothing the page shows (crates/web/src/rehearse.rs).
+// rehearses an edit of the loaded form in idle time (a few ms at a time, paused while the tab
+// is hidden; then <html data-rehearsed>): wasm.rehearse changes nothing the page shows
+// (crates/web/src/rehearse.rs; tests/browser/drawing-patch.test.mjs).
 const REHEARSALS = 150;
 const whenIdle = window.requestIdleCallback ?? ((run) => setTimeout(() => run({ timeRemaining: () => 4 }), 50));
 function rehearse(left) {
   const fields = JSON.stringify(share.fields());
   const view = JSON.stringify(share.view());
   whenIdle(function step(deadline) {
-    if (document.hidden) return;
+    if (document.hidden) {
+      document.addEventListener('visibilitychange', () => whenIdle(step), { once: true });
+      return;
+    }
     while (left > 0 && deadline.timeRemaining() > 2) {
       wasm.rehearse(fields, view);
       left -= 1;
     }
     if (left > 0) whenIdle(step);
+    else document.documentElement.dataset.rehearsed = 'true';
   });
 }
 

@@ -59,6 +59,26 @@ for (const [name, width, height] of SIZES) {
   });
 }
 
+test('the rehearsal after load changes nothing the page shows, and the next edit patches as usual', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  await page.fill('input[name="frame.reach_mm"]', '481');
+  await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
+  const before = { svg: await markup(page), url: await page.locator('#share-url').inputValue() };
+  await page.waitForFunction(() => document.documentElement.dataset.rehearsed === 'true', null, { timeout: 30000 });
+  assert.deepEqual({ svg: await markup(page), url: await page.locator('#share-url').inputValue() }, before);
+  // The next edit gets only the changes since the answer the page shows: the same nodes.
+  await page.evaluate(() => { window.kept = document.querySelector('#drawing svg'); });
+  await page.fill('input[name="setup.stem_mm"]', '60');
+  await page.waitForFunction((old) => document.getElementById('share-url').value !== old, before.url, { timeout: 5000 });
+  assert.equal(await page.evaluate(() => document.querySelector('#drawing svg') === window.kept), true);
+  const fresh = await openPage(env, { width: 360, height: 740, hash: new URL(await page.locator('#share-url').inputValue()).hash });
+  await showEveryLayer(page);
+  assert.equal(await markup(fresh.page), await markup(page));
+  assert.deepEqual([...problems, ...fresh.problems], []);
+  await fresh.context.close();
+  await context.close();
+});
+
 test('a part that goes or comes replaces the drawing; a zoom survives a patch', T, async () => {
   const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
   assert.equal(await page.locator('#drawing svg .rider').count(), 2);
