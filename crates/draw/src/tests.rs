@@ -472,6 +472,17 @@ fn texts(nodes: &[Node]) -> Vec<&Node> {
         .collect()
 }
 
+/// The drawing's view box as its four numbers `[min-x, min-y, width, height]`.
+fn view_box(d: &Drawing) -> Vec<f64> {
+    let vb: Vec<f64> = d
+        .view_box
+        .split(' ')
+        .filter_map(|v| v.parse().ok())
+        .collect();
+    assert_eq!(vb.len(), 4, "{}", d.view_box);
+    vb
+}
+
 /// Whether a box and a disc (centre, radius) overlap: the box point nearest the centre is
 /// inside the disc.
 fn box_meets_disc(b: [f64; 4], c: [f64; 2], r: f64) -> bool {
@@ -497,12 +508,7 @@ fn dimension_labels_keep_off_the_tyres_and_each_other() {
         ([o.rear_axle[0], -o.rear_axle[1]], o.rear_radius + 15.0),
         ([o.front_axle[0], -o.front_axle[1]], o.front_radius + 15.0),
     ];
-    let vb: Vec<f64> = d
-        .view_box
-        .split(' ')
-        .filter_map(|v| v.parse().ok())
-        .collect();
-    assert_eq!(vb.len(), 4);
+    let vb = view_box(&d);
     for (i, (key, b)) in labels.iter().enumerate() {
         for (c, r) in tyres {
             assert!(!box_meets_disc(*b, c, r), "{key} {b:?} lies on a tyre");
@@ -530,12 +536,7 @@ fn small_edits_keep_the_view_box_and_the_labels() {
         o.front_contact[0] += f64::from(mm);
         o.steer_ground[0] += f64::from(mm);
         let d = drawing(&scene(&o, &n));
-        let edges: Vec<f64> = d
-            .view_box
-            .split(' ')
-            .filter_map(|v| v.parse().ok())
-            .collect();
-        assert_eq!(edges.len(), 4);
+        let edges = view_box(&d);
         for e in [edges[0], edges[1], edges[0] + edges[2], edges[1] + edges[3]] {
             assert!(
                 (e / VIEW_STEP_MM).fract().abs() < 1e-9,

@@ -89,12 +89,13 @@ pub fn last_drawing_changes(shown: u32) -> String {
 }
 
 #[cfg(test)]
-mod tests {
+pub(crate) mod tests {
     use super::*;
     use crate::framewise_web_core::{evaluate_form_linked_to_json, last_drawing_patch};
     use serde_json::Value;
 
-    fn form(reach: &str, stem: &str) -> String {
+    /// The test bike's form with this reach and stem (shared with the rehearsal's tests).
+    pub(crate) fn form(reach: &str, stem: &str) -> String {
         format!(
             r#"{{"label":"Trail M","frame.reach_mm":"{reach}","frame.stack_mm":"635",
             "frame.head_angle_deg":"65","frame.head_tube_mm":"110","frame.fork_a2c_mm":"561",

@@ -23,22 +23,18 @@ pub fn rehearse(fields_json: &str, view_json: &str) -> usize {
 mod tests {
     use super::*;
     use crate::changes::last_drawing_changes;
+    use crate::changes::tests::form;
     use crate::framewise_web_core::{evaluate_form_linked_to_json, last_drawing_patch};
-
-    const FORM: &str = r#"{"label":"Trail M","frame.reach_mm":"470","frame.stack_mm":"635",
-        "frame.head_angle_deg":"65","frame.head_tube_mm":"110","frame.fork_a2c_mm":"561",
-        "frame.fork_offset_mm":"44","wheels.front":"29x2.4","wheels.rear":"29x2.4",
-        "setup.stem_mm":"45","rider.height_mm":"1780"}"#;
 
     /// Source: the module's invariant. Rehearsals of another form change neither the page's
     /// next answer nor its drawing; they do the whole work (report, link and drawing text).
     #[test]
     fn a_rehearsal_changes_nothing_the_page_sees() {
-        let other = FORM.replace("\"470\"", "\"490\"");
+        let (mine, other) = (form("470", "45"), form("490", "45"));
         let view = r#"{"posture":"standing"}"#;
         let other_call = evaluate_form_linked_to_json(&other, view).len();
 
-        let edit = evaluate_form_linked_to_json(FORM, "");
+        let edit = evaluate_form_linked_to_json(&mine, "");
         let drawing = last_drawing_patch();
         let first: serde_json::Value =
             serde_json::from_str(&last_drawing_changes(0)).unwrap_or_default();
@@ -54,7 +50,7 @@ mod tests {
         let next: serde_json::Value =
             serde_json::from_str(&last_drawing_changes(seq)).unwrap_or_default();
         assert_eq!(next["changes"].as_array().map(Vec::len), Some(0), "{next}");
-        assert_eq!(evaluate_form_linked_to_json(FORM, ""), edit);
+        assert_eq!(evaluate_form_linked_to_json(&mine, ""), edit);
         // A form that does not read is rehearsed without a throw.
         assert!(rehearse("not json", "") > 0);
     }
