@@ -45,3 +45,19 @@ export async function openPage(env, { width = 1280, height = 800, hash = '' } = 
 export async function settled(page) {
   await page.waitForSelector('html:not([data-stale])', { state: 'attached', timeout: 5000 });
 }
+
+/**
+ * A screenshot of the page (or of `target`, a locator) once it has drawn what a scroll brought
+ * on the screen: parts with `content-visibility: auto` (style.css) are drawn in the frame after
+ * they come near the screen, so a screenshot taken straight after `scrollIntoViewIfNeeded` can
+ * show them blank. Waits two animation frames first.
+ */
+export async function shot(page, path, options = {}, target = page) {
+  await frames(page);
+  await target.screenshot({ path, ...options });
+}
+
+/** Waits two animation frames: the page has drawn what the last change brought on the screen. */
+export async function frames(page) {
+  await page.evaluate(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok))));
+}

@@ -4,7 +4,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
-import { startAll, openPage, SHOTS, ROOT } from './harness.mjs';
+import { startAll, openPage, SHOTS, ROOT, shot } from './harness.mjs';
 import { cell, waitCell } from './page-helpers.mjs';
 
 let env;
@@ -50,7 +50,7 @@ for (const [name, width, height] of SIZES) {
     // What the chart did not give is asked for by name.
     assert.match(await page.locator('#results .missing').textContent(), /Fork axle-to-crown/);
     await page.locator('#chart').scrollIntoViewIfNeeded();
-    await page.screenshot({ path: `${SHOTS}/page-${name}-chart.png` });
+    await shot(page, `${SHOTS}/page-${name}-chart.png`);
     assert.deepEqual(problems, []);
     await context.close();
   });

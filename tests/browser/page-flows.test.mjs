@@ -4,7 +4,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import AxeBuilder from '@axe-core/playwright';
-import { startAll, openPage, SHOTS } from './harness.mjs';
+import { startAll, openPage, SHOTS, shot } from './harness.mjs';
 import { waitCell, zoomIn } from './page-helpers.mjs';
 
 let env;
@@ -74,7 +74,7 @@ for (const [name, width, height] of SIZES) {
     // A longer fork brings its caution.
     assert.match(await page.locator('#results .warnings').textContent(), /20 mm longer than stock/);
     await page.locator('#show-dims').check({ force: true });
-    await page.screenshot({ path: `${SHOTS}/page-${name}-sag-fork.png` });
+    await shot(page, `${SHOTS}/page-${name}-sag-fork.png`);
     assert.deepEqual(problems, []);
     await context.close();
   });
@@ -149,11 +149,11 @@ for (const [name, width, height] of SIZES) {
           .map((e) => `${e.tagName} ${e.id || e.name || e.textContent.trim().slice(0, 20)}`));
       assert.deepEqual(small, [], 'touch targets at least 44 px high');
       await page.evaluate(() => window.scrollTo(0, 0));
-      await page.screenshot({ path: `${SHOTS}/page-${name}-${scheme}.png` });
+      await shot(page, `${SHOTS}/page-${name}-${scheme}.png`);
       await page.locator('#results').scrollIntoViewIfNeeded();
-      await page.screenshot({ path: `${SHOTS}/page-${name}-${scheme}-numbers.png` });
+      await shot(page, `${SHOTS}/page-${name}-${scheme}-numbers.png`);
       await page.locator('#bike-form').scrollIntoViewIfNeeded();
-      await page.screenshot({ path: `${SHOTS}/page-${name}-${scheme}-inputs.png` });
+      await shot(page, `${SHOTS}/page-${name}-${scheme}-inputs.png`);
       assert.deepEqual(problems, []);
       await context.close();
     });

@@ -149,9 +149,11 @@ function buildTable(b, words, refs) {
   const head = el('tr', { role: 'row' }, ...b.cols.map((c, i) => el('th', { scope: 'col', role: 'columnheader', class: i ? 'num' : '' }, c)));
   const body = el('tbody', { role: 'rowgroup' });
   for (const r of b.rows) {
-    const tds = r.cells.map(([col, text]) => el('td', { 'data-col': col, class: 'num', role: 'cell' }, text));
+    // Each number in a box of its own (span.v) that Chromium lays out alone (style.css).
+    const boxes = r.cells.map(([, text]) => el('span', { class: 'v' }, text));
+    const tds = r.cells.map(([col], i) => el('td', { 'data-col': col, class: 'num', role: 'cell' }, boxes[i]));
     const tr = el('tr', { 'data-key': r.key, class: r.cls, role: 'row' }, el('th', { scope: 'row', role: 'rowheader' }, ...term(r.key, scope, words)), ...tds);
-    refs.push([tr, 'class'], ...tds.map((td) => [td, 'text']));
+    refs.push([tr, 'class'], ...boxes.map((box) => [box, 'text']));
     body.append(tr);
     if (r.note) {
       const td = el('td', { colspan: String(b.cols.length), role: 'cell' }, r.note);
