@@ -33,16 +33,25 @@ const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
 
+// The form's text as the person types it: an input event updates its own field, and a form
+// filled by code (a link, a chart size) is read whole again (readForm visits all 79 controls).
+let typed = null;
+const formFields = () => ({ ...(typed ??= readForm(form)) });
+
 // Fills the form from a shared link; returns the link's field names the form has no input for.
 function writeForm(fields) {
+  typed = null;
   for (const c of form.elements) if (c.name) c.value = fields[c.name] ?? (c.tagName === 'SELECT' ? c.options[0]?.value ?? '' : '');
   return Object.keys(fields).filter((name) => !form.elements.namedItem(name));
 }
 
 // Share links (issue 6): opens a link in the address before the first drawing.
-const share = initShare({ getFields: () => readForm(form), applyFields: writeForm, getView, applyView });
+// A link pasted into the address of the open page fills the form and is evaluated at once.
+const share = initShare({ getFields: formFields, applyFields: writeForm, getView, applyView, opened: () => update() });
 
-function update() {
+function update(event) {
+  const typedIn = event?.target;
+  if (typed && typedIn?.name && typedIn.form === form) typed[typedIn.name] = typedIn.value;
   share.settle(); // a link still to be made of the previous form
   // share.fields(): the form plus values of an opened link that have no input here. One wasm
   // call reads the form once for the tables, the drawing (made when written) and the share link
@@ -58,14 +67,16 @@ function update() {
     return;
   }
   status.textContent = '';
-  // The drawing is asked of the kernel only when it is written: in the next task when it is off
-  // the screen (a person typing in a field lower down), so the handler does not make it.
-  painter.paint(drawing, showDrawing);
+  // The results first: they read which of their rows are on the screen before anything is
+  // written (web/ui/results.js). The drawing is asked of the kernel only when it is written: in
+  // the next task when it is off the screen (a person typing in a field lower down).
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
+  painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page, in the next task
 }
 
 function applySize(size) {
+  typed = null;
   for (const f of words.fields) {
     const key = f.name.startsWith('frame.') ? f.name.slice(6) : null;
     if (key) setField(form, f.name, size.frame?.[key] != null ? String(size.frame[key]) : '');

@@ -4,7 +4,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
-import { startAll, openPage, ROOT, SHOTS } from './harness.mjs';
+import { startAll, openPage, settled, ROOT, SHOTS } from './harness.mjs';
 import { showEveryLayer } from './page-helpers.mjs';
 
 let env;
@@ -76,6 +76,26 @@ test('an edited page gives a link that opens the same in a new browser context',
   await other.page.screenshot({ path: `${SHOTS}/links-opened.png`, fullPage: true });
   assert.deepEqual([...problems, ...other.problems], []);
   await other.context.close();
+  await context.close();
+});
+
+test('a link pasted into the address of an edited page shows its numbers at once and the next edit keeps them', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
+  const given = (key) => page.evaluate((k) => document.querySelector(`#results tr[data-key="${k}"] td[data-col="given"]`).textContent, key);
+  await page.fill('input[name="frame.stack_mm"]', '600');
+  await page.waitForFunction(() => document.querySelector('#results tr[data-key="stack_mm"] td[data-col="given"]').textContent === '600.0', null, { timeout: 5000 });
+  const link = goldenJson('v1-one-bike').bikes[0].frame;
+  await page.evaluate((h) => { location.hash = h; }, golden('v1-one-bike'));
+  await page.waitForFunction(() => /Opened the shared link/.test(document.getElementById('share-msg').textContent), null, { timeout: 5000 });
+  await settled(page);
+  // The tables show the link's frame without another edit.
+  assert.equal(Number(await given('stack_mm')), link.stack_mm);
+  assert.equal(Number(await given('reach_mm')), link.reach_mm);
+  // An edit of another field keeps the link's values (the form is read again after a link).
+  await page.fill('input[name="setup.stem_mm"]', '42');
+  await settled(page);
+  assert.equal(Number(await given('stack_mm')), link.stack_mm);
+  assert.deepEqual(problems, []);
   await context.close();
 });
 

@@ -57,13 +57,41 @@ test('phone at the top: the drawing is written in the handler, the table below i
   assert.doesNotMatch(right.given, /455/);
   await settled(page);
   assert.equal(await cell(page, 'reach_mm', 'given'), 455);
-  // Once any of the table is on the screen, it is written in the handler.
-  await page.evaluate(() => window.scrollTo(0, document.querySelector('#results table').getBoundingClientRect().top + scrollY - innerHeight + 60));
+  // Once some of the table is on the screen, its rows on the screen are written in the handler
+  // and its rows below the screen in the next task.
+  await page.evaluate(() => {
+    const row = document.querySelector('#results tr[data-key="reach_mm"]');
+    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
+  });
   await frames();
-  const seen = await page.evaluate(editReach, '456');
-  assert.match(seen.given, /456/, 'the frame table on the screen changed in the same task');
+  const seen = await page.evaluate(() => {
+    const last = document.querySelector('#results tr[data-key="top_tube_effective_mm"]');
+    const below = last.getBoundingClientRect().top > innerHeight;
+    const before = last.querySelector('td[data-col="stock"]').textContent;
+    window.__lastRow = last;
+    return { below, before };
+  });
+  assert.equal(seen.below, true, 'the effective top tube row is below the screen');
+  const shown = await page.evaluate(() => {
+    const input = document.querySelector('[name="frame.reach_mm"]');
+    input.value = '456';
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    const given = document.querySelector('#results tr[data-key="reach_mm"] td[data-col="given"]').textContent;
+    return { given, last: window.__lastRow.querySelector('td[data-col="stock"]').textContent };
+  });
+  assert.match(shown.given, /456/, 'the row on the screen changed in the same task');
+  assert.equal(shown.last, seen.before, 'the row below the screen is not written in the handler');
   await settled(page);
+  // Every row is written once the queue is: the last row shows what a fresh page shows for 456.
+  const lastRow = await page.evaluate(() => window.__lastRow.querySelector('td[data-col="stock"]').textContent);
+  const fresh = await openPage(env, { width: 360, height: 740 });
+  await fresh.page.evaluate(editReach, '456');
+  await settled(fresh.page);
+  const want = await fresh.page.evaluate(() => document.querySelector('#results tr[data-key="top_tube_effective_mm"]').querySelector('td[data-col="stock"]').textContent);
+  assert.equal(lastRow, want);
+  assert.notEqual(want, seen.before, 'effective top tube depends on reach');
   assert.deepEqual(problems, []);
+  assert.deepEqual(fresh.problems, []);
 });
 
 test('a block whose rows change is rebuilt alone; the other blocks keep their nodes', T, async () => {

@@ -12,10 +12,14 @@
 const MARGIN = '0px'; // on the screen itself: a queued part is written in the next task anyway
 
 /**
- * Returns { watch(el), forget(el), paint(el, fn), flush(), settled() }.
- * watch(el): track whether el is on the screen; forget(el): stop (el left the page). paint(el, fn): run fn now when el is on the
- * screen (or not yet known to be off it), else queue it (replacing what was queued for el).
- * flush(): write the queue now. settled(): a promise for the moment the queue is empty.
+ * Returns { watch(el), forget(el), onScreen(el), paint(el, fn), later(key, fn), flush(), settled() }.
+ * watch(el): track whether el is on the screen; forget(el): stop (el left the page). paint(el, fn): run fn(true) now when el is on the
+ * screen (or not yet known to be off it), else queue it (replacing what was queued for el) and
+ * run fn(false) when it is written. fn(true) may hand the part of its work that is off the
+ * screen to later(key, fn): queued under key (any object; replaces what was queued for it),
+ * run as fn(false) in the next task. onScreen(el): whether paint(el, …) would write at once.
+ * flush(): write the queue now. settled(): a promise for the
+ * moment the queue is empty.
  */
 export function createPainter() {
   const offscreen = new WeakSet(); // parts known to be away from the screen
@@ -39,7 +43,7 @@ export function createPainter() {
     const write = queued.get(el);
     if (!write) return;
     queued.delete(el);
-    write();
+    write(false);
     if (!queued.size) done();
   }
 
@@ -57,24 +61,32 @@ export function createPainter() {
     if (!queued.size) done();
   }
 
+  // The newest write goes last, so a whole render queued after a part's write overrides it.
+  function queue(key, write) {
+    queued.delete(key);
+    queued.set(key, write);
+    root.dataset.stale = 'true';
+    if (!timer) timer = setTimeout(flush, 0);
+  }
+
   return {
     watch(el) { observer.observe(el); },
     forget(el) {
-      observer.unobserve(el);
+      if (el instanceof Element) observer.unobserve(el);
       offscreen.delete(el);
       if (queued.delete(el) && !queued.size) done();
     },
     paint(el, write) {
       if (!offscreen.has(el)) {
         queued.delete(el);
-        write();
+        write(true);
         if (!queued.size && timer) done();
         return;
       }
-      queued.set(el, write);
-      root.dataset.stale = 'true';
-      if (!timer) timer = setTimeout(flush, 0);
+      queue(el, write);
     },
+    later: queue,
+    onScreen(el) { return !offscreen.has(el); },
     flush,
     settled() {
       return queued.size ? new Promise((ok) => waiters.push(ok)) : Promise.resolve();

@@ -128,21 +128,20 @@ function shapeOf(b) {
     : [b.type, b.keys ?? b.items.map((i) => i.cls)]);
 }
 
-/** Every changeable value of one block in render order: row classes, cell texts, notes, items. */
-function values(b) {
-  const out = [];
-  if (b.type === 'table') {
-    for (const r of b.rows) {
-      out.push(r.cls, ...r.cells.map((c) => c[1]));
-      if (r.note) out.push(r.note);
-    }
-  } else if (b.items) {
-    for (const i of b.items) out.push(i.cls, i.text, i.source ?? '');
-  }
+/** Every changeable value of one table row in render order: its class, cell texts and note. */
+function rowValues(r) {
+  const out = [r.cls, ...r.cells.map((c) => c[1])];
+  if (r.note) out.push(r.note);
   return out;
 }
 
-function buildTable(b, words, refs) {
+/** Every changeable value of a list block in render order: each item's class, text and source. */
+function itemValues(b) {
+  return b.items ? b.items.flatMap((i) => [i.cls, i.text, i.source ?? '']) : [];
+}
+
+/** rows: receives { first, last, refs } per table row (its first and last <tr>, its values' nodes). */
+function buildTable(b, words, rows) {
   const scope = b.caption.split(':')[0];
   // The CSS lays rows out as flex lines (style.css), which can drop a table's native semantics in
   // some browsers, so every part also carries its table role.
@@ -153,13 +152,15 @@ function buildTable(b, words, refs) {
     const boxes = r.cells.map(([, text]) => el('span', { class: 'v' }, text));
     const tds = r.cells.map(([col], i) => el('td', { 'data-col': col, class: 'num', role: 'cell' }, boxes[i]));
     const tr = el('tr', { 'data-key': r.key, class: r.cls, role: 'row' }, el('th', { scope: 'row', role: 'rowheader' }, ...term(r.key, scope, words)), ...tds);
-    refs.push([tr, 'class'], ...boxes.map((box) => [box, 'text']));
+    const row = { first: tr, last: tr, refs: [[tr, 'class'], ...boxes.map((box) => [box, 'text'])] };
     body.append(tr);
     if (r.note) {
       const td = el('td', { colspan: String(b.cols.length), role: 'cell' }, r.note);
-      refs.push([td, 'text']);
-      body.append(el('tr', { class: 'note-row', role: 'row' }, td));
+      row.refs.push([td, 'text']);
+      row.last = el('tr', { class: 'note-row', role: 'row' }, td);
+      body.append(row.last);
     }
+    rows.push(row);
     if (open.has(`${scope}|${r.key}`)) body.append(defRow(r.key, words, b.cols.length));
   }
   return el('table', { class: 'numbers', role: 'table' }, el('caption', {}, b.caption), el('thead', { role: 'rowgroup' }, head), body);
@@ -196,13 +197,14 @@ function buildMissing(b, words) {
 }
 
 let rebuildAll = true; // set when the tables' rows were changed by hand (definitions)
-let parts = []; // one per block: { id, shape, node, refs }
+let parts = []; // one per block: { id, shape, node, refs (lists), rows (tables), rest (a queue key) }
 
 function build(b, words) {
   const refs = [];
-  const node = b.type === 'table' ? buildTable(b, words, refs)
+  const rows = [];
+  const node = b.type === 'table' ? buildTable(b, words, rows)
     : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs);
-  return { id: idOf(b), shape: shapeOf(b), node, refs };
+  return { id: idOf(b), shape: shapeOf(b), node, refs, rows, rest: {} };
 }
 
 /** Sets a node's text, changing its one text node in place where it has one (cheaper layout). */
@@ -226,18 +228,64 @@ function patch(refs, vals) {
 }
 
 /**
+ * The indexes of a table's rows on the screen (the block itself is on it): a binary search for
+ * the first row whose last <tr> ends below the top of the screen, then rows while they start
+ * above its bottom. Read before anything is written (web/app.js renders the results before the
+ * drawing), so the one layout it causes is the typed box's, and the page's next layout does the
+ * rest at once.
+ */
+function rowsOnScreen(rows) {
+  let lo = 0;
+  let hi = rows.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (rows[mid].last.getBoundingClientRect().bottom <= 0) lo = mid + 1; else hi = mid;
+  }
+  let end = lo;
+  while (end < rows.length && rows[end].first.getBoundingClientRect().top < innerHeight) end += 1;
+  return [lo, end];
+}
+
+/**
+ * Writes a table whose rows are unchanged. From the edit's handler, only the rows on the screen
+ * (`shown`: [from, to), read before the edit wrote anything) are written; the rest go to the painter's queue (written in the next task): a block
+ * only partly on the screen (the desk's first table shows its caption under the drawing) costs
+ * the handler its visible rows, not its 60 numbers.
+ */
+function patchTable(part, b, shown, painter) {
+  const [from, to] = shown ?? [0, b.rows.length];
+  for (let i = from; i < to; i += 1) patch(part.rows[i].refs, rowValues(b.rows[i]));
+  if (from === 0 && to === b.rows.length) return;
+  painter.later(part.rest, () => {
+    b.rows.forEach((r, i) => {
+      if (i < from || i >= to) patch(part.rows[i].refs, rowValues(r));
+    });
+  });
+}
+
+/**
  * Renders every table and list for one bike into the container. A block that keeps its shape
  * (same rows, same columns, same notes, same kinds of items) only gets its changed texts and
  * classes; a block whose shape changed is rebuilt alone; a new list of blocks rebuilds them all.
  * Every write goes through `painter` (ui/onscreen.js): at once for a block on the screen, else
  * in the next task.
  */
-export function renderResults(container, bike, notes, catalogue, words, painter) {
+export function renderResults(container, bike, notes, catalogue, words, painter, queued = false) {
+  // No block on the screen (a phone at the drawing or at a field): even the model waits for the
+  // next task, where the queued render writes every block directly.
+  if (!queued && parts.length && !rebuildAll && parts.every((p) => !painter.onScreen(p.node))) {
+    painter.later(container, () => renderResults(container, bike, notes, catalogue, words, painter, true));
+    return;
+  }
+  painter.forget(container); // a render queued by an earlier edit would write older values
   const blocks = model(bike, notes ?? {}, catalogue);
   const sameList = !rebuildAll && blocks.length === parts.length
     && blocks.every((b, i) => idOf(b) === parts[i].id);
   if (!sameList) {
-    for (const p of parts) painter.forget(p.node);
+    for (const p of parts) {
+      painter.forget(p.node);
+      painter.forget(p.rest);
+    }
     parts = blocks.map((b) => build(b, words));
     for (const p of parts) painter.watch(p.node);
     container.replaceChildren(...parts.map((p) => p.node));
@@ -246,19 +294,23 @@ export function renderResults(container, bike, notes, catalogue, words, painter)
   }
   // Each block is compared, formatted and written when the painter writes it: at once on the
   // screen, in the next task off it. A later edit's write for the same node replaces a queued one.
+  const shown = parts.map((p) => (!queued && p.rows.length && painter.onScreen(p.node) ? rowsOnScreen(p.rows) : null));
   blocks.forEach((b, i) => {
     const part = parts[i];
-    painter.paint(part.node, () => {
+    const write = (now) => {
       if (shapeOf(b) === part.shape) {
-        patch(part.refs, values(b));
+        if (b.type === 'table') patchTable(part, b, now ? shown[i] : null, painter);
+        else patch(part.refs, itemValues(b));
         return;
       }
       const fresh = build(b, words);
       parts[i] = fresh;
       painter.forget(part.node);
+      painter.forget(part.rest);
       part.node.replaceWith(fresh.node);
       painter.watch(fresh.node);
-    });
+    };
+    if (queued) write(false); else painter.paint(part.node, write);
   });
 }
 

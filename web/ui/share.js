@@ -15,6 +15,8 @@ const byId = (id) => document.getElementById(id);
  *   getFields()        → { "<field name>": "<typed text>" } of the form
  *   applyFields(f)     fills the form from a link; returns the names it has no field for
  *   getView()/applyView(v)  the page's view choices (optional; kept from the link otherwise)
+ *   opened()           called after a link pasted into the address of the open page filled it
+ *                      (the page evaluates the new form; the first link is opened before that)
  * Returns { fields(), view(), update(link), settle() }: fields() is the form plus the opened
  * link's values the form has no input for (evaluate these, so the drawing shows the whole
  * link); view() the view choices for the link; call update(link) after every evaluation that succeeded, with the
@@ -22,7 +24,7 @@ const byId = (id) => document.getElementById(id);
  * task, for the latest edit only; empty text when none), or update() to compute it now; call
  * settle() before an evaluation that would replace the form a pending function makes a link of.
  */
-export function initShare({ getFields, applyFields, getView, applyView = () => {} }) {
+export function initShare({ getFields, applyFields, getView, applyView = () => {}, opened = () => {} }) {
   const msg = byId('share-msg');
   const url = byId('share-url');
   const copy = byId('share-copy');
@@ -181,7 +183,10 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     hold = false;
   }, { capture: true });
   // A link pasted into the address bar of an open page.
-  window.addEventListener('hashchange', () => { open(location.hash); });
+  window.addEventListener('hashchange', () => {
+    open(location.hash);
+    opened();
+  });
 
   open(location.hash);
   url.value = location.href;
