@@ -33,8 +33,7 @@ const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
 
-// The form's text as the person types it: an input event updates its own field, and a form
-// filled by code (a link, a chart size) is read whole again (readForm visits all 79 controls).
+// The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;
 const formFields = () => ({ ...(typed ??= readForm(form)) });
 
@@ -46,7 +45,7 @@ function writeForm(fields) {
 }
 
 // Share links (issue 6): opens a link in the address before the first drawing.
-// A link pasted into the address of the open page fills the form and is evaluated at once.
+// A link pasted into the open page's address is evaluated at once.
 const share = initShare({ getFields: formFields, applyFields: writeForm, getView, applyView, opened: () => update() });
 
 function update(event) {
@@ -67,9 +66,7 @@ function update(event) {
     return;
   }
   status.textContent = '';
-  // The results first: they read which of their rows are on the screen before anything is
-  // written (web/ui/results.js). The drawing is asked of the kernel only when it is written: in
-  // the next task when it is off the screen (a person typing in a field lower down).
+  // Results first (they read row places before any write); the drawing is made when written.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page, in the next task

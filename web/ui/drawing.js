@@ -1,15 +1,6 @@
-// The drawing's writer (crates/draw via the kernel): written whole (innerHTML of
-// wasm.drawing_svg(), asked for only then) when its structure changed (a part appeared or went);
-// otherwise only the values that changed are set. wasm.drawing_changes(shownSeq) gives them
-// relative to the answer the page applied last (crates/web/src/changes.rs): `changes`
-// [[index, value]] into the patch list, or the whole `patch` [[key, attribute, value]] ('text' =
-// the words) when the page's last answer is not the kernel's. Both come from the kernel when the
-// drawing is written (the drawing of the last form that evaluated), so a write the painter
-// defers (drawing off the screen) shows the latest drawing.
-//
-// Values in a layer the view hides (the other posture, the dimensions, the ghost) wait until
-// the layer is shown: in Chromium, changing a text inside a hidden layer cost more than in a
-// shown one (9 hidden labels 0.5 ms, 3 shown 0.2 ms, docs/BENCHMARKS.md).
+// The drawing's writer: the whole SVG (wasm.drawing_svg()) when its structure changed, else only
+// the changed values from wasm.drawing_changes(shownSeq) (crates/web/src/changes.rs). Values in a
+// layer the view hides wait until it is shown (cheaper in Chromium: docs/BENCHMARKS.md).
 
 /** Which view class hides each layer of the drawing's container (web/ui/view.js). */
 const HIDDEN = {

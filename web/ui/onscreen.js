@@ -1,25 +1,15 @@
-// What is on the screen is written at once; what is off it is written in the next task.
-//
-// Writing a changed number costs Chromium a re-layout of its text (about 50 µs a number on the
-// build machine, four times that with the CPU slowed like a phone's), and one edit changes 20–70
-// numbers, mostly in tables the person cannot see at that moment. So every part of the page that
-// an edit rewrites (the drawing, each result table or list) is painted through `paint`: at once
-// when the part is on the screen, else queued. The queue is written in the next task
-// (a run of quick edits writes only the last values), or earlier when a queued part scrolls onto
-// the screen. The document never stays stale: `<html data-stale>` is set while anything is queued
-// and removed when the queue is written (tests and the benchmark wait for it).
+// What is on the screen is written at once; what is off it in the next task (a run of quick
+// edits writes only the last values), or when a queued part scrolls onto the screen. An edit
+// changes 20–70 numbers, mostly out of sight, and each costs Chromium a re-layout of its text.
+// `<html data-stale>` is set while anything is queued (tests and the benchmark wait for it).
 
 const MARGIN = '0px'; // on the screen itself: a queued part is written in the next task anyway
 
 /**
- * Returns { watch(el), forget(el), onScreen(el), paint(el, fn), later(key, fn), flush(), settled() }.
- * watch(el): track whether el is on the screen; forget(el): stop (el left the page). paint(el, fn): run fn(true) now when el is on the
- * screen (or not yet known to be off it), else queue it (replacing what was queued for el) and
- * run fn(false) when it is written. fn(true) may hand the part of its work that is off the
- * screen to later(key, fn): queued under key (any object; replaces what was queued for it),
- * run as fn(false) in the next task. onScreen(el): whether paint(el, …) would write at once.
- * flush(): write the queue now. settled(): a promise for the
- * moment the queue is empty.
+ * watch(el) / forget(el): track whether el is on the screen. paint(el, fn): fn(true) now when el
+ * is on the screen, else queued (replacing el's queued write) and run as fn(false). later(key,
+ * fn): queue fn for the next task. onScreen(el): paint would write at once. flush(): write the
+ * queue now. settled(): a promise for an empty queue.
  */
 export function createPainter() {
   const offscreen = new WeakSet(); // parts known to be away from the screen
@@ -61,7 +51,7 @@ export function createPainter() {
     if (!queued.size) done();
   }
 
-  // The newest write goes last, so a whole render queued after a part's write overrides it.
+  // Newest last: a later whole render overrides a part's older write.
   function queue(key, write) {
     queued.delete(key);
     queued.set(key, write);

@@ -128,19 +128,19 @@ function shapeOf(b) {
     : [b.type, b.keys ?? b.items.map((i) => i.cls)]);
 }
 
-/** Every changeable value of one table row in render order: its class, cell texts and note. */
+/** A row's changeable values in render order: class, cell texts, note. */
 function rowValues(r) {
   const out = [r.cls, ...r.cells.map((c) => c[1])];
   if (r.note) out.push(r.note);
   return out;
 }
 
-/** Every changeable value of a list block in render order: each item's class, text and source. */
+/** A list's changeable values: each item's class, text and source. */
 function itemValues(b) {
   return b.items ? b.items.flatMap((i) => [i.cls, i.text, i.source ?? '']) : [];
 }
 
-/** rows: receives { first, last, refs } per table row (its first and last <tr>, its values' nodes). */
+/** rows: gets { first, last, refs } per row (first and last <tr>, its values' nodes). */
 function buildTable(b, words, rows) {
   const scope = b.caption.split(':')[0];
   // The CSS lays rows out as flex lines (style.css), which can drop a table's native semantics in
@@ -227,13 +227,7 @@ function patch(refs, vals) {
   });
 }
 
-/**
- * The indexes of a table's rows on the screen (the block itself is on it): a binary search for
- * the first row whose last <tr> ends below the top of the screen, then rows while they start
- * above its bottom. Read before anything is written (web/app.js renders the results before the
- * drawing), so the one layout it causes is the typed box's, and the page's next layout does the
- * rest at once.
- */
+/** [from, to) of a table's rows on the screen; read before the edit writes anything. */
 function rowsOnScreen(rows) {
   let lo = 0;
   let hi = rows.length;
@@ -246,12 +240,7 @@ function rowsOnScreen(rows) {
   return [lo, end];
 }
 
-/**
- * Writes a table whose rows are unchanged. From the edit's handler, only the rows on the screen
- * (`shown`: [from, to), read before the edit wrote anything) are written; the rest go to the painter's queue (written in the next task): a block
- * only partly on the screen (the desk's first table shows its caption under the drawing) costs
- * the handler its visible rows, not its 60 numbers.
- */
+/** Writes a table of unchanged shape: the rows `shown` now, the rest in the next task. */
 function patchTable(part, b, shown, painter) {
   const [from, to] = shown ?? [0, b.rows.length];
   for (let i = from; i < to; i += 1) patch(part.rows[i].refs, rowValues(b.rows[i]));
@@ -271,13 +260,12 @@ function patchTable(part, b, shown, painter) {
  * in the next task.
  */
 export function renderResults(container, bike, notes, catalogue, words, painter, queued = false) {
-  // No block on the screen (a phone at the drawing or at a field): even the model waits for the
-  // next task, where the queued render writes every block directly.
+  // No block on the screen: the whole render waits for the next task.
   if (!queued && parts.length && !rebuildAll && parts.every((p) => !painter.onScreen(p.node))) {
     painter.later(container, () => renderResults(container, bike, notes, catalogue, words, painter, true));
     return;
   }
-  painter.forget(container); // a render queued by an earlier edit would write older values
+  painter.forget(container); // drop an older queued render
   const blocks = model(bike, notes ?? {}, catalogue);
   const sameList = !rebuildAll && blocks.length === parts.length
     && blocks.every((b, i) => idOf(b) === parts[i].id);
