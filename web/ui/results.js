@@ -45,14 +45,14 @@ function defRow(key, words, span) {
     el('td', { colspan: String(span), role: 'cell' }, t?.definition ?? 'No definition recorded for this number yet.'));
 }
 
-// The results as data first: blocks of tables and lists. An edit that keeps the blocks' shape
-// (same rows, same columns, same notes) only rewrites texts and classes through `refs`. A row's
-// cells are formatted only when read (a getter), so a block off the screen formats its numbers
-// when the painter writes it, not in the edit's handler.
+// The results as data first: blocks of tables and lists, each made (and its cells formatted)
+// only when the painter writes it. A block that keeps its shape only gets its changed texts.
 
 function numberKeys(obj) {
   return Object.keys(obj ?? {}).filter((k) => typeof obj[k] === 'number');
 }
+
+const FRAME_CAPTION = 'Frame: published, solved and as ridden';
 
 function frameBlock(bike, notes, catalogue) {
   const rows = catalogue.map(({ key }) => {
@@ -71,7 +71,7 @@ function frameBlock(bike, notes, catalogue) {
       note: notes[key],
     };
   });
-  return { type: 'table', caption: 'Frame: published, solved and as ridden', cols: ['Measure', 'Published', 'Solved', 'Ridden'], rows };
+  return { type: 'table', caption: FRAME_CAPTION, cols: ['Measure', 'Published', 'Solved', 'Ridden'], rows };
 }
 
 function simpleBlock(caption, obj) {
@@ -91,28 +91,38 @@ function postureBlock(caption, block) {
   };
 }
 
+/** The catalogue's frame keys (the cockpit table shows the other ridden numbers). */
+const frameKeys = new WeakMap();
+
+/** Whether a posture block (columns of numbers) has any number. */
+function hasPostureNumbers(block) {
+  return Object.values(block ?? {}).some((c) => c && typeof c === 'object' && numberKeys(c).length);
+}
+
+/** The result blocks as [id, make] in page order; make() builds the block when written. */
 function model(bike, notes, catalogue) {
-  const isFrame = new Set(catalogue.map((m) => m.key));
-  const ridden = Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !isFrame.has(k)));
-  const warnings = bike.warnings?.length ? {
-    type: 'warnings',
-    items: bike.warnings.map((w) => ({
-      cls: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note', text: w.message,
-    })),
-  } : null;
-  const missing = bike.missing?.length ? { type: 'missing', keys: bike.missing } : null;
-  const checks = bike.checks?.length ? {
-    type: 'checks',
-    items: bike.checks.map((c) => ({ cls: c.within === false ? 'outside' : 'inside', text: c.message, source: c.source })),
-  } : null;
+  if (!frameKeys.has(catalogue)) frameKeys.set(catalogue, new Set(catalogue.map((m) => m.key)));
+  const isFrame = frameKeys.get(catalogue);
+  const ridden = () => Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !isFrame.has(k)));
+  const table = (caption, make) => [`table|${caption}`, () => make(caption)];
   return [
-    warnings, missing,
-    frameBlock(bike, notes, catalogue),
-    simpleBlock('Cockpit and saddle, as ridden', ridden),
-    postureBlock('Fit', bike.fit),
-    postureBlock('Handling', bike.handling),
-    simpleBlock('Steering', bike.derived),
-    checks,
+    bike.warnings?.length && ['warnings', () => ({
+      type: 'warnings',
+      items: bike.warnings.map((w) => ({
+        cls: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note', text: w.message,
+      })),
+    })],
+    bike.missing?.length && ['missing', () => ({ type: 'missing', keys: bike.missing })],
+    table(FRAME_CAPTION, () => frameBlock(bike, notes, catalogue)),
+    Object.keys(bike.ridden).some((k) => !isFrame.has(k) && typeof bike.ridden[k] === 'number')
+      && table('Cockpit and saddle, as ridden', (c) => simpleBlock(c, ridden())),
+    hasPostureNumbers(bike.fit) && table('Fit', (c) => postureBlock(c, bike.fit)),
+    hasPostureNumbers(bike.handling) && table('Handling', (c) => postureBlock(c, bike.handling)),
+    numberKeys(bike.derived).length && table('Steering', (c) => simpleBlock(c, bike.derived)),
+    bike.checks?.length && ['checks', () => ({
+      type: 'checks',
+      items: bike.checks.map((c) => ({ cls: c.within === false ? 'outside' : 'inside', text: c.message, source: c.source })),
+    })],
   ].filter(Boolean);
 }
 
@@ -268,13 +278,13 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
   painter.forget(container); // drop an older queued render
   const blocks = model(bike, notes ?? {}, catalogue);
   const sameList = !rebuildAll && blocks.length === parts.length
-    && blocks.every((b, i) => idOf(b) === parts[i].id);
+    && blocks.every(([id], i) => id === parts[i].id);
   if (!sameList) {
     for (const p of parts) {
       painter.forget(p.node);
       painter.forget(p.rest);
     }
-    parts = blocks.map((b) => build(b, words));
+    parts = blocks.map(([, make]) => build(make(), words));
     for (const p of parts) painter.watch(p.node);
     container.replaceChildren(...parts.map((p) => p.node));
     rebuildAll = false;
@@ -283,9 +293,10 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
   // Each block is compared, formatted and written when the painter writes it: at once on the
   // screen, in the next task off it. A later edit's write for the same node replaces a queued one.
   const shown = parts.map((p) => (!queued && p.rows.length && painter.onScreen(p.node) ? rowsOnScreen(p.rows) : null));
-  blocks.forEach((b, i) => {
+  blocks.forEach(([, make], i) => {
     const part = parts[i];
     const write = (now) => {
+      const b = make();
       if (shapeOf(b) === part.shape) {
         if (b.type === 'table') patchTable(part, b, now ? shown[i] : null, painter);
         else patch(part.refs, itemValues(b));
