@@ -99,6 +99,23 @@ test('a link pasted into the address of an edited page shows its numbers at once
   await context.close();
 });
 
+test('a jump link scrolls to its place and leaves the share link and its message alone', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  await page.fill('input[name="frame.reach_mm"]', '476');
+  await page.waitForFunction(() => location.hash.length > 20, null, { timeout: 5000 });
+  const link = await page.evaluate(() => location.hash);
+  await page.locator('.jump a[href="#results-title"]').click();
+  await page.waitForFunction(() => document.getElementById('results-title').getBoundingClientRect().top < innerHeight / 2, null, { timeout: 5000 });
+  await settled(page);
+  assert.equal(await page.evaluate(() => location.hash), link, 'the address keeps the share link');
+  assert.doesNotMatch(await page.locator('#share-msg').textContent(), /could not be opened/);
+  // The address still follows the next edit.
+  await page.fill('input[name="frame.reach_mm"]', '477');
+  await page.waitForFunction((old) => location.hash !== old, link, { timeout: 5000 });
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
 test('a garbled link shows its message, the page stays usable and saved data is untouched', T, async () => {
   const { page, context, problems } = await openPage(env);
   await page.evaluate(() => localStorage.setItem('framewise-test', 'kept'));

@@ -94,6 +94,41 @@ test('phone at the top: the drawing is written in the handler, the table below i
   assert.deepEqual(fresh.problems, []);
 });
 
+test('rows queued by an edit never overwrite a later edit that wrote the whole table', T, async () => {
+  // Tall enough that the whole frame table fits on the screen once scrolled to it.
+  const { page, problems } = await openPage(env, { width: 1280, height: 1400 });
+  const frames = () => page.waitForFunction(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(() => ok(true)))));
+  const topTube = () => document.querySelector('#results tr[data-key="top_tube_effective_mm"] td[data-col="stock"]').textContent;
+  await frames();
+  const start = await page.evaluate(topTube); // the demo's reach, 470
+  await page.evaluate(() => {
+    const row = document.querySelector('#results tr[data-key="reach_mm"]');
+    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
+  });
+  await frames();
+  // In one task: an edit with the table partly on the screen (its lower rows queued), the whole
+  // table scrolled onto the screen, and an edit back to the first value (every row written).
+  const result = await page.evaluate(() => {
+    const input = document.querySelector('[name="frame.reach_mm"]');
+    const cell = () => document.querySelector('#results tr[data-key="top_tube_effective_mm"] td[data-col="stock"]');
+    const below = cell().getBoundingClientRect().top > innerHeight;
+    input.value = '456';
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    const table = document.querySelector('#results table');
+    window.scrollTo(0, table.getBoundingClientRect().top + scrollY - 10);
+    const fits = table.getBoundingClientRect().bottom < innerHeight;
+    input.value = '470';
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    return { below, fits, now: cell().textContent };
+  });
+  assert.equal(result.below, true, 'the row was below the screen at the first edit');
+  assert.equal(result.fits, true, 'the whole table is on the screen at the second edit');
+  assert.equal(result.now, start, 'the second edit wrote the row at once');
+  await settled(page);
+  assert.equal(await page.evaluate(topTube), start, 'no older queued write came after it');
+  assert.deepEqual(problems, []);
+});
+
 test('a block whose rows change is rebuilt alone; the other blocks keep their nodes', T, async () => {
   const { page, problems } = await openPage(env, { width: 1280, height: 800 });
   const set = (n, v) => page.evaluate(([n, v]) => {

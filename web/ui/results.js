@@ -254,7 +254,7 @@ function rowsOnScreen(rows) {
 function patchTable(part, b, shown, painter) {
   const [from, to] = shown ?? [0, b.rows.length];
   for (let i = from; i < to; i += 1) patch(part.rows[i].refs, rowValues(b.rows[i]));
-  if (from === 0 && to === b.rows.length) return;
+  if (from === 0 && to === b.rows.length) { painter.forget(part.rest); return; } // drop an older rest
   painter.later(part.rest, () => {
     b.rows.forEach((r, i) => {
       if (i < from || i >= to) patch(part.rows[i].refs, rowValues(r));

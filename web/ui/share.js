@@ -43,8 +43,11 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     msg.dataset.kind = kind;
   };
 
+  // A jump link's target (#results-title…) is a place on the page, not a share link.
+  const isPlace = (hash) => Boolean(document.getElementById(hash.slice(1)));
+
   function open(hash) {
-    if (!hash || hash === '#') return;
+    if (!hash || hash === '#' || isPlace(hash)) return;
     let result;
     try {
       result = JSON.parse(form_from_link(hash));
@@ -183,7 +186,13 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     hold = false;
   }, { capture: true });
   // A link pasted into the address bar of an open page.
-  window.addEventListener('hashchange', () => {
+  window.addEventListener('hashchange', (e) => {
+    if (isPlace(location.hash)) {
+      // A jump link only scrolls: the address keeps the share link (copy and share use it).
+      const before = new URL(e.oldURL).hash;
+      if (before && !isPlace(before)) history.replaceState(history.state, '', before);
+      return;
+    }
     open(location.hash);
     opened();
   });
