@@ -2,7 +2,7 @@
 // parts off it in the next task, and nothing stays stale.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { startAll, openPage, settled } from './harness.mjs';
+import { startAll, openPage, settled, frames as twoFrames } from './harness.mjs';
 import { cell } from './page-helpers.mjs';
 
 let env;
@@ -10,6 +10,15 @@ before(async () => { env = await startAll(); });
 after(async () => { await env?.stop(); });
 
 const T = { timeout: 60000 };
+
+/** Scrolls so the frame table's reach row is the last on the screen; waits for the observer. */
+async function showReachRowLast(page) {
+  await page.evaluate(() => {
+    const row = document.querySelector('#results tr[data-key="reach_mm"]');
+    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
+  });
+  await twoFrames(page);
+}
 
 /** Sets reach in one task and reports what the page shows right after the handler. */
 function editReach(value) {
@@ -45,7 +54,7 @@ test('phone at the inputs: the off-screen tables follow in the next task', T, as
 
 test('phone at the top: the drawing is written in the handler, the table below it in the next task', T, async () => {
   const { page, problems } = await openPage(env, { width: 360, height: 740 });
-  const frames = () => page.waitForFunction(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(() => ok(true)))));
+  const frames = () => twoFrames(page);
   await frames();
   const below = await page.evaluate(() => document.querySelector('#results table').getBoundingClientRect().top > innerHeight);
   assert.equal(below, true, 'the frame table starts below the first screen');
@@ -59,11 +68,7 @@ test('phone at the top: the drawing is written in the handler, the table below i
   assert.equal(await cell(page, 'reach_mm', 'given'), 455);
   // Once some of the table is on the screen, its rows on the screen are written in the handler
   // and its rows below the screen in the next task.
-  await page.evaluate(() => {
-    const row = document.querySelector('#results tr[data-key="reach_mm"]');
-    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
-  });
-  await frames();
+  await showReachRowLast(page);
   const seen = await page.evaluate(() => {
     const last = document.querySelector('#results tr[data-key="top_tube_effective_mm"]');
     const below = last.getBoundingClientRect().top > innerHeight;
@@ -97,15 +102,11 @@ test('phone at the top: the drawing is written in the handler, the table below i
 test('rows queued by an edit never overwrite a later edit that wrote the whole table', T, async () => {
   // Tall enough that the whole frame table fits on the screen once scrolled to it.
   const { page, problems } = await openPage(env, { width: 1280, height: 1400 });
-  const frames = () => page.waitForFunction(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(() => ok(true)))));
+  const frames = () => twoFrames(page);
   const topTube = () => document.querySelector('#results tr[data-key="top_tube_effective_mm"] td[data-col="stock"]').textContent;
   await frames();
   const start = await page.evaluate(topTube); // the demo's reach, 470
-  await page.evaluate(() => {
-    const row = document.querySelector('#results tr[data-key="reach_mm"]');
-    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
-  });
-  await frames();
+  await showReachRowLast(page);
   // In one task: an edit with the table partly on the screen (its lower rows queued), the whole
   // table scrolled onto the screen, and an edit back to the first value (every row written).
   const result = await page.evaluate(() => {
