@@ -528,3 +528,25 @@ fn pdf_single_spaces_sizes_as_rows() {
     ));
     assert!(c.unrecognised.is_empty());
 }
+
+/// A PDF copy aligned with spaces where some cells are blank: each value stays under its own
+/// size (by its columns), a blank cell is a missing value, and a blank at the end of a row is
+/// read from the left and said.
+#[test]
+fn aligned_spaces_with_blank_cells_keep_values_under_their_sizes() {
+    let c = chart("16_pdf_aligned_blank_cells.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert_row(&c, "reach_mm", &[430.0, 452.0, 474.0, 496.0]);
+    let stack = row(&c, "stack_mm");
+    assert!(stack[1].is_nan(), "M has no stack: {stack:?}");
+    assert_eq!([stack[0], stack[2], stack[3]], [605.0, 623.0, 632.0]);
+    let chainstay = row(&c, "chainstay_mm");
+    assert!(chainstay[0].is_nan(), "S has no chainstay: {chainstay:?}");
+    assert_eq!(chainstay[1..], [435.0, 435.0, 440.0]);
+    let wheelbase = row(&c, "wheelbase_mm");
+    assert_eq!(wheelbase[..3], [1150.0, 1177.0, 1204.0]);
+    assert!(wheelbase[3].is_nan());
+    assert!(has_note(&c, "Wheelbase", "read from the left"));
+    assert!(!has_note(&c, "Stack", "read from the left"));
+    assert_row(&c, "head_tube_mm", &[95.0, 105.0, 115.0, 125.0]);
+}
