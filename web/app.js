@@ -35,7 +35,7 @@ wireDefinitions(results, definitions);
 
 // The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;
-const formFields = () => ({ ...(typed ??= readForm(form)) });
+const formFields = () => (typed ??= readForm(form)); // share.fields() copies it
 
 // Fills the form from a shared link; returns the link's field names the form has no input for.
 function writeForm(fields) {

@@ -2,7 +2,7 @@
 // parts off it in the next task, and nothing stays stale.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { startAll, openPage, settled, frames as twoFrames } from './harness.mjs';
+import { startAll, openPage, settled, frames } from './harness.mjs';
 import { cell } from './page-helpers.mjs';
 
 let env;
@@ -17,7 +17,7 @@ async function showReachRowLast(page) {
     const row = document.querySelector('#results tr[data-key="reach_mm"]');
     window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
   });
-  await twoFrames(page);
+  await frames(page);
 }
 
 /** Sets reach in one task and reports what the page shows right after the handler. */
@@ -33,7 +33,7 @@ test('phone at the inputs: the off-screen tables follow in the next task', T, as
   const { page, problems } = await openPage(env, { width: 360, height: 740 });
   await page.locator('[name="frame.reach_mm"]').scrollIntoViewIfNeeded();
   // Let the observer learn that the results are off the screen.
-  await page.waitForFunction(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(() => ok(true)))));
+  await frames(page);
   const right = await page.evaluate(editReach, '481');
   assert.equal(right.stale, true, 'the results are queued, not written in the handler');
   assert.doesNotMatch(right.given, /481/);
@@ -54,8 +54,7 @@ test('phone at the inputs: the off-screen tables follow in the next task', T, as
 
 test('phone at the top: the drawing is written in the handler, the table below it in the next task', T, async () => {
   const { page, problems } = await openPage(env, { width: 360, height: 740 });
-  const frames = () => twoFrames(page);
-  await frames();
+  await frames(page);
   const below = await page.evaluate(() => document.querySelector('#results table').getBoundingClientRect().top > innerHeight);
   assert.equal(below, true, 'the frame table starts below the first screen');
   const before = await page.evaluate(() => document.querySelector('#drawing svg').outerHTML);
@@ -102,9 +101,8 @@ test('phone at the top: the drawing is written in the handler, the table below i
 test('rows queued by an edit never overwrite a later edit that wrote the whole table', T, async () => {
   // Tall enough that the whole frame table fits on the screen once scrolled to it.
   const { page, problems } = await openPage(env, { width: 1280, height: 1400 });
-  const frames = () => twoFrames(page);
   const topTube = () => document.querySelector('#results tr[data-key="top_tube_effective_mm"] td[data-col="stock"]').textContent;
-  await frames();
+  await frames(page);
   const start = await page.evaluate(topTube); // the demo's reach, 470
   await showReachRowLast(page);
   // In one task: an edit with the table partly on the screen (its lower rows queued), the whole
