@@ -9,9 +9,10 @@
 //! Lengths are in millimetres (the viewBox is the bike in mm), so strokes and text scale with
 //! the bike; thin annotation lines use `vector-effect: non-scaling-stroke` in the page's CSS.
 //!
-//! **Cheap to change, stable structure:** every line, polyline and circle is a `<polyline>` (a
-//! circle is a fine regular polygon), because in Chromium changing a polyline's `points` needs
-//! no restyle, unlike a path's `d` ([`shapes::PathData`]); numbers are written at 0.1 mm by our
+//! **Cheap to change, stable structure:** every line and polyline is a `<polyline>` and every
+//! circle a `<circle>` in a marker placed by a polyline at its centre ([`model::Ring`]), because
+//! in Chromium changing a polyline's `points` needs no restyle, unlike a path's `d` or a circle's
+//! `cx` ([`shapes::PathData`]); numbers are written at 0.1 mm by our
 //! own integer writer ([`num`]). Every polyline and text has a stable key (`data-k`) and the set of
 //! elements depends only on which parts exist, so the page patches the changed values
 //! ([`Drawing::patch`]) instead of replacing the document when [`Drawing::structure`] is

@@ -7,7 +7,7 @@
 //! that already shows a drawing of the same structure can apply [`Drawing::patch`] instead of
 //! replacing the document.
 
-use svg::node::element::{Group, Polyline, Text, Title};
+use svg::node::element::{Circle, Element as SvgElement, Group, Marker, Polyline, Text, Title};
 use svg::Document;
 
 /// One element of the drawing.
@@ -20,8 +20,8 @@ pub enum Node {
         /// Its elements, back to front.
         children: Vec<Node>,
     },
-    /// One styled part: its lines, polylines and circles, each a `<polyline>` with the part's
-    /// classes (styled by the page's CSS).
+    /// One styled part: its lines and polylines, each a `<polyline>` with the part's classes
+    /// (styled by the page's CSS), and its circles, each a [`Ring`].
     Lines {
         /// The part's classes.
         class: String,
@@ -52,6 +52,29 @@ pub struct Line {
     pub key: String,
     /// The `points` text: `x,y` pairs in 0.1 mm numbers, separated by spaces.
     pub points: String,
+    /// For a circle: the polyline is its anchor (its centre, twice; class `at`, no stroke) and
+    /// the circle is drawn as the anchor's start marker.
+    pub ring: Option<Ring>,
+}
+
+/// A circle drawn as a marker: `<marker id="ring-…" markerUnits="userSpaceOnUse"
+/// overflow="visible"><circle data-k class r/></marker>`, placed just before its anchor
+/// polyline (`marker-start`), in the same group so that the group's CSS styles the circle (a
+/// marker's content inherits from the marker's own ancestors). In user units of the anchor, the
+/// circle's centre is the anchor's first point, so moving the circle changes only the anchor's
+/// `points`, never a styled property (`cx`, `cy`, `transform`).
+#[derive(Debug, Clone, PartialEq)]
+pub struct Ring {
+    /// Stable key of the `<circle>` (`data-k`): the anchor's key and `.r`.
+    pub key: String,
+    /// The radius, 0.1 mm number (0 for a part not drawn).
+    pub r: String,
+}
+
+/// The `id` of a ring's marker: `ring-` and the anchor's key with `.` written as `_` (keys
+/// hold only letters, digits, `-` and `.`, so ids stay unique).
+pub fn ring_id(anchor_key: &str) -> String {
+    format!("ring-{}", anchor_key.replace('.', "_"))
 }
 
 /// A whole drawing: the root's view box and title, and its elements back to front.
@@ -93,7 +116,8 @@ impl Drawing {
     }
 
     /// Every value that depends on the numbers, in document order: the root's `viewBox` and
-    /// `aria-label`, the title's text, each polyline's `points`, each text's `x`, `y` and text. Applying
+    /// `aria-label`, the title's text, each polyline's `points` (then its ring's `r`), each
+    /// text's `x`, `y` and text. Applying
     /// it to a drawing of the same [`Drawing::structure`] gives this drawing.
     pub fn patch(&self) -> Vec<Patch<'_>> {
         let mut out = vec![
@@ -128,8 +152,8 @@ impl Drawing {
 
 enum Element {
     G(Group),
-    /// A part's polylines, added one by one to the parent.
-    L(Vec<Polyline>),
+    /// A part's polylines and rings' markers, added one by one to the parent.
+    L(Vec<SvgElement>),
     /// A `<text>` as a plain element: its words are written inline (`<text …>words</text>`),
     /// exactly the text the patch list gives, with no added line breaks.
     T(svg::node::element::Element),
@@ -148,17 +172,40 @@ fn to_svg(n: &Node) -> Element {
             }
             Element::G(g)
         }
-        Node::Lines { class, lines } => Element::L(
-            lines
-                .iter()
-                .map(|l| {
-                    Polyline::new()
-                        .set("data-k", l.key.as_str())
-                        .set("class", class.as_str())
+        Node::Lines { class, lines } => {
+            let mut out = Vec::with_capacity(lines.len());
+            for l in lines {
+                let line = Polyline::new().set("data-k", l.key.as_str());
+                let Some(ring) = &l.ring else {
+                    out.push(
+                        line.set("class", class.as_str())
+                            .set("points", l.points.as_str())
+                            .into(),
+                    );
+                    continue;
+                };
+                let id = ring_id(&l.key);
+                let circle = Circle::new()
+                    .set("data-k", ring.key.as_str())
+                    .set("class", class.as_str())
+                    .set("r", ring.r.as_str());
+                out.push(
+                    Marker::new()
+                        .set("id", id.as_str())
+                        .set("markerUnits", "userSpaceOnUse")
+                        .set("overflow", "visible")
+                        .add(circle)
+                        .into(),
+                );
+                out.push(
+                    line.set("class", "at")
                         .set("points", l.points.as_str())
-                })
-                .collect(),
-        ),
+                        .set("marker-start", format!("url(#{id})"))
+                        .into(),
+                );
+            }
+            Element::L(out)
+        }
         Node::Text {
             key,
             class,
@@ -185,11 +232,14 @@ fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {
                 patch_of(c, out);
             }
         }
-        Node::Lines { lines, .. } => out.extend(
-            lines
-                .iter()
-                .map(|l| (l.key.as_str(), "points", l.points.as_str())),
-        ),
+        Node::Lines { lines, .. } => {
+            for l in lines {
+                out.push((l.key.as_str(), "points", l.points.as_str()));
+                if let Some(ring) = &l.ring {
+                    out.push((ring.key.as_str(), "r", ring.r.as_str()));
+                }
+            }
+        }
         Node::Text {
             key, x, y, words, ..
         } => out.extend([
@@ -212,7 +262,7 @@ fn shape_of(n: &Node, eat: &mut impl FnMut(&str)) {
         }
         Node::Lines { class, lines } => {
             for l in lines {
-                eat("polyline");
+                eat(if l.ring.is_some() { "ring" } else { "polyline" });
                 eat(&l.key);
                 eat(class);
             }

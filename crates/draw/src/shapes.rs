@@ -1,7 +1,7 @@
 //! Drawing primitives from kernel points. Every point passes through [`flip`] exactly once, in
 //! [`PathData`] or [`text`]; numbers are written by [`crate::num`].
 
-use crate::model::{Line, Node};
+use crate::model::{Line, Node, Ring};
 use crate::num::push_mm_bytes;
 use framewise_kernel::report::Xy;
 
@@ -10,36 +10,20 @@ pub fn flip(p: Xy) -> (f64, f64) {
     (p[0], -p[1])
 }
 
-/// The polylines of one styled part, built from kernel points: each line, polyline and circle
-/// is one `<polyline>` (its `points` text); the part becomes one [`Node::Lines`].
+/// The polylines and circles of one styled part, built from kernel points: each line and
+/// polyline is one `<polyline>` (its `points` text), each circle one ring ([`crate::model::Ring`]);
+/// the part becomes one [`Node::Lines`].
 ///
 /// Why polylines and not one `<path>`: in Chromium a path's `d` (like a circle's `cx`, `cy`, `r`
 /// or any `transform`) is a CSS property, so changing it restyles the element, about 15 µs an
 /// element; a polyline's `points` is not, and changing it costs only the layout (40 changed
-/// elements: 0.6–0.7 ms as paths, 0.0–0.1 ms as polylines, docs/BENCHMARKS.md). The number of
-/// polylines depends only on which calls were made, never on the numbers, so the drawing's
-/// structure stays stable across edits.
+/// elements: 0.6–0.7 ms as paths, 0.0–0.1 ms as polylines, docs/BENCHMARKS.md). A circle is a
+/// `<circle>` of fixed centre inside a `<marker>`, placed by a two-point polyline at its centre:
+/// moving it changes only that polyline's `points`; its `r` changes only with the radius (a
+/// wheel size, a rider's height). The number of elements depends only on which calls were made,
+/// never on the numbers, so the drawing's structure stays stable across edits.
 #[derive(Debug, Default)]
-pub struct PathData(Vec<Vec<u8>>);
-
-/// The largest gap between a circle and the polygon drawn for it, mm: about a pixel at the
-/// page's closest zoom (150 mm across a desk drawing, web/ui/zoom.js), a twentieth of one at
-/// the fitted view. (At 0.5 mm the tyres' facets showed at the closest zoom.)
-const CIRCLE_SAGITTA_MM: f64 = 0.2;
-/// Fewest and most vertices of a circle's polygon.
-const CIRCLE_VERTICES: (usize, usize) = (12, 128);
-
-/// Vertices of the regular polygon drawn for a circle of radius `r` mm: the fewest for which
-/// the sagitta `r (1 − cos(π / n))` stays under [`CIRCLE_SAGITTA_MM`] (within the bounds).
-pub fn circle_vertices(r: f64) -> usize {
-    let (fewest, most) = CIRCLE_VERTICES;
-    if !(r.is_finite() && r > CIRCLE_SAGITTA_MM) {
-        return fewest;
-    }
-    let half_angle = (1.0 - CIRCLE_SAGITTA_MM / r).acos();
-    // π / half_angle is finite and positive here; `as` saturates.
-    ((std::f64::consts::PI / half_angle).ceil() as usize).clamp(fewest, most)
-}
+pub struct PathData(Vec<(Vec<u8>, Option<f64>)>);
 
 impl PathData {
     /// No polylines yet.
@@ -68,35 +52,20 @@ impl PathData {
         for p in points {
             Self::push_point(&mut out, *p);
         }
-        self.0.push(out);
+        self.0.push((out, None));
         self
     }
 
-    /// A circle about `c` of radius `r` mm: a closed regular polygon ([`circle_vertices`]),
-    /// first vertex repeated at the end. A radius of zero or less (a part not drawn) gives an
-    /// empty polyline, so the number of polylines does not depend on the radius.
+    /// A circle about `c` of radius `r` mm: a ring whose anchor is the centre written twice
+    /// (Chromium draws a polyline's markers only when it has two points or more). A radius of
+    /// zero or less, or not finite (a part not drawn), is written as 0: SVG draws no circle of
+    /// radius 0, and the elements stay the same.
     pub fn circle(mut self, c: Xy, r: f64) -> Self {
-        if !(r.is_finite() && r > 0.0) {
-            self.0.push(Vec::new());
-            return self;
-        }
-        let n = circle_vertices(r);
-        let mut out = Vec::with_capacity(12 * (n + 1));
-        // Vertex i at angle 2πi/n, by rotating the unit vector one step at a time (4 products a
-        // vertex instead of a sine and a cosine; the error after 128 steps is near 1e-14).
-        let (step_sin, step_cos) = (std::f64::consts::TAU / n as f64).sin_cos();
-        let (mut cos, mut sin) = (1.0_f64, 0.0_f64);
-        for i in 0..=n {
-            if i == n {
-                (cos, sin) = (1.0, 0.0); // closed exactly on the first vertex
-            }
-            Self::push_point(&mut out, [c[0] + r * cos, c[1] + r * sin]);
-            (cos, sin) = (
-                cos * step_cos - sin * step_sin,
-                sin * step_cos + cos * step_sin,
-            );
-        }
-        self.0.push(out);
+        let mut out = Vec::with_capacity(24);
+        Self::push_point(&mut out, c);
+        Self::push_point(&mut out, c);
+        let r = if r.is_finite() && r > 0.0 { r } else { 0.0 };
+        self.0.push((out, Some(r)));
         self
     }
 
@@ -106,20 +75,28 @@ impl PathData {
         self
     }
 
-    /// The part as a node with its class; the polylines' keys are `key`, then `key.1`, `key.2`….
+    /// The part as a node with its class; the polylines' keys are `key`, then `key.1`, `key.2`…,
+    /// a ring's circle the polyline's key and `.r`.
     pub fn node(self, key: String, class: &str) -> Node {
         let lines = self
             .0
             .into_iter()
             .enumerate()
-            .map(|(i, points)| Line {
-                key: if i == 0 {
+            .map(|(i, (points, ring))| {
+                let key = if i == 0 {
                     key.clone()
                 } else {
                     format!("{key}.{i}")
-                },
-                // Only ASCII digits, '-', '.', ',' and ' ' are written: always valid text.
-                points: String::from_utf8(points).unwrap_or_default(),
+                };
+                Line {
+                    ring: ring.map(|r| Ring {
+                        key: format!("{key}.r"),
+                        r: crate::num::mm(r),
+                    }),
+                    key,
+                    // Only ASCII digits, '-', '.', ',' and ' ' are written: always valid text.
+                    points: String::from_utf8(points).unwrap_or_default(),
+                }
             })
             .collect();
         Node::Lines {

@@ -320,83 +320,103 @@ fn every_path_and_text_has_a_unique_key() {
     let unique: std::collections::BTreeSet<_> = keys.iter().collect();
     assert_eq!(unique.len(), keys.len(), "{keys:?}");
     assert_eq!(
-        svg.matches("<polyline").count() + svg.matches("<text").count() + 1,
+        svg.matches("<polyline").count()
+            + svg.matches("<circle").count()
+            + svg.matches("<text").count()
+            + 1,
         keys.len()
     );
     assert!(
         !svg.contains("<path"),
-        "every line and circle is a polyline"
+        "every line is a polyline, every circle a ring"
     );
 }
 
 /// The patch changes only values that are not CSS properties in Chromium (a path's `d`, a
 /// circle's `cx`, `cy`, `r` and `transform` are, and restyle their element when changed): the
-/// polylines' `points`, the texts' `x`, `y` and words, the root's `viewBox` and label.
+/// polylines' `points`, the texts' `x`, `y` and words, the root's `viewBox` and label — and a
+/// ring's `r`, which changes only with a radius: moving the points ([`moved`], its rim kept)
+/// changes no `r`.
 #[test]
 fn the_patch_never_sets_a_styled_geometry_attribute() {
     let n = numbers();
     let o = full();
-    let d = drawing(&scene(&o, &n));
+    let mut m = moved();
+    m.front_rim_radius = o.front_rim_radius; // every point moved, no radius changed
+    let (d, dm) = (drawing(&scene(&o, &n)), drawing(&scene(&m, &n)));
     let attrs: std::collections::BTreeSet<&str> = d.patch().iter().map(|p| p.1).collect();
     let want: std::collections::BTreeSet<&str> =
-        ["aria-label", "points", "text", "viewBox", "x", "y"].into();
+        ["aria-label", "points", "r", "text", "viewBox", "x", "y"].into();
     assert_eq!(attrs, want);
+    let radii = |d: &Drawing| -> Vec<(String, String)> {
+        d.patch()
+            .iter()
+            .filter(|p| p.1 == "r")
+            .map(|p| (p.0.to_string(), p.2.to_string()))
+            .collect()
+    };
+    assert_eq!(radii(&d), radii(&dm));
+    assert_ne!(d.patch(), dm.patch(), "the points moved");
 }
 
-/// Each circle is a closed regular polygon whose vertices lie on the circle (to the 0.1 mm the
-/// numbers are written at) and whose sides stay within 0.2 mm of it. Check by plain geometry:
-/// the distance from the centre to a side's midpoint is `r cos(π/n)` (a regular polygon's
-/// apothem), so the gap there is the sagitta `r (1 − cos(π/n))`.
+/// A circle is a `<circle>` of radius `r` (0.1 mm) at the origin of a marker in the anchor's
+/// user units, drawn at the anchor's first point, which is the circle's centre (SVG 2, 11.6.2
+/// "the marker element": with `markerUnits="userSpaceOnUse"` and no viewBox or refX/refY, the
+/// marker's origin is placed on the vertex in the referencing element's user space), and the
+/// marker does not clip it (`overflow="visible"`). Checked on the ridden rear tyre.
 #[test]
-fn circles_are_fine_closed_polygons() {
+fn circles_are_rings_at_their_centres() {
     let n = numbers();
     let o = full();
     let svg = draw(&scene(&o, &n));
+    let attr = |tag: &str, name: &str| -> String {
+        let a = tag
+            .find(&format!(" {name}=\""))
+            .unwrap_or_else(|| panic!("{name} in {tag}"))
+            + name.len()
+            + 3;
+        tag[a..a + tag[a..].find('"').unwrap()].to_string()
+    };
     let (start, end) = element_at(&svg, "ridden-tyre-rear");
-    let tag = &svg[start..end];
-    let a = tag.find("points=\"").unwrap() + 8;
-    let pts: Vec<[f64; 2]> = tag[a..tag[a..].find('"').unwrap() + a]
-        .split(' ')
-        .map(|p| {
-            let (x, y) = p.split_once(',').unwrap();
-            [x.parse().unwrap(), y.parse().unwrap()]
-        })
-        .collect();
-    let (c, r) = ([o.rear_axle[0], -o.rear_axle[1]], o.rear_radius);
-    assert_eq!(pts.first(), pts.last(), "closed");
-    let sides = pts.len() - 1;
-    assert!((12..=128).contains(&sides), "{sides} sides");
-    for p in &pts {
-        let off = (p[0] - c[0]).hypot(p[1] - c[1]) - r;
-        assert!(off.abs() <= 0.08, "vertex {p:?} is {off} mm off the circle");
-    }
-    for w in pts.windows(2) {
-        let mid = [(w[0][0] + w[1][0]) / 2.0, (w[0][1] + w[1][1]) / 2.0];
-        let gap = r - (mid[0] - c[0]).hypot(mid[1] - c[1]);
-        assert!(
-            gap <= 0.2 + 0.08,
-            "side {w:?} is {gap} mm inside the circle"
-        );
-    }
-    assert!(shapes::circle_vertices(r) == sides);
-    // Sagitta for this radius at the chosen count, and one side fewer would exceed 0.2 mm.
-    let sagitta = |n: usize| r * (1.0 - (std::f64::consts::PI / n as f64).cos());
-    assert!(sagitta(sides) <= 0.2 && sagitta(sides - 1) > 0.2, "{sides}");
+    let anchor = &svg[start..end];
+    let centre = format!("{},{}", num::mm(o.rear_axle[0]), num::mm(-o.rear_axle[1]));
+    assert_eq!(attr(anchor, "points"), format!("{centre} {centre}"));
+    assert_eq!(attr(anchor, "class"), "at");
+    assert_eq!(attr(anchor, "marker-start"), "url(#ring-ridden-tyre-rear)");
+    let marker_at = svg.find("<marker id=\"ring-ridden-tyre-rear\"").unwrap();
+    let marker = &svg[marker_at..marker_at + svg[marker_at..].find('>').unwrap()];
+    assert_eq!(attr(marker, "markerUnits"), "userSpaceOnUse");
+    assert_eq!(attr(marker, "overflow"), "visible");
+    assert!(!marker.contains("refX") && !marker.contains("viewBox"));
+    assert!(
+        marker_at < start,
+        "the marker comes before its anchor, in the same group"
+    );
+    let (cs, ce) = element_at(&svg, "ridden-tyre-rear.r");
+    let circle = &svg[cs..ce];
+    assert!(circle.starts_with("<circle") && cs > marker_at && cs < start);
+    assert_eq!(attr(circle, "r"), num::mm(o.rear_radius));
+    assert_eq!(attr(circle, "class"), "tyre rear");
+    assert!(!circle.contains("cx") && !circle.contains("cy"));
 }
 
-/// A part that is not drawn (a rim of unknown size) is an empty polyline, so the drawing's
-/// elements stay the same; nothing is drawn for it.
+/// A part that is not drawn (a rim of unknown size) is a ring of radius 0, so the drawing's
+/// elements stay the same; SVG draws no circle of radius 0.
 #[test]
-fn a_rim_not_drawn_is_an_empty_polyline() {
+fn a_rim_not_drawn_is_a_ring_of_radius_zero() {
     let n = numbers();
     let mut o = full();
+    let before = drawing(&scene(&o, &n));
     o.front_rim_radius = 0.0;
-    let svg = draw(&scene(&o, &n));
-    let (start, end) = element_at(&svg, "ridden-rim.1");
+    let after = drawing(&scene(&o, &n));
+    let svg = after.svg();
+    let (start, end) = element_at(&svg, "ridden-rim.1.r");
+    assert!(svg[start..end].contains(" r=\"0\""), "{}", &svg[start..end]);
+    assert_eq!(before.structure(), after.structure());
+    let (start, end) = element_at(&svg, "ridden-rim.r");
     assert!(
-        svg[start..end].contains("points=\"\""),
-        "{}",
-        &svg[start..end]
+        !svg[start..end].contains(" r=\"0\""),
+        "the rear rim is drawn"
     );
 }
 
