@@ -1,4 +1,5 @@
-// A tiny static file server for web/ on 127.0.0.1 with an explicit MIME map.
+// A tiny static file server for the built site (target/site, scripts/site.mjs) on 127.0.0.1 with
+// an explicit MIME map.
 // Usage: node scripts/serve.mjs [--port N] [--root DIR]   (PORT in the environment also works)
 import { createServer } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
@@ -47,7 +48,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     console.error(`serve: port must be a whole number from 0 to 65535, got ${flag('--port') ?? process.env.PORT}`);
     process.exit(2);
   }
-  const root = flag('--root') ?? new URL('../web', import.meta.url).pathname;
+  const root = flag('--root') ?? new URL('../target/site', import.meta.url).pathname;
   const server = await startServer({ root, port });
   console.log(`framewise is served at http://127.0.0.1:${server.address().port}/  (Ctrl-C stops it)`);
   const stop = () => server.close(() => process.exit(0));

@@ -8,6 +8,8 @@ import { startServer } from '../../scripts/serve.mjs';
 
 export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 export const SHOTS = `${ROOT}target/screenshots`;
+/** The served site: web/ as scripts/build makes it (scripts/site.mjs). */
+export const SITE = `${ROOT}target/site`;
 
 export const CHROMIUM_ARGS = [
   '--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-quic',
@@ -15,7 +17,7 @@ export const CHROMIUM_ARGS = [
 ];
 
 export async function startAll() {
-  const server = await startServer({ root: `${ROOT}web`, port: 0 });
+  const server = await startServer({ root: SITE, port: 0 });
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
   const base = `http://127.0.0.1:${server.address().port}/`;
   mkdirSync(SHOTS, { recursive: true });

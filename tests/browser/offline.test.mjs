@@ -5,10 +5,11 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync, readdirSync, statSync, cpSync, rmSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
+import { createHash } from 'node:crypto';
 import { join, relative } from 'node:path';
 import { chromium } from 'playwright-core';
 import { startServer } from '../../scripts/serve.mjs';
-import { ROOT, CHROMIUM_ARGS, SHOTS } from './harness.mjs';
+import { ROOT, CHROMIUM_ARGS, SHOTS, SITE } from './harness.mjs';
 
 const T = { timeout: 60000 };
 const WEB = `${ROOT}web`;
@@ -58,8 +59,31 @@ test('the precache list is exactly the files of web/ and the built web/pkg', () 
   assert.ok(manifest.icons.some((i) => i.sizes === '192x192'));
 });
 
+test('the served site is web/ with minified scripts and a cache version of its files', () => {
+  const filesIn = (root, dir = root) => readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    return statSync(path).isDirectory() ? filesIn(root, path) : [relative(root, path)];
+  });
+  const web = filesIn(WEB).sort();
+  assert.deepEqual(filesIn(SITE).sort(), web, 'the same files (scripts/build makes target/site)');
+  for (const f of web.filter((n) => /\.(js|css)$/.test(n) && n !== 'sw.js')) {
+    const [a, b] = [readFileSync(join(WEB, f), 'utf8'), readFileSync(join(SITE, f), 'utf8')];
+    assert.ok(b.length < a.length, `${f} is minified (${b.length} < ${a.length} characters)`);
+    assert.ok(!/^\s*\/\//m.test(b), `${f} has no comment lines`);
+  }
+  // The built VERSION: sha-256 over each precached file's path, a NUL and its built bytes, in
+  // path order, first 12 hex digits (scripts/site.mjs), recomputed here with node:crypto.
+  const sw = readFileSync(`${SITE}/sw.js`, 'utf8');
+  const version = sw.match(/const VERSION = '([^']*)'/)[1];
+  const hash = createHash('sha256');
+  for (const f of precacheList().filter((n) => n !== './').sort()) {
+    hash.update(`${f}\0`).update(readFileSync(join(SITE, f)));
+  }
+  assert.equal(version, hash.digest('hex').slice(0, 12));
+});
+
 test('after one visit the page opens and draws with the server stopped', T, async () => {
-  const server = await startServer({ root: WEB, port: 0 });
+  const server = await startServer({ root: SITE, port: 0 });
   const base = `http://127.0.0.1:${server.address().port}/`;
   const browser = await launch();
   const problems = [];
@@ -111,7 +135,7 @@ test('after one visit the page opens and draws with the server stopped', T, asyn
 
 test('a missing file fails the install and old caches are removed on activate', T, async () => {
   const dir = mkdtempSync(join(tmpdir(), 'framewise-sw-'));
-  cpSync(WEB, dir, { recursive: true });
+  cpSync(SITE, dir, { recursive: true });
   rmSync(join(dir, 'icons/icon-512.png'));
   let server = await startServer({ root: dir, port: 0 });
   const port = server.address().port;
@@ -134,14 +158,14 @@ test('a missing file fails the install and old caches are removed on activate', 
     assert.equal(state, 'redundant', 'the install must fail when a precached file is missing');
 
     // Put the file back, plant an old cache, install again: only the current cache remains.
-    cpSync(`${WEB}/icons/icon-512.png`, join(dir, 'icons/icon-512.png'));
+    cpSync(`${SITE}/icons/icon-512.png`, join(dir, 'icons/icon-512.png'));
     await stopServer(server);
     server = await startServer({ root: dir, port });
     await page.evaluate(() => caches.open('framewise-v0').then((c) => c.put('old', new Response('old'))));
     await page.reload();
     await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
     await controlled(page);
-    const version = readFileSync(`${WEB}/sw.js`, 'utf8').match(/const VERSION = '([^']*)'/)[1];
+    const version = readFileSync(`${SITE}/sw.js`, 'utf8').match(/const VERSION = '([^']*)'/)[1];
     assert.deepEqual(await page.evaluate(() => caches.keys()), [`framewise-v${version}`]);
   } finally {
     await browser.close();
