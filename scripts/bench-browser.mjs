@@ -11,13 +11,26 @@
 // Situations: phone 360×740 at the top of the page (drawing and the first numbers on screen),
 // phone 360×740 scrolled to the edited field (as while typing in it), desk 1280×800.
 //
-// Usage: node scripts/bench-browser.mjs [--edits N]   (after scripts/build)
+// Cores: each situation is measured twice, first with the page's main thread on a core of its
+// own (scripts/cores.mjs: every other thread of Chromium and of this process on the other
+// cores, as a phone's other cores would take them), then on shared cores (every thread may run
+// anywhere: on a 2-core machine the browser, the compositor and this process preempt the
+// throttled main thread, and the throttle stretches each preemption 4×). Both are reported.
+//
+// Usage: node scripts/bench-browser.mjs [--edits N] [--cores own|shared|both]   (after scripts/build)
 import { gzipSync } from 'node:zlib';
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { startAll, openPage, ROOT } from '../tests/browser/harness.mjs';
+import { ownCoreProblem, pinMainThreads, unpin } from './cores.mjs';
 
 const arg = process.argv.indexOf('--edits');
 const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
+const coresArg = process.argv.indexOf('--cores');
+const CORES = coresArg > 0 ? process.argv[coresArg + 1] : 'both';
+if (!['own', 'shared', 'both'].includes(CORES)) throw new Error(`--cores ${CORES}: use own, shared or both`);
+const noOwnCore = CORES === 'shared' ? null : ownCoreProblem();
+if (noOwnCore) console.log(`The main thread cannot have a core of its own here (${noOwnCore}): shared cores only.`);
+const KINDS = CORES === 'both' && !noOwnCore ? ['own', 'shared'] : [noOwnCore ? 'shared' : CORES];
 
 // Edits a person makes: frame numbers, setup, changes, rider, each with a few values.
 const EDITS_CYCLE = [
@@ -73,10 +86,12 @@ function editInPage([n, v, scroll]) {
   });
 }
 
-async function measure(env, situation) {
+async function measure(env, situation, cores) {
   const { page, context, problems } = await openPage(env, situation);
   const cdp = await context.newCDPSession(page);
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
+  // After the throttle starts: its thread (which signals the main thread) goes with the others.
+  if (cores === 'own' && !pinMainThreads()) throw new Error('no renderer found to pin');
   const times = [[], [], []];
   for (let i = 0; i < EDITS; i += 1) {
     const [name, values] = EDITS_CYCLE[i % EDITS_CYCLE.length];
@@ -87,6 +102,7 @@ async function measure(env, situation) {
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
   if (problems.length) throw new Error(problems.join('\n'));
   await context.close();
+  if (cores === 'own') unpin();
   return { handler_ms: stats(times[0]), on_screen_ms: stats(times[1]), whole_page_ms: stats(times[2]) };
 }
 
@@ -107,7 +123,9 @@ const env = await startAll();
 try {
   const loaded = await bytes(env);
   const situations = {};
-  for (const s of SITUATIONS) situations[s.name] = await measure(env, s);
+  for (const s of SITUATIONS) {
+    for (const cores of KINDS) situations[`${s.name}, ${cores === 'own' ? 'main thread on its own core' : 'shared cores'}`] = await measure(env, s, cores);
+  }
   const gzTotal = [...loaded.values()].reduce((a, f) => a + f.gz, 0);
   const rawTotal = [...loaded.values()].reduce((a, f) => a + f.raw, 0);
   const result = {
