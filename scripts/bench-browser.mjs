@@ -21,7 +21,7 @@
 import { gzipSync } from 'node:zlib';
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { startAll, openPage, ROOT } from '../tests/browser/harness.mjs';
-import { ownCoreProblem, pinMainThreads, unpin } from './cores.mjs';
+import { ownCoreProblem, pinMainThreads } from './cores.mjs';
 
 const arg = process.argv.indexOf('--edits');
 const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
@@ -29,6 +29,7 @@ const coresArg = process.argv.indexOf('--cores');
 const CORES = coresArg > 0 ? process.argv[coresArg + 1] : 'both';
 if (!['own', 'shared', 'both'].includes(CORES)) throw new Error(`--cores ${CORES}: use own, shared or both`);
 const noOwnCore = CORES === 'shared' ? null : ownCoreProblem();
+if (noOwnCore && CORES === 'own') throw new Error(`--cores own: the main thread cannot have a core of its own here (${noOwnCore})`);
 if (noOwnCore) console.log(`The main thread cannot have a core of its own here (${noOwnCore}): shared cores only.`);
 const KINDS = CORES === 'both' && !noOwnCore ? ['own', 'shared'] : [noOwnCore ? 'shared' : CORES];
 
@@ -91,18 +92,21 @@ async function measure(env, situation, cores) {
   const cdp = await context.newCDPSession(page);
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
   // After the throttle starts: its thread (which signals the main thread) goes with the others.
-  if (cores === 'own' && !pinMainThreads()) throw new Error('no renderer found to pin');
+  const restore = cores === 'own' ? pinMainThreads() : () => {};
   const times = [[], [], []];
-  for (let i = 0; i < EDITS; i += 1) {
-    const [name, values] = EDITS_CYCLE[i % EDITS_CYCLE.length];
-    const value = values[Math.floor(i / EDITS_CYCLE.length) % values.length];
-    const t = await page.evaluate(editInPage, [name, value, situation.scroll]);
-    t.forEach((v, j) => times[j].push(v));
+  try {
+    for (let i = 0; i < EDITS; i += 1) {
+      const [name, values] = EDITS_CYCLE[i % EDITS_CYCLE.length];
+      const value = values[Math.floor(i / EDITS_CYCLE.length) % values.length];
+      const t = await page.evaluate(editInPage, [name, value, situation.scroll]);
+      t.forEach((v, j) => times[j].push(v));
+    }
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+  } finally {
+    restore();
   }
-  await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
   if (problems.length) throw new Error(problems.join('\n'));
   await context.close();
-  if (cores === 'own') unpin();
   return { handler_ms: stats(times[0]), on_screen_ms: stats(times[1]), whole_page_ms: stats(times[2]) };
 }
 

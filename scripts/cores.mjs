@@ -5,72 +5,139 @@
 // resume, so the throttled thread keeps a core busy, and any time it is preempted counts as run
 // time and is stretched 4×. On this project's 2-core machine the browser process, the
 // compositor and raster threads, and the benchmark's own Node process all take turns on those
-// two cores during an edit; on a phone they run on other cores. Pinning every renderer's main
-// thread to CPU 0 and every other thread of Chromium and of this process to the other CPUs
-// takes those turns out of the measured time; the throttle itself is unchanged.
+// two cores during an edit; on a phone they run on other cores. Pinning the main thread of each
+// renderer this benchmark started to the first allowed CPU, and every other thread of the
+// benchmark's Chromium and of this process to the others, takes those turns out of the measured
+// time; the throttle itself is unchanged. Only processes descended from this one are touched,
+// and each gets back the CPUs it had.
 
 import { execFileSync } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
-
-// The CPUs this process may use, read once, before any pinning narrows them.
-const CPUS = availableParallelism();
 
 function taskset(args) {
-  execFileSync('taskset', args, { stdio: 'ignore' });
+  return execFileSync('taskset', args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] });
 }
 
-/** Whether the main threads can be given a core of their own here; else why not. */
+/** Expands a CPU list such as `0-2,5` into numbers. */
+function cpuList(text) {
+  return text.trim().split(',').filter(Boolean).flatMap((part) => {
+    const [a, b = a] = part.split('-').map(Number);
+    return Array.from({ length: b - a + 1 }, (_, i) => a + i);
+  });
+}
+
+/** The CPUs this process may run on, read once, before any pinning narrows them. */
+const ALLOWED = (() => {
+  try {
+    const line = readFileSync('/proc/self/status', 'utf8').match(/^Cpus_allowed_list:\s*(.+)$/m);
+    return line ? cpuList(line[1]) : [];
+  } catch {
+    return [];
+  }
+})();
+
+/** Whether the main thread can be given a core of its own here; else why not. */
 export function ownCoreProblem() {
   if (process.platform !== 'linux') return 'not Linux';
-  if (CPUS < 2) return 'only one CPU';
+  if (ALLOWED.length < 2) return `only ${ALLOWED.length} CPU allowed`;
   try {
-    taskset(['-p', String(process.pid)]);
-  } catch {
-    return 'no taskset (util-linux)';
+    taskset(['-pc', ALLOWED.join(','), String(process.pid)]); // setting works (to what it is)
+  } catch (e) {
+    return `taskset cannot set CPUs here (${String(e.message).split('\n')[0]})`;
   }
   return null;
 }
 
+function parentOf(pid) {
+  try {
+    // /proc/<pid>/stat: "pid (comm) state ppid …"; comm may hold spaces, so read after ')'.
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]);
+  } catch {
+    return 0;
+  }
+}
+
+/** This process and every process descended from it (the benchmark's Chromium). */
+function ownProcesses() {
+  const all = readdirSync('/proc').filter((d) => /^\d+$/.test(d)).map(Number);
+  const parent = new Map(all.map((p) => [p, parentOf(p)]));
+  const mine = new Set([process.pid]);
+  for (let grew = true; grew;) {
+    grew = false;
+    for (const [p, pp] of parent) {
+      if (!mine.has(p) && mine.has(pp)) {
+        mine.add(p);
+        grew = true;
+      }
+    }
+  }
+  return [...mine];
+}
+
+function threadsOf(pid) {
+  try {
+    return readdirSync(`/proc/${pid}/task`).map(Number);
+  } catch {
+    return []; // ended meanwhile
+  }
+}
+
+function cpusOf(tid) {
+  return taskset(['-pc', String(tid)]).split(':').at(-1).trim();
+}
+
 /**
- * Pins the main thread of every Chromium renderer to CPU 0 and every other thread of Chromium
- * and of this Node process to CPUs 1…n−1. Call it after the page is open and the throttle is
- * set (threads started later inherit their creator's CPUs, and the throttle's thread must not
- * share the main thread's core). Returns how many renderers were pinned.
+ * Pins the main thread of each renderer this process started to the first allowed CPU and
+ * every other thread of this process and its descendants to the other allowed CPUs. Call it
+ * after the page is open and the throttle is set (threads started later inherit their
+ * creator's CPUs, and the throttle's thread must not share the main thread's core). Returns
+ * `restore()`, which gives every pinned thread back the CPUs it had. Throws when a renderer's
+ * main thread could not be pinned (after restoring what it had pinned).
  */
 export function pinMainThreads() {
-  const others = `1-${CPUS - 1}`;
+  const [main, ...rest] = ALLOWED;
+  const others = rest.join(',');
+  const before = new Map();
+  const restore = () => {
+    for (const [tid, cpus] of before) {
+      try {
+        taskset(['-pc', cpus, String(tid)]);
+      } catch {
+        // the thread ended
+      }
+    }
+  };
   let renderers = 0;
-  for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
-    let cmd;
+  for (const pid of ownProcesses()) {
+    let cmd = '';
     try {
       cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
     } catch {
-      continue; // ended meanwhile
+      continue;
     }
-    if (Number(pid) !== process.pid && !cmd.includes('chromium')) continue;
-    try {
-      taskset(['-a', '-pc', others, pid]); // every thread of the process
-      if (cmd.includes('--type=renderer')) {
-        taskset(['-pc', '0', pid]); // then its main thread (tid = pid) alone on CPU 0
+    const renderer = cmd.includes('--type=renderer');
+    for (const tid of threadsOf(pid)) {
+      const want = renderer && tid === pid ? String(main) : others;
+      try {
+        before.set(tid, cpusOf(tid));
+        taskset(['-pc', want, String(tid)]);
+      } catch {
+        before.delete(tid); // the thread ended meanwhile
+        continue;
+      }
+      if (renderer && tid === pid) {
+        if (cpusOf(tid) !== String(main)) {
+          restore();
+          throw new Error(`renderer ${pid}: its main thread is on CPUs ${cpusOf(tid)}, not ${main}`);
+        }
         renderers += 1;
       }
-    } catch {
-      // a process that ended meanwhile
     }
   }
-  return renderers;
-}
-
-/** Lets every thread of Chromium and of this process run on any CPU again. */
-export function unpin() {
-  const all = `0-${CPUS - 1}`;
-  for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
-    try {
-      const cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-      if (Number(pid) === process.pid || cmd.includes('chromium')) taskset(['-a', '-pc', all, pid]);
-    } catch {
-      // ended meanwhile
-    }
+  if (!renderers) {
+    restore();
+    throw new Error('no renderer of this benchmark found to pin');
   }
+  return restore;
 }

@@ -49,6 +49,12 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     process.exit(2);
   }
   const root = flag('--root') ?? new URL('../target/site', import.meta.url).pathname;
+  try {
+    await stat(join(root, 'index.html'));
+  } catch {
+    console.error(`serve: no page at ${root}: build it first (scripts/build makes target/site)`);
+    process.exit(2);
+  }
   const server = await startServer({ root, port });
   console.log(`framewise is served at http://127.0.0.1:${server.address().port}/  (Ctrl-C stops it)`);
   const stop = () => server.close(() => process.exit(0));

@@ -8,7 +8,7 @@
 // Usage: node scripts/site.mjs   (after the wasm build; scripts/build runs it)
 import { transform } from 'esbuild';
 import { createHash } from 'node:crypto';
-import { cpSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpSync, readFileSync, readdirSync, realpathSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { extname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -45,7 +45,8 @@ async function minify(path) {
   writeFileSync(path, code);
 }
 
-async function build() {
+/** Builds target/site from web/ (see the top of this file). */
+export async function buildSite() {
   rmSync(SITE, { recursive: true, force: true });
   cpSync(WEB, SITE, { recursive: true });
   const sw = join(SITE, 'sw.js');
@@ -61,7 +62,10 @@ async function build() {
   builtVersion(swText); // the line is there
   writeFileSync(sw, swText.replace(/const VERSION = '[^']*'/, `const VERSION = '${version}'`));
   const rel = relative(ROOT, SITE);
-  console.log(`site: ${rel} (${work.length} scripts and style sheets minified, cache version ${version})`);
+  return `site: ${rel} (${work.length} scripts and style sheets minified, cache version ${version})`;
 }
 
-if (import.meta.url === `file://${process.argv[1]}`) await build();
+// Run as a command (paths compared resolved: a symlink or a space in the path must not skip it).
+if (process.argv[1] && fileURLToPath(import.meta.url) === realpathSync(process.argv[1])) {
+  console.log(await buildSite());
+}

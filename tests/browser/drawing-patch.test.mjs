@@ -130,3 +130,68 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 }
+
+// Each circle is a <circle> drawn as a marker of a two-point polyline at its centre (crates/draw
+// model::Ring): the pixels show it where it passes. Checked by sampling the screen at points
+// worked out from the anchors' centres and the circles' radii, in the drawing's own axes.
+test('rings draw their circles: tyre and rim colours where they pass, the background inside', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
+  await page.evaluate(() => document.getElementById('drawing').classList.add('hide-ghost'));
+  const spots = await page.evaluate(() => {
+    const at = (key) => document.querySelector(`#drawing [data-k="${key}"]`);
+    const centre = (key) => at(key).getAttribute('points').split(' ')[0].split(',').map(Number);
+    const r = (key) => Number(at(`${key}.r`).getAttribute('r'));
+    const toScreen = (key, dx, dy) => {
+      const [x, y] = centre(key);
+      const p = new DOMPoint(x + dx, y + dy).matrixTransform(at(key).getScreenCTM());
+      return [Math.round(p.x), Math.round(p.y)];
+    };
+    const css = getComputedStyle(document.documentElement);
+    return {
+      colours: {
+        tyre: css.getPropertyValue('--tyre').trim(),
+        rim: css.getPropertyValue('--rim').trim(),
+        // The first background behind the drawing that is not transparent.
+        paper: (() => {
+          for (let e = document.querySelector('#drawing svg'); e; e = e.parentElement) {
+            const c = getComputedStyle(e).backgroundColor;
+            if (!/^rgba\(.*, 0\)$|^transparent$/.test(c)) return c;
+          }
+          return 'rgb(255, 255, 255)';
+        })(),
+      },
+      // The rear tyre's and rear rim's rearmost points, a point behind the rear axle inside the
+      // rim, the front rim's foremost point (its key has a dot: ridden-rim.1). (The hubs lie
+      // under the stays and the fork.)
+      rearRim: toScreen('ridden-rim', -r('ridden-rim'), 0),
+      tyre: toScreen('ridden-tyre-rear', -r('ridden-tyre-rear'), 0),
+      inside: toScreen('ridden-tyre-rear', -0.55 * r('ridden-tyre-rear'), 0),
+      rim: toScreen('ridden-rim.1', r('ridden-rim.1'), 0),
+    };
+  });
+  await page.evaluate(() => document.querySelector('#drawing svg').getBBox());
+  const blank = await context.newPage();
+  const pixel = async ([x, y]) => {
+    const png = await page.screenshot({ clip: { x, y, width: 1, height: 1 } });
+    return blank.evaluate(async (b64) => {
+      const img = new Image();
+      img.src = `data:image/png;base64,${b64}`;
+      await img.decode();
+      const c = new OffscreenCanvas(1, 1).getContext('2d');
+      c.drawImage(img, 0, 0);
+      return [...c.getImageData(0, 0, 1, 1).data.slice(0, 3)];
+    }, png.toString('base64'));
+  };
+  const rgb = (c) => (c.startsWith('#')
+    ? [1, 3, 5].map((i) => parseInt(c.slice(i, i + 2), 16))
+    : c.match(/\d+/g).slice(0, 3).map(Number));
+  const near = (got, want, what) => assert.ok(
+    got.every((v, i) => Math.abs(v - want[i]) <= 40), `${what}: pixel ${got}, expected about ${want}`);
+  const { colours } = spots;
+  near(await pixel(spots.rearRim), rgb(colours.rim), 'rear rim, rearmost point');
+  near(await pixel(spots.tyre), rgb(colours.tyre), 'rear tyre, rearmost point');
+  near(await pixel(spots.rim), rgb(colours.rim), 'front rim, foremost point');
+  near(await pixel(spots.inside), rgb(colours.paper), 'inside the rear wheel');
+  assert.deepEqual(problems, []);
+  await context.close();
+});

@@ -5,6 +5,7 @@ import { chromium } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { startServer } from '../../scripts/serve.mjs';
+import { buildSite } from '../../scripts/site.mjs';
 
 export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 export const SHOTS = `${ROOT}target/screenshots`;
@@ -16,7 +17,10 @@ export const CHROMIUM_ARGS = [
   '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync',
 ];
 
+/** Builds the site from web/ as it is now (a second: so an edit in web/ is what is tested), then
+ * serves it and starts Chromium. */
 export async function startAll() {
+  await buildSite();
   const server = await startServer({ root: SITE, port: 0 });
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
   const base = `http://127.0.0.1:${server.address().port}/`;

@@ -71,10 +71,10 @@ pub struct Ring {
     pub r: String,
 }
 
-/// The `id` of a ring's marker: `ring-` and the anchor's key with `.` written as `_` (keys
-/// hold only letters, digits, `-` and `.`, so ids stay unique).
+/// The `id` of a ring's marker: `ring-` and the anchor's key as it is (keys are unique and hold
+/// no spaces, quotes or parentheses, so the id is unique and `url(#…)` needs no escape).
 pub fn ring_id(anchor_key: &str) -> String {
-    format!("ring-{}", anchor_key.replace('.', "_"))
+    format!("ring-{anchor_key}")
 }
 
 /// A whole drawing: the root's view box and title, and its elements back to front.
@@ -115,9 +115,10 @@ impl Drawing {
         doc.to_string()
     }
 
-    /// Every value that depends on the numbers, in document order: the root's `viewBox` and
-    /// `aria-label`, the title's text, each polyline's `points` (then its ring's `r`), each
-    /// text's `x`, `y` and text. Applying
+    /// Every value that depends on the numbers, element by element in document order (a ring's
+    /// anchor `points` before its circle's `r`, though the circle comes first in the document):
+    /// the root's `viewBox` and `aria-label`, the title's text, each polyline's `points`, each
+    /// ring's `r`, each text's `x`, `y` and text. Applying
     /// it to a drawing of the same [`Drawing::structure`] gives this drawing.
     pub fn patch(&self) -> Vec<Patch<'_>> {
         let mut out = vec![

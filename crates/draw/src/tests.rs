@@ -231,7 +231,7 @@ fn moved() -> Outline {
     };
     shift(&mut o.head_top, 12.3, -4.0);
     shift(&mut o.front_axle, 30.0, 0.0);
-    o.front_rim_radius = 0.0; // a rim that is not drawn still leaves its (empty) path
+    o.front_rim_radius = 0.0; // a rim that is not drawn still leaves its ring (radius 0)
     if let Some(c) = o.cockpit.as_mut() {
         shift(&mut c.grip, -20.0, 15.0);
     }
@@ -330,6 +330,26 @@ fn every_path_and_text_has_a_unique_key() {
         !svg.contains("<path"),
         "every line is a polyline, every circle a ring"
     );
+    // Every marker id is unique and every anchor's `marker-start` names one of them.
+    let values = |attr: &str| -> Vec<String> {
+        svg.split(&format!(" {attr}=\""))
+            .skip(1)
+            .map(|s| s[..s.find('"').unwrap()].to_string())
+            .collect()
+    };
+    let ids = values("id");
+    let unique: std::collections::BTreeSet<_> = ids.iter().collect();
+    assert_eq!(unique.len(), ids.len(), "{ids:?}");
+    let refs = values("marker-start");
+    assert_eq!(refs.len(), ids.len(), "one anchor per marker");
+    for r in &refs {
+        let id = r.strip_prefix("url(#").and_then(|r| r.strip_suffix(')'));
+        assert!(id.is_some_and(|id| unique.contains(&id.to_string())), "{r}");
+    }
+    assert!(
+        refs.contains(&"url(#ring-ridden-rim.1)".to_string()),
+        "{refs:?}"
+    );
 }
 
 /// The patch changes only values that are not CSS properties in Chromium (a path's `d`, a
@@ -338,7 +358,7 @@ fn every_path_and_text_has_a_unique_key() {
 /// ring's `r`, which changes only with a radius: moving the points ([`moved`], its rim kept)
 /// changes no `r`.
 #[test]
-fn the_patch_never_sets_a_styled_geometry_attribute() {
+fn the_patch_sets_no_styled_geometry_but_ring_radii() {
     let n = numbers();
     let o = full();
     let mut m = moved();
@@ -388,9 +408,10 @@ fn circles_are_rings_at_their_centres() {
     assert_eq!(attr(marker, "markerUnits"), "userSpaceOnUse");
     assert_eq!(attr(marker, "overflow"), "visible");
     assert!(!marker.contains("refX") && !marker.contains("viewBox"));
+    assert!(marker_at < start, "the marker comes before its anchor");
     assert!(
-        marker_at < start,
-        "the marker comes before its anchor, in the same group"
+        !svg[marker_at..start].contains("<g") && !svg[marker_at..start].contains("</g>"),
+        "marker and anchor in the same group (the group's CSS styles the circle)"
     );
     let (cs, ce) = element_at(&svg, "ridden-tyre-rear.r");
     let circle = &svg[cs..ce];
