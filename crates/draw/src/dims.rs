@@ -11,6 +11,9 @@ use framewise_kernel::Outline;
 /// How far a dimension line stands off the part it measures, mm of drawing.
 const OFF: f64 = 70.0;
 
+/// The BB-to-grip label's baseline above the grip, mm (its start is 40 mm ahead of the grip).
+pub const GRIP_LABEL_RISE: f64 = 30.0;
+
 /// One dimension: the line from `a` to `b` and the label at `at`.
 struct Dim {
     key: &'static str,
@@ -86,7 +89,7 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
             "bb_to_grip_mm",
             [0.0, 0.0],
             ck.grip,
-            [ck.grip[0] + 40.0, ck.grip[1] + 30.0],
+            [ck.grip[0] + 40.0, ck.grip[1] + GRIP_LABEL_RISE],
             "start",
         ));
     }
