@@ -16,12 +16,15 @@
 // cores, as a phone's other cores would take them), then on shared cores (every thread may run
 // anywhere: on a 2-core machine the browser, the compositor and this process preempt the
 // throttled main thread, and the throttle stretches each preemption 4×). Both are reported.
+// In both, the throttle's own thread runs at real-time priority (a late signal would let the
+// main thread run unthrottled). Throttle check: a fixed loop of arithmetic is timed in the page
+// before and after the throttle starts; the ratio shows the slowdown the edits ran under.
 //
 // Usage: node scripts/bench-browser.mjs [--edits N] [--cores own|shared|both]   (after scripts/build)
 import { gzipSync } from 'node:zlib';
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { startAll, openPage, ROOT } from '../tests/browser/harness.mjs';
-import { ownCoreProblem, pinMainThreads } from './cores.mjs';
+import { ownCoreProblem, isolate } from './cores.mjs';
 
 const arg = process.argv.indexOf('--edits');
 const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
@@ -87,14 +90,31 @@ function editInPage([n, v, scroll]) {
   });
 }
 
+/** The median of 9 runs of a fixed loop of arithmetic in the page, ms (the throttle check). */
+function loopInPage() {
+  const runs = [];
+  for (let r = 0; r < 9; r += 1) {
+    const t0 = performance.now();
+    let x = 0;
+    for (let i = 0; i < 3e6; i += 1) x += Math.sqrt(i + r);
+    runs.push(performance.now() - t0 + (x < 0 ? 1 : 0));
+  }
+  return runs.sort((a, b) => a - b)[4];
+}
+
 async function measure(env, situation, cores) {
   const { page, context, problems } = await openPage(env, situation);
   const cdp = await context.newCDPSession(page);
+  await page.evaluate(loopInPage); // warm up
+  const loopFree = await page.evaluate(loopInPage);
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
-  // After the throttle starts: its thread (which signals the main thread) goes with the others.
-  const restore = cores === 'own' ? pinMainThreads() : () => {};
+  // After the throttle starts: its thread (which signals the main thread) gets real-time
+  // priority in both kinds of run, and with `own` goes to the other core with the rest.
+  const restore = isolate({ pin: cores === 'own' });
   const times = [[], [], []];
+  let loopThrottled = 0;
   try {
+    loopThrottled = await page.evaluate(loopInPage);
     for (let i = 0; i < EDITS; i += 1) {
       const [name, values] = EDITS_CYCLE[i % EDITS_CYCLE.length];
       const value = values[Math.floor(i / EDITS_CYCLE.length) % values.length];
@@ -107,7 +127,12 @@ async function measure(env, situation, cores) {
   }
   if (problems.length) throw new Error(problems.join('\n'));
   await context.close();
-  return { handler_ms: stats(times[0]), on_screen_ms: stats(times[1]), whole_page_ms: stats(times[2]) };
+  return {
+    handler_ms: stats(times[0]),
+    on_screen_ms: stats(times[1]),
+    whole_page_ms: stats(times[2]),
+    throttle_check: { loop_ms: loopFree, loop_throttled_ms: loopThrottled, slowdown: loopThrottled / loopFree },
+  };
 }
 
 async function bytes(env) {
@@ -150,6 +175,8 @@ try {
     console.log(`    handler                ${f(r.handler_ms)}`);
     console.log(`    input → on screen      ${f(r.on_screen_ms)}`);
     console.log(`    input → whole page     ${f(r.whole_page_ms)}`);
+    const c = r.throttle_check;
+    console.log(`    throttle check         a fixed loop ${c.loop_ms.toFixed(1)} ms → ${c.loop_throttled_ms.toFixed(1)} ms throttled (${c.slowdown.toFixed(1)}×)`);
   }
   console.log('Bytes loaded on first view:');
   for (const [name, b] of loaded) console.log(`  ${name.padEnd(28)} ${String(b.raw).padStart(8)} B  ${String(b.gz).padStart(7)} B gz`);

@@ -8,8 +8,10 @@
 // two cores during an edit; on a phone they run on other cores. Pinning the main thread of each
 // renderer this benchmark started to the first allowed CPU, and every other thread of the
 // benchmark's Chromium and of this process to the others, takes those turns out of the measured
-// time; the throttle itself is unchanged. Only processes descended from this one are touched,
-// and each gets back the CPUs it had.
+// time. The throttle's own thread (`CPUThrottlingTh`, which sends those signals) then shares the
+// other core with everything else; a late signal lets the main thread run unthrottled, so that
+// thread gets real-time priority (SCHED_FIFO 1, `chrt`) and signals on time. Only processes
+// descended from this one are touched, and each thread gets back the CPUs and policy it had.
 
 import { execFileSync } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
@@ -83,23 +85,40 @@ function threadsOf(pid) {
   }
 }
 
+function nameOf(pid, tid) {
+  try {
+    return readFileSync(`/proc/${pid}/task/${tid}/comm`, 'utf8').trim();
+  } catch {
+    return '';
+  }
+}
+
 function cpusOf(tid) {
   return taskset(['-pc', String(tid)]).split(':').at(-1).trim();
 }
 
 /**
- * Pins the main thread of each renderer this process started to the first allowed CPU and
- * every other thread of this process and its descendants to the other allowed CPUs. Call it
- * after the page is open and the throttle is set (threads started later inherit their
- * creator's CPUs, and the throttle's thread must not share the main thread's core). Returns
- * `restore()`, which gives every pinned thread back the CPUs it had. Throws when a renderer's
- * main thread could not be pinned (after restoring what it had pinned).
+ * Readies the benchmark's Chromium for a throttled measurement. Call it after the page is open
+ * and the throttle is set (threads started later inherit their creator's CPUs and policy).
+ * Always: the throttle's thread (`CPUThrottlingTh`) gets real-time priority, so its signals come
+ * on time. With `pin`: the main thread of each renderer this process started goes to the first
+ * allowed CPU and every other thread of this process and its descendants to the other allowed
+ * CPUs. Returns `restore()`, which gives each changed thread back its CPUs and policy. Throws
+ * (after restoring) when no throttle thread or no renderer is found, or a change is refused.
  */
-export function pinMainThreads() {
+export function isolate({ pin }) {
   const [main, ...rest] = ALLOWED;
   const others = rest.join(',');
-  const before = new Map();
+  const before = new Map(); // thread → the CPUs it had
+  const realtime = []; // throttle threads given SCHED_FIFO
   const restore = () => {
+    for (const tid of realtime) {
+      try {
+        execFileSync('chrt', ['-o', '-p', '0', String(tid)], { stdio: 'ignore' });
+      } catch {
+        // the thread ended
+      }
+    }
     for (const [tid, cpus] of before) {
       try {
         taskset(['-pc', cpus, String(tid)]);
@@ -107,6 +126,10 @@ export function pinMainThreads() {
         // the thread ended
       }
     }
+  };
+  const fail = (why) => {
+    restore();
+    throw new Error(why);
   };
   let renderers = 0;
   for (const pid of ownProcesses()) {
@@ -118,26 +141,30 @@ export function pinMainThreads() {
     }
     const renderer = cmd.includes('--type=renderer');
     for (const tid of threadsOf(pid)) {
-      const want = renderer && tid === pid ? String(main) : others;
+      if (renderer && nameOf(pid, tid) === 'CPUThrottlingTh') {
+        try {
+          execFileSync('chrt', ['-f', '-p', '1', String(tid)], { stdio: 'ignore' });
+          realtime.push(tid);
+        } catch (e) {
+          fail(`the throttle's thread cannot have real-time priority here (chrt): ${e.message}`);
+        }
+      }
+      if (!pin) continue;
+      const isMain = renderer && tid === pid;
       try {
         before.set(tid, cpusOf(tid));
-        taskset(['-pc', want, String(tid)]);
+        taskset(['-pc', isMain ? String(main) : others, String(tid)]);
       } catch {
         before.delete(tid); // the thread ended meanwhile
         continue;
       }
-      if (renderer && tid === pid) {
-        if (cpusOf(tid) !== String(main)) {
-          restore();
-          throw new Error(`renderer ${pid}: its main thread is on CPUs ${cpusOf(tid)}, not ${main}`);
-        }
+      if (isMain) {
+        if (cpusOf(tid) !== String(main)) fail(`renderer ${pid}: its main thread is on CPUs ${cpusOf(tid)}, not ${main}`);
         renderers += 1;
       }
     }
   }
-  if (!renderers) {
-    restore();
-    throw new Error('no renderer of this benchmark found to pin');
-  }
+  if (!realtime.length) fail('no throttle thread found: call it after the throttle starts');
+  if (pin && !renderers) fail('no renderer of this benchmark found to pin');
   return restore;
 }
