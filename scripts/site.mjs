@@ -13,8 +13,9 @@ import { extname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const ROOT = fileURLToPath(new URL('../', import.meta.url));
-export const WEB = join(ROOT, 'web');
+const WEB = join(ROOT, 'web');
 export const SITE = join(ROOT, 'target/site');
+const VERSION_LINE = /const VERSION = '[^']*'/;
 
 function filesUnder(dir) {
   return readdirSync(dir).flatMap((name) => {
@@ -24,17 +25,10 @@ function filesUnder(dir) {
 }
 
 /** The service worker's precache list (its `PRECACHE` array of quoted paths). */
-export function precacheList(swText) {
+function precacheList(swText) {
   const body = swText.match(/const PRECACHE = \[([^\]]*)\]/);
   if (!body) throw new Error('sw.js: no `const PRECACHE = [...]` list');
   return [...body[1].matchAll(/'([^']*)'/g)].map((m) => m[1]);
-}
-
-/** The cache version the built sw.js carries (its `const VERSION = '…'`). */
-export function builtVersion(swText) {
-  const m = swText.match(/const VERSION = '([^']*)'/);
-  if (!m) throw new Error("sw.js: no `const VERSION = '…'` line");
-  return m[1];
 }
 
 async function minify(path) {
@@ -59,8 +53,8 @@ export async function buildSite() {
     hash.update(`${file}\0`).update(readFileSync(join(SITE, file)));
   }
   const version = hash.digest('hex').slice(0, 12);
-  builtVersion(swText); // the line is there
-  writeFileSync(sw, swText.replace(/const VERSION = '[^']*'/, `const VERSION = '${version}'`));
+  if (!VERSION_LINE.test(swText)) throw new Error("sw.js: no `const VERSION = '…'` line");
+  writeFileSync(sw, swText.replace(VERSION_LINE, `const VERSION = '${version}'`));
   const rel = relative(ROOT, SITE);
   return `site: ${rel} (${work.length} scripts and style sheets minified, cache version ${version})`;
 }

@@ -5,12 +5,12 @@ import { chromium } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { startServer } from '../../scripts/serve.mjs';
-import { buildSite } from '../../scripts/site.mjs';
+import { buildSite, SITE } from '../../scripts/site.mjs';
 
 export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 export const SHOTS = `${ROOT}target/screenshots`;
 /** The served site: web/ as scripts/build makes it (scripts/site.mjs). */
-export const SITE = `${ROOT}target/site`;
+export { SITE };
 
 export const CHROMIUM_ARGS = [
   '--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-quic',

@@ -72,10 +72,10 @@ const LABEL_EM_MM: f64 = 64.0;
 /// known never lower than clear above the BB-to-grip dimension label (baseline
 /// [`crate::dims::GRIP_LABEL_RISE`] above the grip), whose line it would otherwise share on
 /// most bikes: that label's capitals (0.75 em) and this one's descenders (0.25 em) and a 16 mm
-/// gap, on the labels' grid (rounded up). The same with the dimensions hidden, so showing them
-/// moves nothing.
+/// gap, rounded up to the labels' grid (so [`snap`] keeps it). The same with the dimensions
+/// hidden, so showing them moves nothing.
 fn braking_label_y(c: Xy, o: &Outline) -> f64 {
-    let own = snap([0.0, c[1] + 30.0])[1];
+    let own = c[1] + 30.0;
     let Some(ck) = &o.cockpit else { return own };
     let clear = ck.grip[1] + crate::dims::GRIP_LABEL_RISE + LABEL_EM_MM + 16.0;
     own.max((clear / LABEL_STEP_MM).ceil() * LABEL_STEP_MM)
@@ -102,7 +102,7 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
     if let Some(b) = limits.braking_g {
         kids.push(text(
             k("braking"),
-            [snap([c[0] + 40.0, 0.0])[0], braking_label_y(c, o)],
+            snap([c[0] + 40.0, braking_label_y(c, o)]),
             format!("braking limit {} g", num(b, 2)),
             "start",
             class,
