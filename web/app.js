@@ -56,7 +56,7 @@ function update(event) {
   // call reads the form once for the tables, the drawing (made when written) and the share link
   // (made in the next task).
   const result = JSON.parse(wasm.evaluate_form_page(JSON.stringify(share.fields()), JSON.stringify(share.view())));
-  clearMessages(form);
+  clearMessages();
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
     const unplaced = showErrors(form, errors.length ? errors : result.report.errors);
@@ -65,7 +65,7 @@ function update(event) {
       : 'Fix the marked field; the drawing and numbers show the last good values.';
     return;
   }
-  status.textContent = '';
+  if (status.textContent) status.textContent = '';
   // Results first (they read row places before any write); the drawing is made when written.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   painter.paint(drawing, showDrawing);

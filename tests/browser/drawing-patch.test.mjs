@@ -17,7 +17,18 @@ const SIZES = [['phone', 360, 740], ['desk', 1280, 800]];
 
 const d = (page, key) => page.getAttribute(`#drawing [data-k="${key}"]`, 'points');
 const ghostOf = (page) => page.evaluate(() => [...document.querySelectorAll('#drawing .ghost polyline')].map((p) => p.getAttribute('points')).join(' | '));
-const markup = (page) => page.locator('#drawing svg').evaluate((s) => s.outerHTML.replace(/ data-fit="[^"]*"/, ''));
+// The drawing's markup but for its view box and the ground line drawn across it: a page keeps
+// the view box it shows while the bike still fits in it (crates/draw view.rs), where a fresh page
+// opened from the same link fits the bike afresh.
+const markup = (page) => page.locator('#drawing svg').evaluate((s) => s.outerHTML
+  .replace(/ data-fit="[^"]*"/, '').replace(/ viewBox="[^"]*"/, '').replace(/(data-k="ground" points=")[^"]*"/, '$1'));
+const viewBox = (page) => page.locator('#drawing svg').evaluate((s) => s.getAttribute('viewBox').split(' ').map(Number));
+/** The kept view box holds the fresh page's fit and is at most 100 mm wider and taller. */
+async function keepsTheFit(page, fresh) {
+  const [[x, y, w, h], [fx, fy, fw, fh]] = [await viewBox(page), await viewBox(fresh)];
+  assert.ok(x <= fx && y <= fy && x + w >= fx + fw && y + h >= fy + fh, `${[x, y, w, h]} holds ${[fx, fy, fw, fh]}`);
+  assert.ok(w - fw <= 100 && h - fh <= 100, `${[x, y, w, h]} near ${[fx, fy, fw, fh]}`);
+}
 
 for (const [name, width, height] of SIZES) {
   test(`${name}: an edit patches the shown drawing in place`, T, async () => {
@@ -31,6 +42,7 @@ for (const [name, width, height] of SIZES) {
     });
     const fork = await d(page, 'ridden-fork-leg');
     const ghost = await ghostOf(page);
+    const shownBox = await viewBox(page);
     await page.fill('input[name="frame.reach_mm"]', '489');
     await page.waitForFunction((old) => document.querySelector('#drawing [data-k="ridden-fork-leg"]').getAttribute('points') !== old, fork, { timeout: 5000 });
     const same = await page.evaluate(() => ({
@@ -43,16 +55,20 @@ for (const [name, width, height] of SIZES) {
     assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 470 mm' });
     assert.notEqual(await d(page, 'ridden-fork-leg'), fork);
     assert.notEqual(await ghostOf(page), ghost, 'the stock frame moved with its reach');
+    // The bike still fits in the view box shown (its own fit is 50 mm less tall): it stays.
+    assert.deepEqual(await viewBox(page), shownBox, 'the view box is kept');
     await page.locator('label.toggle:has(#show-dims)').click();
     assert.equal(await page.evaluate(() => window.marked.reach.textContent), 'Reach 489 mm');
     await page.locator('label.toggle:has(#show-dims)').click();
     await showEveryLayer(page);
     // Every layer shown once: the patched drawing is exactly what a fresh page draws for the
-    // same form.
+    // same form, in the view box it keeps.
     await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
     const url = await page.locator('#share-url').inputValue();
     const fresh = await openPage(env, { width, height, hash: new URL(url).hash });
     assert.equal(await markup(fresh.page), await markup(page));
+    await keepsTheFit(page, fresh.page);
+    assert.notDeepEqual(await viewBox(fresh.page), shownBox, 'a fresh page fits the bike afresh');
     assert.deepEqual([...problems, ...fresh.problems], []);
     await fresh.context.close();
     await context.close();
@@ -74,6 +90,7 @@ test('the rehearsal after load changes nothing the page shows, and the next edit
   const fresh = await openPage(env, { width: 360, height: 740, hash: new URL(await page.locator('#share-url').inputValue()).hash });
   await showEveryLayer(page);
   assert.equal(await markup(fresh.page), await markup(page));
+  await keepsTheFit(page, fresh.page);
   assert.deepEqual([...problems, ...fresh.problems], []);
   await fresh.context.close();
   await context.close();

@@ -72,14 +72,18 @@ function msgFor(control) {
   return document.getElementById(`${control.id}-msg`);
 }
 
+// The controls showErrors marked: clearing them needs no search of the form on every edit.
+const marked = new Set();
+
 /** Clears every message and invalid mark. */
-export function clearMessages(form) {
-  for (const c of form.querySelectorAll('[aria-invalid="true"]')) {
+export function clearMessages() {
+  for (const c of marked) {
     c.removeAttribute('aria-invalid');
     c.setAttribute('aria-describedby', `${c.id}-def`);
     const m = msgFor(c);
     if (m) m.textContent = '';
   }
+  marked.clear();
 }
 
 /** Puts each error beside its field; returns the messages that have no field on the form. */
@@ -91,6 +95,7 @@ export function showErrors(form, errors) {
     if (!m) { unplaced.push(e.message); continue; }
     m.textContent = e.message;
     c.setAttribute('aria-invalid', 'true');
+    marked.add(c);
     c.setAttribute('aria-describedby', `${m.id} ${c.id}-def`);
     const more = c.closest('details');
     if (more) more.open = true;

@@ -25,9 +25,11 @@ pub mod model;
 pub mod num;
 mod parts;
 mod shapes;
+pub mod view;
 
 pub use model::{Drawing, Node, Patch};
 pub use shapes::flip;
+pub use view::{ViewBox, VIEW_SLACK_MM, VIEW_STEP_MM};
 
 use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::{BikeReport, Outline};
@@ -103,30 +105,18 @@ pub fn draw(scene: &Scene) -> String {
     drawing(scene).svg()
 }
 
-/// The step of the view box's edges, mm: see [`drawing`].
-pub const VIEW_STEP_MM: f64 = 50.0;
-
 /// The side view of one scene: ground, the stock ghost, the ridden bike, riders, centres of
-/// mass and dimensions, fitted to its own extent (edges on whole [`VIEW_STEP_MM`] steps).
+/// mass and dimensions, fitted to its own extent ([`view::fit`]).
 pub fn drawing(scene: &Scene) -> Drawing {
+    drawing_in(scene, None)
+}
+
+/// [`drawing`] in the view box `shown` while it still fits the scene ([`view::steady`]), else
+/// in the scene's own fit: the page passes the view box of the drawing it shows.
+pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let o = scene.ridden;
-    let (x0, y0, x1, y1) = extent(o);
-    let (gx0, gy0, gx1, gy1) = extent(scene.stock);
-    let pad = 80.0;
-    // The view box grows outward to whole steps, so that an edit that moves the bike a few
-    // millimetres keeps the same view box: the page then lays out only the polylines that changed,
-    // not every label again (scripts/bench-layout.mjs, docs/BENCHMARKS.md).
-    let out = |v: f64, up: bool| {
-        let q = v / VIEW_STEP_MM;
-        (if up { q.ceil() } else { q.floor() }) * VIEW_STEP_MM
-    };
-    let min_x = out(x0.min(gx0) - pad, false);
-    let max_x = out(x1.max(gx1) + pad, true);
-    let top = out(y1.max(gy1) + pad * 1.8, true);
-    let bottom = out(y0.min(gy0) - pad * 2.0, false);
-    let view_box = [min_x, -top, max_x - min_x, top - bottom]
-        .map(num::mm)
-        .join(" ");
+    let view = view::steady(shown, view::fit(scene));
+    let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![
         PathData::new()
             .line([min_x, o.ground_y], [max_x, o.ground_y])
@@ -157,7 +147,8 @@ pub fn drawing(scene: &Scene) -> Drawing {
     }
     nodes.push(dims::dimensions(o, scene.numbers));
     Drawing {
-        view_box,
+        view_box: view.attr(),
+        view,
         title: format!("Side view of {}", scene.label),
         nodes,
     }

@@ -80,8 +80,10 @@ pub fn ring_id(anchor_key: &str) -> String {
 /// A whole drawing: the root's view box and title, and its elements back to front.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Drawing {
-    /// `min-x min-y width height`, 0.1 mm numbers.
+    /// `min-x min-y width height`, 0.1 mm numbers: [`Drawing::view`] as the attribute.
     pub view_box: String,
+    /// The view box.
+    pub view: crate::ViewBox,
     /// The title (also the root's `aria-label`).
     pub title: String,
     /// The elements, back to front.

@@ -183,4 +183,39 @@ pub(crate) mod tests {
         assert!(stale.get("changes").is_none() && values(&stale).len() == shown.len());
         assert!(call(0).get("patch").is_some());
     }
+
+    /// The `viewBox` of the last page drawing, and that of the same form drawn afresh.
+    fn view_boxes(reach: &str) -> (Value, Value) {
+        evaluate_form_linked_to_json(&form(reach, "45"), "");
+        let fresh: Value = serde_json::from_str(&crate::framewise_web_core::evaluate_form_to_json(
+            &form(reach, "45"),
+        ))
+        .unwrap_or_default();
+        (now().0[0].clone(), fresh["drawing"]["patch"][0][2].clone())
+    }
+
+    fn width(view_box: &Value) -> f64 {
+        let parts: Vec<f64> = view_box
+            .as_str()
+            .unwrap_or("")
+            .split(' ')
+            .filter_map(|v| v.parse().ok())
+            .collect();
+        parts.get(2).copied().unwrap_or(f64::NAN)
+    }
+
+    /// Source: crates/draw `view` (the rule) and this crate's `last_drawing`. The page's drawing
+    /// keeps the view box it shows while the bike still fits in it: a longer reach widens it,
+    /// and going back keeps the wider box, where a drawing made afresh is fitted again.
+    #[test]
+    fn the_page_keeps_its_view_box_while_the_bike_still_fits() {
+        let (first, fitted) = view_boxes("470");
+        assert_eq!(first, fitted, "nothing shown yet: the fit");
+        let (longer, _) = view_boxes("520");
+        assert!(width(&longer) > width(&first), "{longer} vs {first}");
+        let (back, fitted) = view_boxes("470");
+        assert_eq!(back, longer, "kept");
+        assert_eq!(fitted, first, "a fresh drawing is fitted again");
+        assert!(width(&back) - width(&fitted) <= framewise_draw::VIEW_SLACK_MM);
+    }
 }

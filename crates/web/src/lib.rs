@@ -132,13 +132,20 @@ pub mod framewise_web_core {
         json
     }
 
-    /// The drawing of the last linked evaluation that evaluated, made now.
+    /// The drawing of the last linked evaluation that evaluated, made now, in the view box of
+    /// the drawing kept last while that still fits ([`framewise_draw::view::steady`]).
     pub(crate) fn last_drawing() -> Option<framewise_draw::Drawing> {
+        let shown = shown_view();
         LAST_REPORT.with(|r| {
             r.borrow()
                 .as_ref()
-                .and_then(|r| r.bikes.first().map(drawing_of))
+                .and_then(|r| r.bikes.first().map(|b| drawing_of(b, shown)))
         })
+    }
+
+    /// The view box of the drawing kept last (the one the page shows), if any.
+    fn shown_view() -> Option<framewise_draw::ViewBox> {
+        LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.view))
     }
 
     /// Keeps a drawing for [`last_drawing_svg`].
@@ -151,16 +158,21 @@ pub mod framewise_web_core {
         LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.svg()).unwrap_or_default())
     }
 
-    /// One bike's drawing with its handling limits (crates/draw).
-    fn drawing_of(bike: &framewise_kernel::report::BikeReport) -> framewise_draw::Drawing {
-        framewise_draw::drawing(&framewise_draw::Scene {
+    /// One bike's drawing with its handling limits (crates/draw), in the view box `shown` while
+    /// that still fits.
+    fn drawing_of(
+        bike: &framewise_kernel::report::BikeReport,
+        shown: Option<framewise_draw::ViewBox>,
+    ) -> framewise_draw::Drawing {
+        let scene = framewise_draw::Scene {
             label: &bike.label,
             ridden: &bike.outline,
             stock: &bike.stock_outline,
             numbers: &bike.ridden,
             seated: limits(&bike.handling.seated),
             standing: limits(&bike.handling.standing),
-        })
+        };
+        framewise_draw::drawing_in(&scene, shown)
     }
 
     fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch<'_> {
@@ -459,7 +471,9 @@ pub mod framewise_web_core {
                 Run::Page => {}
                 // The rehearsal also makes and writes the drawing the page would ask for.
                 Run::Rehearsal => {
-                    if let Some(d) = report.bikes.first().filter(|_| ok).map(drawing_of) {
+                    let shown = shown_view();
+                    let drawn = report.bikes.first().filter(|_| ok);
+                    if let Some(d) = drawn.map(|b| drawing_of(b, shown)) {
                         let patch = serde_json::to_string(&patch_of(&d)).unwrap_or_default();
                         return format!("{json}{patch}");
                     }
@@ -467,7 +481,11 @@ pub mod framewise_web_core {
             }
             return json;
         }
-        let drawn = report.bikes.first().filter(|_| ok).map(drawing_of);
+        let drawn = report
+            .bikes
+            .first()
+            .filter(|_| ok)
+            .map(|b| drawing_of(b, None));
         let svg = drawn.as_ref().map(framewise_draw::Drawing::svg);
         let drawing = drawn.as_ref().map(patch_of);
         serde_json::to_string(&FormResult {

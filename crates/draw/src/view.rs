@@ -1,0 +1,149 @@
+//! The drawing's view box: fitted to the bike on whole steps, and kept while edits leave it
+//! fitting.
+//!
+//! **Invariants:** a view box holds the whole bike and rider with at least the padding of
+//! [`fit`]; its edges are whole [`VIEW_STEP_MM`] steps; a kept view box is at most
+//! [`VIEW_SLACK_MM`] wider and taller than the fit, so the bike never shrinks on the screen by
+//! more than about a tenth.
+//!
+//! Why keep it: while a person edits, a drawing at one scale shows what moved, where a new fit
+//! after each edit would rescale everything and hide a 10 mm change. It is also cheaper in the
+//! page: a new view box makes Chromium lay out every element of the drawing again, a kept one
+//! only the polylines that moved (docs/BENCHMARKS.md).
+
+use crate::{extent, num, Scene};
+
+/// The step of the view box's edges, mm.
+pub const VIEW_STEP_MM: f64 = 50.0;
+
+/// How much wider and how much taller than the fit a kept view box may be, mm.
+pub const VIEW_SLACK_MM: f64 = 2.0 * VIEW_STEP_MM;
+
+/// A view box in the drawing's coordinates (SVG: x right, y down), mm.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ViewBox {
+    /// Left edge.
+    pub min_x: f64,
+    /// Top edge.
+    pub min_y: f64,
+    /// Width (positive).
+    pub width: f64,
+    /// Height (positive).
+    pub height: f64,
+}
+
+impl ViewBox {
+    /// Right edge.
+    pub fn max_x(&self) -> f64 {
+        self.min_x + self.width
+    }
+
+    /// Bottom edge.
+    pub fn max_y(&self) -> f64 {
+        self.min_y + self.height
+    }
+
+    /// Whether `inner` lies inside this box (edges may touch).
+    pub fn holds(&self, inner: &ViewBox) -> bool {
+        self.min_x <= inner.min_x
+            && self.min_y <= inner.min_y
+            && self.max_x() >= inner.max_x()
+            && self.max_y() >= inner.max_y()
+    }
+
+    /// The `viewBox` attribute: `min-x min-y width height` at 0.1 mm.
+    pub fn attr(&self) -> String {
+        [self.min_x, self.min_y, self.width, self.height]
+            .map(num::mm)
+            .join(" ")
+    }
+}
+
+/// The view box fitted to a scene: the extent of the ridden bike and the stock ghost (tyres,
+/// frame, cockpit, saddle, riders) with 80 mm at the sides, 144 mm above (room for the
+/// handling labels) and 160 mm below (the ground and the climb and descent lines), each edge
+/// moved outward to a whole [`VIEW_STEP_MM`] step, so that an edit that moves the bike a few
+/// millimetres usually gives the same box.
+pub fn fit(scene: &Scene) -> ViewBox {
+    let (x0, y0, x1, y1) = extent(scene.ridden);
+    let (gx0, gy0, gx1, gy1) = extent(scene.stock);
+    let pad = 80.0;
+    let out = |v: f64, up: bool| {
+        let q = v / VIEW_STEP_MM;
+        (if up { q.ceil() } else { q.floor() }) * VIEW_STEP_MM
+    };
+    let min_x = out(x0.min(gx0) - pad, false);
+    let max_x = out(x1.max(gx1) + pad, true);
+    let top = out(y1.max(gy1) + pad * 1.8, true);
+    let bottom = out(y0.min(gy0) - pad * 2.0, false);
+    ViewBox {
+        min_x,
+        min_y: -top,
+        width: max_x - min_x,
+        height: top - bottom,
+    }
+}
+
+/// The view box to draw in: `shown` (the one on the screen) while it holds `fit` and is at
+/// most [`VIEW_SLACK_MM`] wider and taller than it, else `fit`. Nothing shown: `fit`.
+pub fn steady(shown: Option<ViewBox>, fit: ViewBox) -> ViewBox {
+    match shown {
+        Some(s)
+            if s.holds(&fit)
+                && s.width <= fit.width + VIEW_SLACK_MM
+                && s.height <= fit.height + VIEW_SLACK_MM =>
+        {
+            s
+        }
+        _ => fit,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn b(min_x: f64, min_y: f64, width: f64, height: f64) -> ViewBox {
+        ViewBox {
+            min_x,
+            min_y,
+            width,
+            height,
+        }
+    }
+
+    /// Source: the module's rule. A shown box that holds the fit and is at most the slack larger
+    /// stays; one that is too large, too small or off to one side gives way to the fit.
+    #[test]
+    fn a_shown_box_stays_while_it_holds_the_fit_and_is_not_too_loose() {
+        let fit = b(-600.0, -1900.0, 2000.0, 2100.0);
+        assert_eq!(steady(None, fit), fit);
+        let wider = b(-650.0, -1900.0, 2100.0, 2100.0);
+        assert_eq!(steady(Some(wider), fit), wider);
+        let both = b(-700.0, -1950.0, 2100.0, 2200.0);
+        assert_eq!(steady(Some(both), fit), both);
+        let too_wide = b(-650.0, -1900.0, 2150.0, 2100.0);
+        assert_eq!(steady(Some(too_wide), fit), fit);
+        let too_tall = b(-600.0, -2050.0, 2000.0, 2250.0);
+        assert_eq!(steady(Some(too_tall), fit), fit);
+        let narrower = b(-600.0, -1900.0, 1950.0, 2100.0);
+        assert_eq!(steady(Some(narrower), fit), fit);
+        let shifted = b(-550.0, -1900.0, 2050.0, 2100.0);
+        assert_eq!(steady(Some(shifted), fit), fit);
+        assert_eq!(
+            steady(Some(fit), fit),
+            fit,
+            "the same box stays (idempotent)"
+        );
+    }
+
+    #[test]
+    fn the_attribute_lists_min_x_min_y_width_height() {
+        assert_eq!(
+            b(-650.0, -1900.0, 2100.0, 2100.5).attr(),
+            "-650 -1900 2100 2100.5"
+        );
+        assert!(b(0.0, 0.0, 10.0, 10.0).holds(&b(0.0, 0.0, 10.0, 10.0)));
+        assert!(!b(0.0, 0.0, 10.0, 10.0).holds(&b(-0.1, 0.0, 10.0, 10.0)));
+    }
+}
