@@ -97,6 +97,29 @@ function cpusOf(tid) {
   return taskset(['-pc', String(tid)]).split(':').at(-1).trim();
 }
 
+/** Whether a renderer this process started has the throttle's thread (`CPUThrottlingTh`). */
+function throttleThreadRuns() {
+  for (const pid of ownProcesses()) {
+    let cmd = '';
+    try {
+      cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
+    } catch {
+      continue;
+    }
+    if (cmd.includes('--type=renderer') && threadsOf(pid).some((tid) => nameOf(pid, tid) === 'CPUThrottlingTh')) return true;
+  }
+  return false;
+}
+
+/**
+ * Waits (up to `ms`) until the throttle's thread has started: Chromium answers the CDP call that
+ * sets the throttle before the thread always exists. Call it before `isolate`.
+ */
+export async function throttleStarted(ms = 3000) {
+  const end = Date.now() + ms;
+  while (!throttleThreadRuns() && Date.now() < end) await new Promise((ok) => setTimeout(ok, 20));
+}
+
 /**
  * Readies the benchmark's Chromium for a throttled measurement. Call it after the page is open
  * and the throttle is set (threads started later inherit their creator's CPUs and policy).

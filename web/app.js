@@ -66,7 +66,7 @@ function update(event) {
     return;
   }
   if (status.textContent) status.textContent = '';
-  // Results first (they read row places before any write); the drawing is made when written.
+  // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page, in the next task

@@ -214,6 +214,7 @@ function build(b, words) {
   const rows = [];
   const node = b.type === 'table' ? buildTable(b, words, rows)
     : b.type === 'missing' ? buildMissing(b, words) : buildItems(b, refs);
+  watchRows(rows);
   return { id: idOf(b), shape: shapeOf(b), node, refs, rows, rest: {} };
 }
 
@@ -237,28 +238,43 @@ function patch(refs, vals) {
   });
 }
 
-/** [from, to) of a table's rows on the screen; read before the edit writes anything. */
-function rowsOnScreen(rows) {
-  let lo = 0;
-  let hi = rows.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (rows[mid].last.getBoundingClientRect().bottom <= 0) lo = mid + 1; else hi = mid;
+// Which table rows are on the screen, as of the last frame (an IntersectionObserver, as the
+// painter's for blocks): reading row places in the handler would force a style and layout pass
+// before anything is written (about a sixth of a desk edit's time), and the page lays out again
+// after the writes anyway.
+const rowsSeen = new WeakSet();
+const rowWatch = new IntersectionObserver((entries) => {
+  for (const e of entries) {
+    if (e.isIntersecting) rowsSeen.add(e.target); else rowsSeen.delete(e.target);
   }
-  let end = lo;
-  while (end < rows.length && rows[end].first.getBoundingClientRect().top < innerHeight) end += 1;
-  return [lo, end];
+});
+
+function watchRows(rows) {
+  for (const r of rows) {
+    rowWatch.observe(r.first);
+    if (r.last !== r.first) rowWatch.observe(r.last);
+  }
 }
 
-/** Writes a table of unchanged shape: the rows `shown` now, the rest in the next task. */
+function forgetRows(rows) {
+  for (const r of rows) {
+    rowWatch.unobserve(r.first);
+    if (r.last !== r.first) rowWatch.unobserve(r.last);
+  }
+}
+
+/** Whether any of a row's lines was on the screen at the last frame. */
+function rowSeen(r) {
+  return rowsSeen.has(r.first) || rowsSeen.has(r.last);
+}
+
+/** Writes a table of unchanged shape: the rows `shown` (flags) now, the rest in the next task. */
 function patchTable(part, b, shown, painter) {
-  const [from, to] = shown ?? [0, b.rows.length];
-  for (let i = from; i < to; i += 1) patch(part.rows[i].refs, rowValues(b.rows[i]));
-  if (from === 0 && to === b.rows.length) { painter.forget(part.rest); return; } // drop an older rest
+  const now = (i) => !shown || shown[i];
+  b.rows.forEach((r, i) => { if (now(i)) patch(part.rows[i].refs, rowValues(r)); });
+  if (!shown || shown.every(Boolean)) { painter.forget(part.rest); return; } // drop an older rest
   painter.later(part.rest, () => {
-    b.rows.forEach((r, i) => {
-      if (i < from || i >= to) patch(part.rows[i].refs, rowValues(r));
-    });
+    b.rows.forEach((r, i) => { if (!now(i)) patch(part.rows[i].refs, rowValues(r)); });
   });
 }
 
@@ -283,6 +299,7 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
     for (const p of parts) {
       painter.forget(p.node);
       painter.forget(p.rest);
+      forgetRows(p.rows);
     }
     parts = blocks.map(([, make]) => build(make(), words));
     for (const p of parts) painter.watch(p.node);
@@ -292,7 +309,7 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
   }
   // Each block is compared, formatted and written when the painter writes it: at once on the
   // screen, in the next task off it. A later edit's write for the same node replaces a queued one.
-  const shown = parts.map((p) => (!queued && p.rows.length && painter.onScreen(p.node) ? rowsOnScreen(p.rows) : null));
+  const shown = parts.map((p) => (!queued && p.rows.length && painter.onScreen(p.node) ? p.rows.map(rowSeen) : null));
   blocks.forEach(([, make], i) => {
     const part = parts[i];
     const write = (now) => {
@@ -306,6 +323,7 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
       parts[i] = fresh;
       painter.forget(part.node);
       painter.forget(part.rest);
+      forgetRows(part.rows);
       part.node.replaceWith(fresh.node);
       painter.watch(fresh.node);
     };

@@ -13,7 +13,7 @@ use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
 use crate::scenario::{BikeInput, Scenario, WheelsInput, SCENARIO_VERSION};
 use crate::scene;
 use crate::solve::{Given, SolveInput};
-use crate::validate::{limit, Checker};
+use crate::validate::{limit, Checker, Path};
 use crate::wheel::{Wheel, WheelSpec};
 use nalgebra::{Point2, Vector2};
 use std::collections::BTreeMap;
@@ -78,8 +78,9 @@ fn check_published(
     warnings: &mut Vec<Warning>,
 ) -> BTreeMap<String, Given> {
     let mut given = BTreeMap::new();
+    let frame = format!("{prefix}.frame");
     for (key, p) in &bike.frame {
-        let field = format!("{prefix}.frame.{key}");
+        let field = Path(&frame, key);
         let Some(m) = lookup(key) else {
             c.errors.push(FieldError::new(
                 "unknown_key",
@@ -92,18 +93,17 @@ fn check_published(
             continue;
         };
         let Some(value) = c.range(
-            &field,
+            field,
             limit(m.label, m.hard.0, m.hard.1, m.unit.symbol()),
             Some(p.value()),
         ) else {
             continue;
         };
         let max_tol = if m.unit.symbol() == "mm" { 50.0 } else { 5.0 };
-        let tol_field = format!("{field}.tolerance");
         let tolerance = match p.tolerance() {
             None => m.default_tolerance(),
             Some(t) => match c.range(
-                &tol_field,
+                format!("{field}.tolerance"),
                 limit(
                     &format!("{} rounding", m.label),
                     1e-6,
@@ -141,7 +141,7 @@ fn implausible(m: &Measurement, value: f64) -> Warning {
 
 fn resolve_wheel(
     spec: Option<&WheelSpec>,
-    field: &str,
+    field: Path<'_>,
     fallback: Option<Wheel>,
     c: &mut Checker,
     warnings: &mut Vec<Warning>,
@@ -172,14 +172,14 @@ fn wheels(
 ) -> Option<(Wheel, Wheel)> {
     let f = resolve_wheel(
         w.front.as_ref(),
-        &format!("{prefix}.front"),
+        Path(prefix, "front"),
         fallback.map(|p| p.0),
         c,
         warnings,
     );
     let r = resolve_wheel(
         w.rear.as_ref(),
-        &format!("{prefix}.rear"),
+        Path(prefix, "rear"),
         fallback.map(|p| p.1),
         c,
         warnings,
@@ -202,7 +202,7 @@ fn evaluate_bike(
     let given = check_published(prefix, bike, &mut c, &mut warnings);
     let setup = crate::fitting::check_setup(bike, prefix, &mut c);
     let seat_ref = c.range(
-        &format!("{prefix}.seat_angle_ref_mm"),
+        Path(prefix, "seat_angle_ref_mm"),
         limit("seat angle reference height", 100.0, 1200.0, "mm"),
         bike.seat_angle_ref_mm,
     );
@@ -223,53 +223,53 @@ fn evaluate_bike(
         &mut warnings,
     );
     let a2c_delta = c.range_or(
-        &format!("{cp}.fork_a2c_delta_mm"),
+        Path(&cp, "fork_a2c_delta_mm"),
         limit("fork length change", -150.0, 150.0, "mm"),
         ch.fork_a2c_delta_mm,
         0.0,
     );
     let new_offset = c.range(
-        &format!("{cp}.fork_offset_mm"),
+        Path(&cp, "fork_offset_mm"),
         limit("fork offset", -20.0, 100.0, "mm"),
         ch.fork_offset_mm,
     );
     let cups = c.range_or(
-        &format!("{cp}.headset_angle_deg"),
+        Path(&cp, "headset_angle_deg"),
         limit("angle headset", -5.0, 5.0, "°"),
         ch.headset_angle_deg,
         0.0,
     );
     let fork_travel = c.range_or(
-        &format!("{cp}.fork_travel_mm"),
+        Path(&cp, "fork_travel_mm"),
         limit("fork travel", 0.0, 300.0, "mm"),
         ch.fork_travel_mm,
         0.0,
     );
     let front_sag = c.range_or(
-        &format!("{cp}.front_sag_pct"),
+        Path(&cp, "front_sag_pct"),
         limit("front sag", 0.0, 60.0, "%"),
         ch.front_sag_pct,
         0.0,
     );
     let rear_travel = c.range_or(
-        &format!("{cp}.rear_travel_mm"),
+        Path(&cp, "rear_travel_mm"),
         limit("rear travel", 0.0, 300.0, "mm"),
         ch.rear_travel_mm,
         0.0,
     );
     let rear_sag = c.range_or(
-        &format!("{cp}.rear_sag_pct"),
+        Path(&cp, "rear_sag_pct"),
         limit("rear sag", 0.0, 60.0, "%"),
         ch.rear_sag_pct,
         0.0,
     );
     let px = c.range(
-        &format!("{cp}.pivot_x_mm"),
+        Path(&cp, "pivot_x_mm"),
         limit("pivot x", -400.0, 400.0, "mm"),
         ch.pivot_x_mm,
     );
     let py = c.range(
-        &format!("{cp}.pivot_y_mm"),
+        Path(&cp, "pivot_y_mm"),
         limit("pivot y", -200.0, 600.0, "mm"),
         ch.pivot_y_mm,
     );

@@ -9,7 +9,7 @@ use crate::parts::DEFAULT_SPACER_LIMIT_MM;
 use crate::rider::{Body, Overrides, INSEAM_RATIO};
 use crate::scenario::{BikeInput, RiderInput};
 use crate::seat::Seat;
-use crate::validate::{limit, Checker};
+use crate::validate::{limit, Checker, Path};
 use nalgebra::Point2;
 
 /// Crank length assumed when none is given, mm.
@@ -81,47 +81,53 @@ pub fn check_rider(
     warnings: &mut Vec<Warning>,
 ) -> Option<RiderValues> {
     let mut c = Checker::default();
-    let f = |k: &str| format!("rider.{k}");
+    let f = |k: &'static str| Path("rider", k);
     let height = c.range(
-        &f("height_mm"),
+        f("height_mm"),
         limit("rider height", 900.0, 2300.0, "mm"),
         r.height_mm,
     );
     let mass = c.range(
-        &f("mass_kg"),
+        f("mass_kg"),
         limit("rider mass", 20.0, 250.0, "kg"),
         r.mass_kg,
     );
     let inseam = c.range(
-        &f("inseam_mm"),
+        f("inseam_mm"),
         limit("inseam", 400.0, 1200.0, "mm"),
         r.inseam_mm,
     );
     let o = Overrides {
         inseam,
         arm: c.range(
-            &f("arm_mm"),
+            f("arm_mm"),
             limit("arm length", 400.0, 1000.0, "mm"),
             r.arm_mm,
         ),
         torso: c.range(
-            &f("torso_mm"),
+            f("torso_mm"),
             limit("torso length", 300.0, 900.0, "mm"),
             r.torso_mm,
         ),
         shoe_stack: c.range(
-            &f("shoe_stack_mm"),
+            f("shoe_stack_mm"),
             limit("shoe stack", 0.0, 60.0, "mm"),
             r.shoe_stack_mm,
         ),
         foot_position: c.range(
-            &f("foot_position_mm"),
+            f("foot_position_mm"),
             limit("foot position on the pedal", -80.0, 80.0, "mm"),
             r.foot_position_mm,
         ),
     };
-    let deg = |c: &mut Checker, k: &str, label: &str, lo: f64, hi: f64, v: Option<f64>, d: f64| {
-        c.range_or(&f(k), limit(label, lo, hi, "°"), v, d)
+    let deg = |c: &mut Checker,
+               k: &'static str,
+               label: &str,
+               lo: f64,
+               hi: f64,
+               v: Option<f64>,
+               d: f64| {
+        c.range_or(f(k), limit(label, lo, hi, "°"), v, d)
             .to_radians()
     };
     let elbow_bend = deg(
@@ -153,7 +159,7 @@ pub fn check_rider(
     );
     let slope = deg(&mut c, "slope_deg", "slope", -45.0, 45.0, r.slope_deg, 0.0);
     let braking_g = c.range_or(
-        &f("braking_g"),
+        f("braking_g"),
         limit("braking", 0.0, 1.5, "g"),
         r.braking_g,
         DEFAULT_BRAKING_G,
@@ -199,21 +205,21 @@ pub fn check_rider(
 }
 
 fn bar(s: &crate::scenario::Setup, p: &str, c: &mut Checker) -> Bar {
-    let f = |k: &str| format!("{p}.{k}");
+    let f = |k: &'static str| Path(p, k);
     let rise = c.range_or(
-        &f("bar_rise_mm"),
+        f("bar_rise_mm"),
         limit("bar rise", -50.0, 150.0, "mm"),
         s.bar_rise_mm,
         0.0,
     );
     let pullback = c.range(
-        &f("bar_pullback_mm"),
+        f("bar_pullback_mm"),
         limit("bar pullback", -100.0, 200.0, "mm"),
         s.bar_pullback_mm,
     );
     let roll = c
         .range_or(
-            &f("bar_roll_deg"),
+            f("bar_roll_deg"),
             limit("bar roll", -30.0, 30.0, "°"),
             s.bar_roll_deg,
             0.0,
@@ -221,7 +227,7 @@ fn bar(s: &crate::scenario::Setup, p: &str, c: &mut Checker) -> Bar {
         .to_radians();
     let backsweep = c
         .range_or(
-            &f("bar_backsweep_deg"),
+            f("bar_backsweep_deg"),
             limit("bar backsweep", -10.0, 45.0, "°"),
             s.bar_backsweep_deg,
             0.0,
@@ -229,38 +235,38 @@ fn bar(s: &crate::scenario::Setup, p: &str, c: &mut Checker) -> Bar {
         .to_radians();
     let upsweep = c
         .range_or(
-            &f("bar_upsweep_deg"),
+            f("bar_upsweep_deg"),
             limit("bar upsweep", -10.0, 20.0, "°"),
             s.bar_upsweep_deg,
             0.0,
         )
         .to_radians();
     let width = c.range_or(
-        &f("bar_width_mm"),
+        f("bar_width_mm"),
         limit("bar width", 300.0, 1000.0, "mm"),
         s.bar_width_mm,
         760.0,
     );
     let reach = c.range_or(
-        &f("bar_reach_mm"),
+        f("bar_reach_mm"),
         limit("drop bar reach", 30.0, 150.0, "mm"),
         s.bar_reach_mm,
         80.0,
     );
     let drop = c.range_or(
-        &f("bar_drop_mm"),
+        f("bar_drop_mm"),
         limit("drop bar drop", 60.0, 200.0, "mm"),
         s.bar_drop_mm,
         125.0,
     );
     let hood_reach = c.range_or(
-        &f("hood_reach_mm"),
+        f("hood_reach_mm"),
         limit("hood reach", 30.0, 250.0, "mm"),
         s.hood_reach_mm,
         reach + 45.0,
     );
     let hood_drop = c.range_or(
-        &f("hood_drop_mm"),
+        f("hood_drop_mm"),
         limit("hood drop", -100.0, 100.0, "mm"),
         s.hood_drop_mm,
         -10.0,
@@ -315,33 +321,33 @@ fn bar(s: &crate::scenario::Setup, p: &str, c: &mut Checker) -> Bar {
 pub fn check_setup(bike: &BikeInput, prefix: &str, c: &mut Checker) -> SetupValues {
     let s = &bike.setup;
     let p = format!("{prefix}.setup");
-    let f = |k: &str| format!("{p}.{k}");
+    let f = |k: &'static str| Path(&p, k);
     let headset_upper = c.range_or(
-        &f("headset_upper_mm"),
+        f("headset_upper_mm"),
         limit("upper headset stack", 0.0, 60.0, "mm"),
         s.headset_upper_mm,
         8.0,
     );
     let spacers = c.range_or(
-        &f("spacers_mm"),
+        f("spacers_mm"),
         limit("spacers", 0.0, 100.0, "mm"),
         s.spacers_mm,
         0.0,
     );
     let stem_stack = c.range_or(
-        &f("stem_stack_mm"),
+        f("stem_stack_mm"),
         limit("stem clamp height", 15.0, 80.0, "mm"),
         s.stem_stack_mm,
         40.0,
     );
     let stem = c.range(
-        &f("stem_mm"),
+        f("stem_mm"),
         limit("stem length", 0.0, 200.0, "mm"),
         s.stem_mm,
     );
     let stem_angle = c
         .range_or(
-            &f("stem_angle_deg"),
+            f("stem_angle_deg"),
             limit("stem angle", -45.0, 45.0, "°"),
             s.stem_angle_deg,
             0.0,
@@ -357,65 +363,65 @@ pub fn check_setup(bike: &BikeInput, prefix: &str, c: &mut Checker) -> SetupValu
         bar,
     });
     let post_offset = c.range_or(
-        &f("post_offset_mm"),
+        f("post_offset_mm"),
         limit("seatpost offset", -20.0, 60.0, "mm"),
         s.post_offset_mm,
         0.0,
     );
     let saddle_height = c.range(
-        &f("saddle_height_mm"),
+        f("saddle_height_mm"),
         limit("saddle height", 300.0, 1200.0, "mm"),
         s.saddle_height_mm,
     );
     let seat = Seat {
         height: saddle_height.unwrap_or(0.0),
         setback: c.range_or(
-            &f("saddle_setback_mm"),
+            f("saddle_setback_mm"),
             limit("saddle setback", -100.0, 150.0, "mm"),
             s.saddle_setback_mm,
             post_offset,
         ),
         post_offset,
         saddle_stack: c.range_or(
-            &f("saddle_stack_mm"),
+            f("saddle_stack_mm"),
             limit("saddle stack", 0.0, 120.0, "mm"),
             s.saddle_stack_mm,
             45.0,
         ),
         max_insertion: c.range(
-            &f("max_insertion_mm"),
+            f("max_insertion_mm"),
             limit("maximum insertion", 0.0, 700.0, "mm"),
             s.max_insertion_mm,
         ),
         post_length: c.range(
-            &f("post_length_mm"),
+            f("post_length_mm"),
             limit("seatpost length", 100.0, 700.0, "mm"),
             s.post_length_mm,
         ),
         post_min_insertion: c.range(
-            &f("post_min_insertion_mm"),
+            f("post_min_insertion_mm"),
             limit("seatpost minimum insertion", 0.0, 300.0, "mm"),
             s.post_min_insertion_mm,
         ),
         dropper_travel: c.range_or(
-            &f("dropper_travel_mm"),
+            f("dropper_travel_mm"),
             limit("dropper travel", 0.0, 300.0, "mm"),
             s.dropper_travel_mm,
             0.0,
         ),
     };
     let crank = c.range(
-        &f("crank_mm"),
+        f("crank_mm"),
         limit("crank length", 80.0, 220.0, "mm"),
         s.crank_mm,
     );
     let tx = c.range(
-        &f("target_grip_x_mm"),
+        f("target_grip_x_mm"),
         limit("target grip x", -300.0, 1200.0, "mm"),
         s.target_grip_x_mm,
     );
     let ty = c.range(
-        &f("target_grip_y_mm"),
+        f("target_grip_y_mm"),
         limit("target grip y", -300.0, 1500.0, "mm"),
         s.target_grip_y_mm,
     );
@@ -429,17 +435,17 @@ pub fn check_setup(bike: &BikeInput, prefix: &str, c: &mut Checker) -> SetupValu
     let load = bike.load.and_then(|l| {
         let lp = format!("{prefix}.load");
         let x = c.range(
-            &format!("{lp}.x_mm"),
+            Path(&lp, "x_mm"),
             limit("load x", -800.0, 1500.0, "mm"),
             Some(l.x_mm),
         );
         let y = c.range(
-            &format!("{lp}.y_mm"),
+            Path(&lp, "y_mm"),
             limit("load y", -300.0, 2000.0, "mm"),
             Some(l.y_mm),
         );
         let m = c.range(
-            &format!("{lp}.mass_kg"),
+            Path(&lp, "mass_kg"),
             limit("load mass", 1.0, 400.0, "kg"),
             Some(l.mass_kg),
         );
@@ -450,29 +456,29 @@ pub fn check_setup(bike: &BikeInput, prefix: &str, c: &mut Checker) -> SetupValu
         seat,
         saddle_given: saddle_height.is_some(),
         spacer_limit: c.range_or(
-            &f("spacer_limit_mm"),
+            f("spacer_limit_mm"),
             limit("spacer limit", 0.0, 100.0, "mm"),
             s.spacer_limit_mm,
             DEFAULT_SPACER_LIMIT_MM,
         ),
         crank: (crank.unwrap_or(DEFAULT_CRANK_MM), crank.is_some()),
         bike_mass: c.range(
-            &f("bike_mass_kg"),
+            f("bike_mass_kg"),
             limit("bike mass", 3.0, 60.0, "kg"),
             s.bike_mass_kg,
         ),
         bike_com_x: c.range(
-            &f("bike_com_x_mm"),
+            f("bike_com_x_mm"),
             limit("bike centre of mass x", -500.0, 1000.0, "mm"),
             s.bike_com_x_mm,
         ),
         bike_com_y: c.range(
-            &f("bike_com_y_mm"),
+            f("bike_com_y_mm"),
             limit("bike centre of mass y", -300.0, 800.0, "mm"),
             s.bike_com_y_mm,
         ),
         pedal_outer: c.range_or(
-            &f("pedal_outer_mm"),
+            f("pedal_outer_mm"),
             limit("pedal outer end", 50.0, 300.0, "mm"),
             s.pedal_outer_mm,
             DEFAULT_PEDAL_OUTER_MM,

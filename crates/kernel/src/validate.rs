@@ -1,6 +1,24 @@
 //! Range checks for scenario fields, collecting every problem at once.
 
 use crate::error::FieldError;
+use std::fmt;
+
+/// A field's path `prefix.key` (e.g. `bikes[0].setup` and `stem_mm`), written out only when an
+/// error names it: the checks run on every edit and most find nothing to report.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Path<'a>(pub &'a str, pub &'a str);
+
+impl fmt::Display for Path<'_> {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{}.{}", self.0, self.1)
+    }
+}
+
+impl From<Path<'_>> for String {
+    fn from(p: Path<'_>) -> String {
+        p.to_string()
+    }
+}
 
 /// What a field allows: its label for messages, range and unit symbol.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -35,13 +53,23 @@ pub struct Checker {
 impl Checker {
     /// Checks an optional number against the limit; `None` passes.
     /// Returns the value when present and valid.
-    pub fn range(&mut self, field: &str, lim: Limit<'_>, value: Option<f64>) -> Option<f64> {
+    pub fn range(
+        &mut self,
+        field: impl fmt::Display,
+        lim: Limit<'_>,
+        value: Option<f64>,
+    ) -> Option<f64> {
         let v = value?;
         if v.is_finite() && (lim.min..=lim.max).contains(&v) {
             Some(v)
         } else {
             self.errors.push(FieldError::out_of_range(
-                field, lim.label, v, lim.min, lim.max, lim.unit,
+                &field.to_string(),
+                lim.label,
+                v,
+                lim.min,
+                lim.max,
+                lim.unit,
             ));
             None
         }
@@ -50,7 +78,7 @@ impl Checker {
     /// Like [`Checker::range`] with a default used when the value is absent or bad.
     pub fn range_or(
         &mut self,
-        field: &str,
+        field: impl fmt::Display,
         lim: Limit<'_>,
         value: Option<f64>,
         default: f64,

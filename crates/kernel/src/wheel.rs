@@ -79,13 +79,13 @@ impl WheelSpec {
     /// # Errors
     /// An unknown designation, or a width, BSD or diameter outside plausible limits, returns a
     /// [`FieldError`] naming `field`, the value and the accepted forms.
-    pub fn resolve(&self, field: &str) -> Result<Wheel, FieldError> {
+    pub fn resolve(&self, field: impl std::fmt::Display) -> Result<Wheel, FieldError> {
         match self {
             WheelSpec::Diameter { diameter_mm } => {
                 let d = *diameter_mm;
                 if !(d.is_finite() && (DIAMETER_RANGE.0..=DIAMETER_RANGE.1).contains(&d)) {
                     return Err(FieldError::out_of_range(
-                        field,
+                        &field.to_string(),
                         "wheel outer diameter",
                         d,
                         DIAMETER_RANGE.0,
@@ -102,7 +102,7 @@ impl WheelSpec {
             WheelSpec::Designation(text) => parse_designation(text).ok_or_else(|| {
                 FieldError::new(
                     "unknown_wheel",
-                    field,
+                    field.to_string(),
                     format!(
                         "wheel size \"{}\" is not recognised; accepted forms: {ACCEPTED_FORMS}",
                         text.trim()
