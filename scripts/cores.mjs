@@ -97,18 +97,18 @@ function cpusOf(tid) {
   return taskset(['-pc', String(tid)]).split(':').at(-1).trim();
 }
 
+/** Whether a process is a Chromium renderer; `null` when it has ended. */
+function isRenderer(pid) {
+  try {
+    return readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('--type=renderer');
+  } catch {
+    return null;
+  }
+}
+
 /** Whether a renderer this process started has the throttle's thread (`CPUThrottlingTh`). */
 function throttleThreadRuns() {
-  for (const pid of ownProcesses()) {
-    let cmd = '';
-    try {
-      cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-    } catch {
-      continue;
-    }
-    if (cmd.includes('--type=renderer') && threadsOf(pid).some((tid) => nameOf(pid, tid) === 'CPUThrottlingTh')) return true;
-  }
-  return false;
+  return ownProcesses().some((pid) => isRenderer(pid) && threadsOf(pid).some((tid) => nameOf(pid, tid) === 'CPUThrottlingTh'));
 }
 
 /**
@@ -156,13 +156,8 @@ export function isolate({ pin }) {
   };
   let renderers = 0;
   for (const pid of ownProcesses()) {
-    let cmd = '';
-    try {
-      cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8');
-    } catch {
-      continue;
-    }
-    const renderer = cmd.includes('--type=renderer');
+    const renderer = isRenderer(pid);
+    if (renderer === null) continue;
     for (const tid of threadsOf(pid)) {
       if (renderer && nameOf(pid, tid) === 'CPUThrottlingTh') {
         try {
