@@ -8,6 +8,8 @@
 //   on screen     handler + style/layout: the page as the person sees it after the edit
 //   whole page    until every queued off-screen part is written too (web/ui/onscreen.js clears
 //                 <html data-stale>), + style/layout
+// Each situation also counts the edits that changed the drawing's view box (each one lays out
+// the whole drawing again; crates/draw view.rs keeps it while the bike still fits).
 // Situations: phone 360×740 at the top of the page (drawing and the first numbers on screen),
 // phone 360×740 scrolled to the edited field (as while typing in it), desk 1280×800.
 //
@@ -64,10 +66,11 @@ function stats(values) {
   return { median: quantile(s, 0.5), p95: quantile(s, 0.95), max: s.at(-1) };
 }
 
-/** One edit in the page: [handler, on screen, whole page] in ms. */
+/** One edit in the page: [handler, on screen, whole page] in ms, and whether the view box changed. */
 function editInPage([n, v, scroll]) {
   const input = document.querySelector(`[name="${n}"]`);
   if (scroll) input.scrollIntoView({ block: 'center' });
+  const box = document.querySelector('#drawing svg').getAttribute('viewBox');
   void document.body.offsetHeight;
   input.value = v;
   const t0 = performance.now();
@@ -80,7 +83,7 @@ function editInPage([n, v, scroll]) {
   return new Promise((ok) => {
     const finish = () => {
       void document.body.offsetHeight;
-      ok([t1 - t0, t2 - t0, performance.now() - t0]);
+      ok([t1 - t0, t2 - t0, performance.now() - t0, box !== document.querySelector('#drawing svg').getAttribute('viewBox')]);
     };
     if (!root.dataset.stale) return finish();
     const mo = new MutationObserver(() => {
@@ -113,6 +116,7 @@ async function measure(env, situation, cores) {
   await throttleStarted();
   const restore = isolate({ pin: cores === 'own' });
   const times = [[], [], []];
+  let boxChanges = 0;
   let loopThrottled = 0;
   try {
     loopThrottled = await page.evaluate(loopInPage);
@@ -120,7 +124,8 @@ async function measure(env, situation, cores) {
       const [name, values] = EDITS_CYCLE[i % EDITS_CYCLE.length];
       const value = values[Math.floor(i / EDITS_CYCLE.length) % values.length];
       const t = await page.evaluate(editInPage, [name, value, situation.scroll]);
-      t.forEach((v, j) => times[j].push(v));
+      times.forEach((list, j) => list.push(t[j]));
+      if (t[3]) boxChanges += 1;
     }
     await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
   } finally {
@@ -132,6 +137,7 @@ async function measure(env, situation, cores) {
     handler_ms: stats(times[0]),
     on_screen_ms: stats(times[1]),
     whole_page_ms: stats(times[2]),
+    view_box_changes: boxChanges,
     throttle_check: { loop_ms: loopFree, loop_throttled_ms: loopThrottled, slowdown: loopThrottled / loopFree },
   };
 }
@@ -176,6 +182,7 @@ try {
     console.log(`    handler                ${f(r.handler_ms)}`);
     console.log(`    input → on screen      ${f(r.on_screen_ms)}`);
     console.log(`    input → whole page     ${f(r.whole_page_ms)}`);
+    console.log(`    view box changed       in ${r.view_box_changes} of ${EDITS} edits`);
     const c = r.throttle_check;
     console.log(`    throttle check         a fixed loop ${c.loop_ms.toFixed(1)} ms → ${c.loop_throttled_ms.toFixed(1)} ms throttled (${c.slowdown.toFixed(1)}×)`);
   }

@@ -120,6 +120,7 @@ test('rows queued by an edit give way to a later edit; a table wholly on the scr
   }, [values, 'top_tube_effective_mm']);
   const partly = await edit(['456', '470']);
   assert.equal(partly.below, true, 'the row is below the screen');
+  assert.deepEqual(partly.seen, [start, start], 'the row is not written in the handler');
   await settled(page);
   assert.equal(await page.evaluate(topTube), start, 'no older queued write came after the later edit');
   // The whole table on the screen (as the observer saw it at the last frame): every row is
@@ -136,6 +137,36 @@ test('rows queued by an edit give way to a later edit; a table wholly on the scr
   assert.equal(whole.seen[1], start, 'the second edit wrote it back at once');
   await settled(page);
   assert.equal(await page.evaluate(topTube), start);
+  // A table written whole drops the rest an older edit queued: with the painter's next task held
+  // back, an edit with the table partly on the screen queues its lower rows; once the observer
+  // sees the whole table, an edit writes every row at once, and the held task, run last, must
+  // not write the older values over them.
+  await showReachRowLast(page);
+  await page.evaluate(() => {
+    window.__held = [];
+    window.__setTimeout = window.setTimeout;
+    window.setTimeout = (fn) => { window.__held.push(fn); return 0; };
+    const input = document.querySelector('[name="frame.reach_mm"]');
+    input.value = '456';
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    const table = document.querySelector('#results table');
+    window.scrollTo(0, table.getBoundingClientRect().top + scrollY - 10);
+  });
+  await frames(page);
+  const last = await page.evaluate((cellKey) => {
+    const input = document.querySelector('[name="frame.reach_mm"]');
+    input.value = '470';
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    const now = document.querySelector(`#results tr[data-key="${cellKey}"] td[data-col="stock"]`).textContent;
+    window.setTimeout = window.__setTimeout;
+    const held = window.__held.length;
+    for (const fn of window.__held) fn();
+    return { now, held };
+  }, 'top_tube_effective_mm');
+  assert.ok(last.held > 0, 'the painter queued a task');
+  assert.equal(last.now, start, 'the whole table was written at once');
+  await settled(page);
+  assert.equal(await page.evaluate(topTube), start, 'the older queued rows did not come after it');
   assert.deepEqual(problems, []);
 });
 

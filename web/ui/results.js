@@ -238,14 +238,14 @@ function patch(refs, vals) {
   });
 }
 
-// Which table rows are on the screen, as of the last frame (an IntersectionObserver, as the
-// painter's for blocks): reading row places in the handler would force a style and layout pass
-// before anything is written (about a sixth of a desk edit's time), and the page lays out again
-// after the writes anyway.
-const rowsSeen = new WeakSet();
+// Which table rows are away from the screen, as of the last frame (an IntersectionObserver, as
+// the painter's for blocks; a row not yet reported counts as on the screen, as a new block
+// does): reading row places in the handler would force a style and layout pass before anything
+// is written, and the page lays out again after the writes anyway.
+const rowsAway = new WeakSet();
 const rowWatch = new IntersectionObserver((entries) => {
   for (const e of entries) {
-    if (e.isIntersecting) rowsSeen.add(e.target); else rowsSeen.delete(e.target);
+    if (e.isIntersecting) rowsAway.delete(e.target); else rowsAway.add(e.target);
   }
 });
 
@@ -263,9 +263,9 @@ function forgetRows(rows) {
   }
 }
 
-/** Whether any of a row's lines was on the screen at the last frame. */
+/** Whether any of a row's lines was on the screen at the last frame (or is not yet reported). */
 function rowSeen(r) {
-  return rowsSeen.has(r.first) || rowsSeen.has(r.last);
+  return !rowsAway.has(r.first) || !rowsAway.has(r.last);
 }
 
 /** Writes a table of unchanged shape: the rows `shown` (flags) now, the rest in the next task. */

@@ -644,3 +644,36 @@ fn the_braking_label_keeps_off_the_bb_to_grip_label() {
         "COM at 700 mm: baseline 30 mm above (SVG y down)"
     );
 }
+
+/// Source: crates/draw `view` (the rule). A drawing in a looser view box that still holds the fit
+/// differs from the fitted one only in the root's `viewBox` and the ground line drawn across it;
+/// a view box too loose for the fit is not kept.
+#[test]
+fn a_kept_view_box_changes_only_the_view_box_and_the_ground() {
+    let (o, n) = (full(), numbers());
+    let fitted = drawing(&scene(&o, &n));
+    let fit = fitted.view;
+    let looser = ViewBox {
+        min_x: fit.min_x - VIEW_STEP_MM,
+        min_y: fit.min_y - VIEW_STEP_MM,
+        width: fit.width + VIEW_SLACK_MM,
+        height: fit.height + VIEW_SLACK_MM,
+    };
+    let kept = drawing_in(&scene(&o, &n), Some(looser));
+    assert_eq!(kept.view, looser);
+    assert_eq!(kept.structure(), fitted.structure());
+    let (a, b) = (fitted.patch(), kept.patch());
+    assert_eq!(a.len(), b.len());
+    let differ: Vec<(&str, &str)> = a
+        .iter()
+        .zip(&b)
+        .filter(|(x, y)| x != y)
+        .map(|(x, _)| (x.0, x.1))
+        .collect();
+    assert_eq!(differ, [("svg", "viewBox"), ("ground", "points")]);
+    let too_loose = ViewBox {
+        width: looser.width + VIEW_STEP_MM,
+        ..looser
+    };
+    assert_eq!(drawing_in(&scene(&o, &n), Some(too_loose)).view, fit);
+}

@@ -3,8 +3,8 @@
 //!
 //! **Invariants:** a view box holds the whole bike and rider with at least the padding of
 //! [`fit`]; its edges are whole [`VIEW_STEP_MM`] steps; a kept view box is at most
-//! [`VIEW_SLACK_MM`] wider and taller than the fit, so the bike never shrinks on the screen by
-//! more than about a tenth.
+//! [`VIEW_SLACK_MM`] (100 mm) wider and taller than the fit, about 5 % of a full-size bike's
+//! fit, so the bike never shrinks on the screen by more than that.
 //!
 //! Why keep it: while a person edits, a drawing at one scale shows what moved, where a new fit
 //! after each edit would rescale everything and hide a 10 mm change. It is also cheaper in the
