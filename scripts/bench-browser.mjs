@@ -26,7 +26,7 @@
 import { gzipSync } from 'node:zlib';
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { startAll, openPage, ROOT } from '../tests/browser/harness.mjs';
-import { ownCoreProblem, isolate, throttleStarted } from './cores.mjs';
+import { ownCoreProblem, isolate, throttleStarted, throttleThreads } from './cores.mjs';
 
 const arg = process.argv.indexOf('--edits');
 const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
@@ -110,10 +110,11 @@ async function measure(env, situation, cores) {
   const cdp = await context.newCDPSession(page);
   await page.evaluate(loopInPage); // warm up
   const loopFree = await page.evaluate(loopInPage);
+  const before = throttleThreads();
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
   // After the throttle starts: its thread (which signals the main thread) gets real-time
   // priority in both kinds of run, and with `own` goes to the other core with the rest.
-  await throttleStarted();
+  await throttleStarted(before);
   const restore = isolate({ pin: cores === 'own' });
   const times = [[], [], []];
   let boxChanges = 0;

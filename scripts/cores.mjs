@@ -106,18 +106,22 @@ function isRenderer(pid) {
   }
 }
 
-/** Whether a renderer this process started has the throttle's thread (`CPUThrottlingTh`). */
-function throttleThreadRuns() {
-  return ownProcesses().some((pid) => isRenderer(pid) && threadsOf(pid).some((tid) => nameOf(pid, tid) === 'CPUThrottlingTh'));
+/** The throttle's threads (`CPUThrottlingTh`) in the renderers this process started, as ids. */
+export function throttleThreads() {
+  return new Set(ownProcesses().filter((pid) => isRenderer(pid))
+    .flatMap((pid) => threadsOf(pid).filter((tid) => nameOf(pid, tid) === 'CPUThrottlingTh')));
 }
 
 /**
- * Waits (up to `ms`) until the throttle's thread has started: Chromium answers the CDP call that
- * sets the throttle before the thread always exists. Call it before `isolate`.
+ * Waits (up to `ms`) until a throttle thread not in `before` (`throttleThreads()` taken before
+ * the CDP call that sets the throttle) has started: Chromium answers that call before the
+ * thread always exists, and a renderer of an earlier page may still be shutting down with its
+ * own. Call it before `isolate`.
  */
-export async function throttleStarted(ms = 3000) {
+export async function throttleStarted(before, ms = 3000) {
   const end = Date.now() + ms;
-  while (!throttleThreadRuns() && Date.now() < end) await new Promise((ok) => setTimeout(ok, 20));
+  const started = () => [...throttleThreads()].some((tid) => !before.has(tid));
+  while (!started() && Date.now() < end) await new Promise((ok) => setTimeout(ok, 20));
 }
 
 /**
