@@ -80,10 +80,11 @@ pub fn ring_id(anchor_key: &str) -> String {
 /// A whole drawing: the root's view box and title, and its elements back to front.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Drawing {
-    /// `min-x min-y width height`, 0.1 mm numbers: [`Drawing::view`] as the attribute.
-    pub view_box: String,
+    /// `min-x min-y width height`, 0.1 mm numbers: `view` as the attribute. Both are set
+    /// together, only by [`crate::drawing_in`] (so they cannot disagree).
+    pub(crate) view_box: String,
     /// The view box.
-    pub view: crate::ViewBox,
+    pub(crate) view: crate::ViewBox,
     /// The title (also the root's `aria-label`).
     pub title: String,
     /// The elements, back to front.
@@ -99,6 +100,16 @@ pub const TITLE_KEY: &str = "title";
 pub type Patch<'a> = (&'a str, &'static str, &'a str);
 
 impl Drawing {
+    /// The view box the drawing is in.
+    pub fn view(&self) -> crate::ViewBox {
+        self.view
+    }
+
+    /// The root's `viewBox` attribute: `min-x min-y width height`, 0.1 mm numbers.
+    pub fn view_box(&self) -> &str {
+        &self.view_box
+    }
+
     /// The SVG document (markup for `innerHTML` or a file).
     pub fn svg(&self) -> String {
         let mut doc = Document::new()

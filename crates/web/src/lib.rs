@@ -145,7 +145,7 @@ pub mod framewise_web_core {
 
     /// The view box of the drawing kept last (the one the page shows), if any.
     fn shown_view() -> Option<framewise_draw::ViewBox> {
-        LAST_DRAWING.with(|d| d.borrow().as_ref().map(|d| d.view))
+        LAST_DRAWING.with(|d| d.borrow().as_ref().map(framewise_draw::Drawing::view))
     }
 
     /// Keeps a drawing for [`last_drawing_svg`].
