@@ -118,23 +118,20 @@ mod tests {
     fn a_shown_box_stays_while_it_holds_the_fit_and_is_not_too_loose() {
         let fit = b(-600.0, -1900.0, 2000.0, 2100.0);
         assert_eq!(steady(None, fit), fit);
-        let wider = b(-650.0, -1900.0, 2100.0, 2100.0);
-        assert_eq!(steady(Some(wider), fit), wider);
-        let both = b(-700.0, -1950.0, 2100.0, 2200.0);
-        assert_eq!(steady(Some(both), fit), both);
-        let too_wide = b(-650.0, -1900.0, 2150.0, 2100.0);
-        assert_eq!(steady(Some(too_wide), fit), fit);
-        let too_tall = b(-600.0, -2050.0, 2000.0, 2250.0);
-        assert_eq!(steady(Some(too_tall), fit), fit);
-        let narrower = b(-600.0, -1900.0, 1950.0, 2100.0);
-        assert_eq!(steady(Some(narrower), fit), fit);
-        let shifted = b(-550.0, -1900.0, 2050.0, 2100.0);
-        assert_eq!(steady(Some(shifted), fit), fit);
-        assert_eq!(
-            steady(Some(fit), fit),
-            fit,
-            "the same box stays (idempotent)"
-        );
+        // (shown box, whether it stays)
+        let cases = [
+            ("the same box", fit, true),
+            ("wider", b(-650.0, -1900.0, 2100.0, 2100.0), true),
+            ("wider and taller", b(-700.0, -1950.0, 2100.0, 2200.0), true),
+            ("too wide", b(-650.0, -1900.0, 2150.0, 2100.0), false),
+            ("too tall", b(-600.0, -2050.0, 2000.0, 2250.0), false),
+            ("narrower", b(-600.0, -1900.0, 1950.0, 2100.0), false),
+            ("shifted", b(-550.0, -1900.0, 2050.0, 2100.0), false),
+        ];
+        for (name, shown, stays) in cases {
+            let want = if stays { shown } else { fit };
+            assert_eq!(steady(Some(shown), fit), want, "{name}");
+        }
     }
 
     #[test]
