@@ -34,7 +34,12 @@ export function createDrawingWriter(container, wasm, zoom) {
     const e = elements[i];
     if (!e) return;
     const attr = attrs[i];
-    if (attr === 'text') e.textContent = value;
+    if (attr === 'text') {
+      // Changing the text node's data keeps the node: replacing it (textContent) restyles it.
+      const t = e.firstChild;
+      if (t && t.nodeType === Node.TEXT_NODE && !t.nextSibling) t.data = value;
+      else e.textContent = value;
+    }
     else if (attr === 'viewBox') zoom.refit(value); // keeps a person's zoom
     else e.setAttribute(attr, value);
   }
