@@ -36,10 +36,14 @@ wireDefinitions(results, definitions);
 // The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;
 const formFields = () => (typed ??= readForm(form)); // share.fields() copies it
+// The number of the form the wasm module holds (wasm.page_form_seq(); 0: none): an edit of one
+// field sends only that field (crates/web/src/edit.rs). Code that fills the form resets it.
+let heldForm = 0;
 
 // Fills the form from a shared link; returns the link's field names the form has no input for.
 function writeForm(fields) {
   typed = null;
+  heldForm = 0;
   for (const c of form.elements) if (c.name) c.value = fields[c.name] ?? (c.tagName === 'SELECT' ? c.options[0]?.value ?? '' : '');
   return Object.keys(fields).filter((name) => !form.elements.namedItem(name));
 }
@@ -50,12 +54,19 @@ const share = initShare({ getFields: formFields, applyFields: writeForm, getView
 
 function update(event) {
   const typedIn = event?.target;
-  if (typed && typedIn?.name && typedIn.form === form) typed[typedIn.name] = typedIn.value;
+  const oneField = typed && typedIn?.name && typedIn.form === form;
+  if (oneField) typed[typedIn.name] = typedIn.value;
   share.settle(); // a link still to be made of the previous form
-  // share.fields(): the form plus values of an opened link that have no input here. One wasm
-  // call reads the form once for the tables, the drawing (made when written) and the share link
-  // (made in the next task).
-  const result = JSON.parse(wasm.evaluate_form_page(JSON.stringify(share.fields()), JSON.stringify(share.view())));
+  // One wasm call reads the form once for the tables, the drawing (made when written) and the
+  // share link (made in the next task): the edited field of the form it holds, or the whole
+  // form (share.fields(): the form plus values of an opened link that have no input here).
+  const view = JSON.stringify(share.view());
+  let answer = oneField && heldForm ? wasm.evaluate_field_page(heldForm, typedIn.name, typedIn.value, view) : 'null';
+  if (answer === 'null') {
+    answer = wasm.evaluate_form_page(JSON.stringify(share.fields()), view);
+    heldForm = wasm.page_form_seq();
+  }
+  const result = JSON.parse(answer);
   clearMessages();
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
@@ -74,6 +85,7 @@ function update(event) {
 
 function applySize(size) {
   typed = null;
+  heldForm = 0;
   for (const f of words.fields) {
     const key = f.name.startsWith('frame.') ? f.name.slice(6) : null;
     if (key) setField(form, f.name, size.frame?.[key] != null ? String(size.frame[key]) : '');

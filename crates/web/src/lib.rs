@@ -13,6 +13,9 @@ pub mod changes;
 // The page's per-edit work run for nothing once the page is idle (rehearse).
 pub mod rehearse;
 
+// The page's form kept between edits: an edit sends one field (evaluate_field_page).
+pub mod edit;
+
 // Not exported to the page (it never calls them; each export keeps its code in the module):
 // scenario JSON and the form without its link are evaluated by the native core functions
 // `framewise_web_core::evaluate_to_json` and `evaluate_form_to_json` (tests, CLI); the whole
@@ -28,6 +31,22 @@ pub mod rehearse;
 #[wasm_bindgen]
 pub fn evaluate_form_page(fields_json: &str, view_json: &str) -> String {
     framewise_web_core::evaluate_form_page_json(fields_json, view_json)
+}
+
+/// [`evaluate_form_page`] of the form the last [`evaluate_form_page`] call read, numbered
+/// `form` by [`page_form_seq`], with the field `name` now `value`: the page's call on an edit
+/// of one field (it sends neither the other fields nor has them read again). The same text as
+/// [`evaluate_form_page`] of the whole edited form; `null` when the module no longer holds that
+/// form (then the page sends the whole form). See [`edit`].
+#[wasm_bindgen]
+pub fn evaluate_field_page(form: u32, name: &str, value: &str, view_json: &str) -> String {
+    edit::evaluate_field_page_json(form, name, value, view_json)
+}
+
+/// The number of the form the module holds for [`evaluate_field_page`] (0: none).
+#[wasm_bindgen]
+pub fn page_form_seq() -> u32 {
+    edit::form_seq()
 }
 
 /// The share link fragment (`#…`) of the last [`evaluate_form_page`] call's form and view, or
@@ -325,38 +344,46 @@ pub mod framewise_web_core {
 
     /// [`evaluate_form_linked_to_json`], run as `run` says.
     pub(crate) fn linked(fields_json: &str, view_json: &str, run: Run, when: Link) -> String {
+        match read_form(fields_json) {
+            Ok(fields) => linked_fields(&fields, view_json, run, when),
+            Err(json) => json,
+        }
+    }
+
+    /// [`linked`] of a form already read (field name → typed text).
+    pub(crate) fn linked_fields(
+        fields: &std::collections::BTreeMap<String, String>,
+        view_json: &str,
+        run: Run,
+        when: Link,
+    ) -> String {
         // Only the page's own call remembers its form for `last_link`; a rehearsal keeps nothing.
         let later = when == Link::Later && run == Run::Page;
         if later {
             LINKABLE.with(|l| *l.borrow_mut() = None);
         }
-        match read_form(fields_json) {
-            Ok(fields) => {
-                let (mut scenario, errors) = framewise_formats::scenario_from_form(&fields);
-                let view = if view_json.trim().is_empty() {
-                    Some(scenario.view.clone())
-                } else {
-                    serde_json::from_str(view_json).ok()
-                };
-                let linkable = match view {
-                    Some(view) if errors.is_empty() => {
-                        scenario.view = view;
-                        true
-                    }
-                    _ => false,
-                };
-                let link = match when {
-                    Link::Now => Some(linkable.then(|| link_of(&scenario)).flatten()),
-                    Link::Later => None,
-                };
-                let json = form_result_json(&scenario, errors, link, true, run);
-                if later && linkable {
-                    LINKABLE.with(|l| *l.borrow_mut() = Some(scenario));
-                }
-                json
+        let (mut scenario, errors) = framewise_formats::scenario_from_form(fields);
+        let view = if view_json.trim().is_empty() {
+            Some(scenario.view.clone())
+        } else {
+            serde_json::from_str(view_json).ok()
+        };
+        let linkable = match view {
+            Some(view) if errors.is_empty() => {
+                scenario.view = view;
+                true
             }
-            Err(json) => json,
+            _ => false,
+        };
+        let link = match when {
+            Link::Now => Some(linkable.then(|| link_of(&scenario)).flatten()),
+            Link::Later => None,
+        };
+        let json = form_result_json(&scenario, errors, link, true, run);
+        if later && linkable {
+            LINKABLE.with(|l| *l.borrow_mut() = Some(scenario));
         }
+        json
     }
 
     /// When the share link is made: in the same call (the result's `link` member) or later by
@@ -383,9 +410,17 @@ pub mod framewise_web_core {
     }
 
     /// [`evaluate_form_linked_to_json`] without the `link` member: the link is made later by
-    /// [`last_link`]. The page's call on every edit.
+    /// [`last_link`]. The page's call for a whole form; the form is kept for
+    /// [`crate::edit::evaluate_field_page_json`] (a form that does not read keeps none).
     pub fn evaluate_form_page_json(fields_json: &str, view_json: &str) -> String {
-        linked(fields_json, view_json, Run::Page, Link::Later)
+        match read_form(fields_json) {
+            Ok(fields) => crate::edit::keep_and_evaluate(fields, view_json),
+            Err(json) => {
+                crate::edit::forget();
+                LINKABLE.with(|l| *l.borrow_mut() = None);
+                json
+            }
+        }
     }
 
     /// The share link fragment of the last [`evaluate_form_page_json`] call, or empty text when
