@@ -77,15 +77,33 @@ pub fn last_drawing_changes(shown: u32) -> String {
                 patch: &patch,
             }),
         };
-        *sent = Some(Sent {
-            seq,
-            structure: structure.clone(),
-            values: patch.iter().map(|p| p.2.to_string()).collect(),
-        });
+        remember(&mut sent, seq, &structure, &patch);
         json.unwrap_or_else(|_| "null".into())
     });
     keep_drawing(d);
     json
+}
+
+/// Records the answer just sent. The values of the same structure are overwritten in place
+/// (each keeps its allocation: an edit changes a few of about a hundred), else made afresh.
+fn remember(sent: &mut Option<Sent>, seq: u32, structure: &str, patch: &[framewise_draw::Patch]) {
+    match sent {
+        Some(last) if last.structure == structure && last.values.len() == patch.len() => {
+            last.seq = seq;
+            for (was, p) in last.values.iter_mut().zip(patch) {
+                if was.as_str() != p.2 {
+                    p.2.clone_into(was);
+                }
+            }
+        }
+        _ => {
+            *sent = Some(Sent {
+                seq,
+                structure: structure.to_string(),
+                values: patch.iter().map(|p| p.2.to_string()).collect(),
+            });
+        }
+    }
 }
 
 #[cfg(test)]
