@@ -88,7 +88,7 @@ fn numbers() -> Numbers {
         ("bb_to_grip_mm", 848.0),
     ]
     .into_iter()
-    .map(|(k, v)| (k.to_string(), v))
+    .map(|(k, v)| (k.into(), v))
     .collect()
 }
 

@@ -52,8 +52,8 @@ fn xy(p: Point2<f64>) -> [f64; 2] {
     [p.x, p.y]
 }
 
-fn put(n: &mut Numbers, k: &str, v: f64) {
-    n.insert(k.to_string(), v);
+fn put(n: &mut Numbers, k: &'static str, v: f64) {
+    n.insert(k.into(), v);
 }
 
 fn warn(r: &mut BikeReport, code: &str, msg: String) {

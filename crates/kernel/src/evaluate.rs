@@ -356,7 +356,7 @@ fn evaluate_bike(
 fn to_numbers(g: &Geometry) -> Numbers {
     g.measure()
         .into_iter()
-        .map(|(k, v)| (k.to_string(), v))
+        .map(|(k, v)| (k.into(), v))
         .collect()
 }
 

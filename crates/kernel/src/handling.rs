@@ -65,8 +65,8 @@ pub fn statics(
     }
     let (to_rear, to_front) = (com.x - s.rear_x, s.front_x - com.x);
     let mut n = Numbers::new();
-    let mut put = |k: &str, v: f64| {
-        n.insert(k.to_string(), v);
+    let mut put = |k: &'static str, v: f64| {
+        n.insert(k.into(), v);
     };
     put("com_x_mm", com.x);
     put("com_y_mm", com.y);

@@ -24,8 +24,10 @@ pub struct Report {
     pub errors: Vec<FieldError>,
 }
 
-/// Named numbers, keyed with their unit suffix.
-pub type Numbers = BTreeMap<String, f64>;
+/// Named numbers, keyed with their unit suffix. Every key the kernel writes is a fixed name,
+/// borrowed: a report of about 150 numbers allocates no key (the page evaluates one on every
+/// edit, docs/BENCHMARKS.md).
+pub type Numbers = BTreeMap<std::borrow::Cow<'static, str>, f64>;
 
 /// Everything about one bike.
 #[derive(Debug, Clone, PartialEq, Serialize)]

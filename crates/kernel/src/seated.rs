@@ -52,8 +52,8 @@ fn unreachable(what: &str, r: Reach) -> Warning {
     )
 }
 
-fn put(n: &mut Numbers, key: &str, v: f64) {
-    n.insert(key.to_string(), v);
+fn put(n: &mut Numbers, key: &'static str, v: f64) {
+    n.insert(key.into(), v);
 }
 
 /// Solves the seated posture.

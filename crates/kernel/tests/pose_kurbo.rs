@@ -145,7 +145,7 @@ fn scenario(changes: serde_json::Value) -> Scenario {
     .unwrap()
 }
 
-fn compare(label: &str, got: &BTreeMap<String, f64>, want: &BTreeMap<&str, f64>) {
+fn compare(label: &str, got: &framewise_kernel::report::Numbers, want: &BTreeMap<&str, f64>) {
     for (k, w) in want {
         let g = got.get(*k).copied().unwrap_or(f64::NAN);
         assert!(

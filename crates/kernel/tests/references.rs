@@ -5,7 +5,7 @@ use framewise_kernel::{evaluate, Scenario, WheelSpec};
 
 /// Evaluates one bike with a diameter-override front wheel of radius `r` (so the outer radius is
 /// exactly the table's R), head angle `h`, offset `o`; returns the report's derived block.
-fn derived(r: f64, h: f64, o: f64) -> std::collections::BTreeMap<String, f64> {
+fn derived(r: f64, h: f64, o: f64) -> framewise_kernel::report::Numbers {
     let json = serde_json::json!({
         "version": 1,
         "bikes": [{
