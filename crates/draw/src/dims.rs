@@ -3,7 +3,7 @@
 //! shows them). The lines are one part; each label keeps its own group `dim dim-{key}`.
 
 use crate::model::Node;
-use crate::shapes::{num, text, PathData};
+use crate::shapes::{join, num, text, PathData};
 use framewise_kernel::glossary::label;
 use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::Outline;
@@ -121,9 +121,9 @@ pub fn dimensions(o: &Outline, n: &Numbers) -> Node {
         let words = words_of(dim.key, *v);
         lines = lines.line(dim.a, dim.b);
         labels.push(Node::Group {
-            class: format!("dim dim-{}", dim.key),
+            class: join(&["dim dim-", dim.key]),
             children: vec![text(
-                format!("dim-{}", dim.key),
+                join(&["dim-", dim.key]),
                 dim.at,
                 words,
                 dim.anchor,

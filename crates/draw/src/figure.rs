@@ -1,7 +1,7 @@
 //! The rider figure and the centre of mass with its lines to the tyre contacts.
 
 use crate::model::Node;
-use crate::shapes::{mid, num, text, PathData};
+use crate::shapes::{join, mid, num, text, PathData};
 use crate::Limits;
 use framewise_kernel::report::{Leg, RiderFigure, Xy};
 use framewise_kernel::Outline;
@@ -20,7 +20,7 @@ fn foot(l: &Leg) -> [Xy; 5] {
 /// and the hip joint. One colour under one group opacity, so merging limbs changes nothing seen.
 pub fn rider(f: &RiderFigure, posture: &str) -> Node {
     let [near, far] = f.legs;
-    let k = |name: &str| format!("{posture}-{name}");
+    let k = |name: &str| join(&[posture, "-", name]);
     let far_leg = Node::Group {
         class: "leg far".into(),
         children: vec![
@@ -84,7 +84,7 @@ fn braking_label_y(c: Xy, o: &Outline) -> f64 {
 /// The centre of mass, its lines to both contact points, and the limits written on them (at
 /// positions on a [`LABEL_STEP_MM`] grid).
 pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
-    let k = |name: &str| format!("{posture}-{name}");
+    let k = |name: &str| join(&[posture, "-", name]);
     let mut kids = vec![
         PathData::new()
             .line(c, o.rear_contact)

@@ -141,7 +141,7 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
             children.push(figure::com(c, o, &limits, posture));
         }
         nodes.push(Node::Group {
-            class: format!("posture {posture}"),
+            class: shapes::join(&["posture ", posture]),
             children,
         });
     }

@@ -3,7 +3,7 @@
 //! circles of one class are one part (one polyline each).
 
 use crate::model::Node;
-use crate::shapes::PathData;
+use crate::shapes::{join, PathData};
 use framewise_kernel::report::Xy;
 use framewise_kernel::Outline;
 
@@ -31,22 +31,20 @@ impl Parts<'_> {
             Some(all) if !name.starts_with("tyre") => self.merged = Some(all.append(d)),
             merged => {
                 self.merged = merged;
-                let key = format!("{}-{name}", self.layer);
+                let key = join(&[self.layer, "-", name]);
                 self.out.push(d.node(key, class));
             }
         }
     }
 
-    fn crank(&mut self, pedal: Xy, side: &str) {
+    /// One crank and its pedal; `names`: the crank's name and class, the pedal's name and class.
+    fn crank(&mut self, pedal: Xy, names: [&str; 4]) {
         let bb = [0.0, 0.0];
+        let [crank, crank_class, pedal_name, pedal_class] = names;
+        self.add(crank, crank_class, PathData::new().line(bb, pedal));
         self.add(
-            &format!("crank-{side}"),
-            &format!("crank {side}"),
-            PathData::new().line(bb, pedal),
-        );
-        self.add(
-            &format!("pedal-{side}"),
-            &format!("pedal {side}"),
+            pedal_name,
+            pedal_class,
             PathData::new().line(
                 [pedal[0] - PEDAL_HALF, pedal[1]],
                 [pedal[0] + PEDAL_HALF, pedal[1]],
@@ -56,16 +54,22 @@ impl Parts<'_> {
 
     fn wheels(&mut self, o: &Outline) {
         let ends = [
-            ("rear", o.rear_axle, o.rear_radius, o.rear_rim_radius),
-            ("front", o.front_axle, o.front_radius, o.front_rim_radius),
+            (
+                ["tyre-rear", "tyre rear"],
+                o.rear_axle,
+                o.rear_radius,
+                o.rear_rim_radius,
+            ),
+            (
+                ["tyre-front", "tyre front"],
+                o.front_axle,
+                o.front_radius,
+                o.front_rim_radius,
+            ),
         ];
         // A tyre per wheel (the page and its tests count them); rims and hubs merged.
-        for (end, axle, r, _) in ends {
-            self.add(
-                &format!("tyre-{end}"),
-                &format!("tyre {end}"),
-                PathData::new().circle(axle, r),
-            );
+        for ([name, class], axle, r, _) in ends {
+            self.add(name, class, PathData::new().circle(axle, r));
         }
         let mut rims = PathData::new();
         let mut hubs = PathData::new();
@@ -136,7 +140,10 @@ pub fn bike(o: &Outline, layer: &str) -> Node {
         merged: ghost.then(PathData::new),
     };
     if let Some(c) = &o.cranks {
-        p.crank(c.pedal_far, "far");
+        p.crank(
+            c.pedal_far,
+            ["crank-far", "crank far", "pedal-far", "pedal far"],
+        );
     }
     p.wheels(o);
     p.frame(o);
@@ -144,13 +151,16 @@ pub fn bike(o: &Outline, layer: &str) -> Node {
     p.seat(o);
     p.add("bb", "bb", PathData::new().circle([0.0, 0.0], BB_R));
     if let Some(c) = &o.cranks {
-        p.crank(c.pedal_near, "near");
+        p.crank(
+            c.pedal_near,
+            ["crank-near", "crank near", "pedal-near", "pedal near"],
+        );
     }
     if let Some(all) = p.merged.take() {
-        p.out.push(all.node(format!("{layer}-outline"), "outline"));
+        p.out.push(all.node(join(&[layer, "-outline"]), "outline"));
     }
     Node::Group {
-        class: format!("bike {layer}"),
+        class: join(&["bike ", layer]),
         children: p.out,
     }
 }
