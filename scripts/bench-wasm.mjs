@@ -1,5 +1,6 @@
-// Times the page's wasm calls `evaluate_form_page` (older builds: `evaluate_form_linked`) and
-// the drawing (`drawing_changes(0)`: the whole patch list) in Node's V8 (the engine of the page's Chromium), for one or more builds of
+// Times the page's wasm calls as the page makes them on an edit (`evaluate_field_page`; older
+// builds: the whole form as JSON text to `evaluate_form_page` or `evaluate_form_linked`) and the
+// drawing (`drawing_changes` since the answer applied last) in Node's V8 (the engine of the page's Chromium), for one or more builds of
 // web/pkg side by side: each round runs a batch of 20 edits through every build in turn, so all
 // builds see the same machine load.
 // Edits: "frame" = reach or head angle (the frame is solved again), "other" = stem, rider height,
@@ -29,30 +30,38 @@ const kinds = {
 };
 const warm = 5;
 const times = {};
+// Per build: the form the page holds (edits accumulate, as a person's do), the number of the form
+// the module holds (builds with `evaluate_field_page`) and the drawing answer applied last.
+const state = builds.map(() => ({ form: { ...fields }, held: 0, shown: 0 }));
 let i = 0;
 for (let r = 0; r < rounds + warm; r++) {
   for (const [kind, names] of Object.entries(kinds)) {
-    const texts = [];
+    const edits = [];
     for (let j = 0; j < 20; j++, i++) {
       const name = names[i % names.length];
-      const f = { ...fields, [name]: String((parseFloat(fields[name]) || 0) + 1 + (i % 5)) };
-      texts.push(JSON.stringify(f));
+      edits.push([name, String((parseFloat(fields[name]) || 0) + 1 + (i % 5))]);
     }
     builds.forEach((w, k) => {
-      // "evaluate": the handler's call (`evaluate_form_page`, which leaves the link to the next
-      // task; older builds: `evaluate_form_linked`, with the link); "+ drawing": with the
-      // drawing the page asks for when the drawing is on the screen (`drawing_changes(0)` or
-      // `drawing_patch`, in builds that have them; older builds made the drawing inside
-      // `evaluate_form_linked`).
+      // "evaluate": the handler's call as the page makes it: one field to the form the module
+      // holds (`evaluate_field_page`), else the whole form written as JSON text here
+      // (`evaluate_form_page`; older builds: `evaluate_form_linked`, with the link);
+      // "+ drawing": with the drawing's changes since the answer applied last
+      // (`drawing_changes(shown)`, read as the page reads it) or `drawing_patch` (older builds;
+      // the oldest made the drawing inside `evaluate_form_linked`).
+      const st = state[k];
       for (const withDrawing of [false, true]) {
         const t0 = process.hrtime.bigint();
-        for (const t of texts) {
-          if (w.evaluate_form_page) w.evaluate_form_page(t, view);
-          else w.evaluate_form_linked(t, view);
-          if (withDrawing && w.drawing_changes) w.drawing_changes(0);
+        for (const [name, value] of edits) {
+          st.form[name] = value;
+          let answer = st.held ? w.evaluate_field_page(st.held, name, value, view) : 'null';
+          if (answer === 'null' && w.evaluate_form_page) {
+            answer = w.evaluate_form_page(JSON.stringify(st.form), view);
+            if (w.page_form_seq) st.held = w.page_form_seq();
+          } else if (answer === 'null') w.evaluate_form_linked(JSON.stringify(st.form), view);
+          if (withDrawing && w.drawing_changes) st.shown = JSON.parse(w.drawing_changes(st.shown))?.seq ?? 0;
           else if (withDrawing && w.drawing_patch) w.drawing_patch();
         }
-        const ms = Number(process.hrtime.bigint() - t0) / 1e6 / texts.length;
+        const ms = Number(process.hrtime.bigint() - t0) / 1e6 / edits.length;
         const what = withDrawing ? 'evaluate + drawing' : 'evaluate';
         if (r >= warm) (times[`${dirs[k]} ${kind} ${what}`] ??= []).push(ms);
       }
