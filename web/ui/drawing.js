@@ -44,11 +44,17 @@ export function createDrawingWriter(container, wasm, zoom) {
     else e.setAttribute(attr, value);
   }
 
-  function write(i, value) {
+  /** Which layers the view hides now (read once per answer, not once per value). */
+  function hiddenNow() {
+    const c = container.classList;
+    return Object.fromEntries(Object.entries(HIDDEN).map(([layer, hides]) => [layer, hides(c)]));
+  }
+
+  function write(i, value, hidden) {
     const layer = layers[i];
-    if (layer && HIDDEN[layer](container.classList)) waiting.set(i, value);
+    if (layer && hidden[layer]) waiting.set(i, value);
     else {
-      waiting.delete(i);
+      if (waiting.size) waiting.delete(i);
       set(i, value);
     }
   }
@@ -80,9 +86,10 @@ export function createDrawingWriter(container, wasm, zoom) {
     const d = JSON.parse(wasm.drawing_changes(shownSeq));
     if (!d) return;
     shownSeq = 0; // until this answer is applied
-    if (d.changes) for (const [i, value] of d.changes) write(i, value);
+    const hidden = hiddenNow();
+    if (d.changes) for (const [i, value] of d.changes) write(i, value, hidden);
     else if (d.structure !== shownStructure) rebuild(d);
-    else d.patch.forEach(([, , value], i) => write(i, value));
+    else d.patch.forEach(([, , value], i) => write(i, value, hidden));
     shownSeq = d.seq;
   };
 }
