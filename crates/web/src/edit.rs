@@ -38,7 +38,8 @@ pub(crate) fn keep_and_evaluate(fields: BTreeMap<String, String>, view_json: &st
             let kept = f.insert(Kept { seq, fields });
             linked_fields(&kept.fields, view_json, Run::Page, Link::Later)
         }
-        // Not reached (nothing else borrows the form): evaluated without keeping it.
+        // Not reached (nothing else borrows the form): evaluated without keeping it; the
+        // number is spent, and `form_seq` answers that of the form still held (or 0).
         Err(_) => linked_fields(&fields, view_json, Run::Page, Link::Later),
     })
 }

@@ -5,11 +5,13 @@
 //! work took about 1.5–1.8 ms over the first 50 edits and 0.7–0.9 ms after 300, and a few
 //! hundred rehearsals at load bring the first real edit to the faster figure.
 //!
-//! Invariant: a rehearsal changes nothing the page sees. It runs the same code as an edit
-//! (read the form, solve the frame, evaluate, write the report and the link, make and write
-//! the drawing) but solves without the page's memo and keeps neither the report nor the
-//! drawing, so [`crate::drawing_changes`], [`crate::drawing_svg`] and the memo answer exactly
-//! as before it.
+//! Invariant: a rehearsal changes nothing the page sees. It runs the work of an edit (solve the
+//! frame, evaluate, write the report and the link, make and write the drawing) on the whole
+//! form, read from JSON text as a whole-form call reads it (an edit of one field changes the
+//! form the module holds instead, [`crate::edit`]: a few lines apart from the same
+//! evaluation). It solves without the page's memo and keeps neither the report, the drawing
+//! nor the form, so [`crate::drawing_changes`], [`crate::drawing_svg`],
+//! [`crate::page_form_seq`] and the memo answer exactly as before it.
 
 use crate::framewise_web_core::{linked, Link, Run};
 
@@ -34,6 +36,8 @@ mod tests {
         let view = r#"{"posture":"standing"}"#;
         let other_call = evaluate_form_linked_to_json(&other, view).len();
 
+        let held = crate::framewise_web_core::evaluate_form_page_json(&mine, "");
+        let held_seq = crate::edit::form_seq();
         let edit = evaluate_form_linked_to_json(&mine, "");
         let drawing = last_drawing_patch();
         let first: serde_json::Value =
@@ -51,6 +55,10 @@ mod tests {
             serde_json::from_str(&last_drawing_changes(seq)).unwrap_or_default();
         assert_eq!(next["changes"].as_array().map(Vec::len), Some(0), "{next}");
         assert_eq!(evaluate_form_linked_to_json(&mine, ""), edit);
+        // The form the module holds for one-field edits is the page's, still.
+        assert_eq!(crate::edit::form_seq(), held_seq);
+        let again = crate::edit::evaluate_field_page_json(held_seq, "setup.stem_mm", "45", "");
+        assert_eq!(again, held);
         // A form that does not read is rehearsed without a throw.
         assert!(rehearse("not json", "") > 0);
     }
