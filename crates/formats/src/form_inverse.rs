@@ -79,16 +79,29 @@ fn to_map<T: Serialize>(value: &T) -> Map<String, Value> {
     }
 }
 
-/// Numbers whose key has a unit the form reads (`_mm`, `_deg`, `_pct`, `_kg`) become fields.
+/// Numbers whose key has a unit the form reads (`_mm`, `_deg`, `_pct`, `_kg`) become fields, and
+/// so do words of a choice field the form has (`setup.bar_type`: `flat` or `drop`).
 fn numbers(out: &mut FormView, group: &str, values: &Map<String, Value>) {
     for (key, v) in values {
-        match (Quantity::from_key(key), v.as_f64()) {
-            (Some(_), Some(x)) => {
-                out.fields.insert(format!("{group}.{key}"), number_text(x));
+        let name = format!("{group}.{key}");
+        let text = match v {
+            Value::Number(n) if Quantity::from_key(key).is_some() => n.as_f64().map(number_text),
+            Value::String(word) if is_choice(&name, word) => Some(word.clone()),
+            _ => None,
+        };
+        match text {
+            Some(text) => {
+                out.fields.insert(name, text);
             }
-            _ => out.omitted.push(format!("{group}.{key}")),
+            None => out.omitted.push(name),
         }
     }
+}
+
+/// Whether the form has a choice field `name` that allows `word`.
+fn is_choice(name: &str, word: &str) -> bool {
+    crate::fields::field(name)
+        .is_some_and(|f| f.kind == crate::fields::Kind::Choice && f.choices.contains(&word))
 }
 
 fn wheels(out: &mut FormView, prefix: &str, w: &WheelsInput) {
@@ -139,16 +152,33 @@ mod tests {
         assert_eq!(back, s);
     }
 
+    /// Source: the module's contract (every value the form can hold reads back the same). The
+    /// bar type and the hand position are choices of the page's form: a drop bar opened from a
+    /// link stays a drop bar (it came back as the form's first choice, a flat bar).
+    #[test]
+    fn the_form_holds_the_bar_type_and_the_hand_position() {
+        let mut s = demo();
+        s.bikes[0].setup.bar_type = Some("drop".into());
+        s.bikes[0].setup.hand_position = Some("drops".into());
+        let v = form_view(&s);
+        assert_eq!(v.fields["setup.bar_type"], "drop");
+        assert_eq!(v.fields["setup.hand_position"], "drops");
+        assert!(v.omitted.is_empty(), "{:?}", v.omitted);
+        let (back, errors) = scenario_from_form(&v.fields);
+        assert!(errors.is_empty(), "{errors:?}");
+        assert_eq!(back, s);
+    }
+
     #[test]
     fn values_the_form_cannot_hold_are_listed_not_guessed() {
         let mut s = demo();
         s.bikes.push(s.bikes[0].clone());
         s.bikes[0].wheels.front = Some(WheelSpec::Diameter { diameter_mm: 740.0 });
-        s.bikes[0].setup.bar_type = Some("drop".into());
+        s.bikes[0].setup.hand_position = Some("aero".into()); // not a word the form allows
         let v = form_view(&s);
         assert_eq!(v.bikes, 2);
         assert!(!v.fields.contains_key("wheels.front"));
-        for path in ["wheels.front", "setup.bar_type", "bikes[1]"] {
+        for path in ["wheels.front", "setup.hand_position", "bikes[1]"] {
             assert!(
                 v.omitted.iter().any(|p| p == path),
                 "{path}: {:?}",
