@@ -50,18 +50,19 @@ pub fn page_form_seq() -> u32 {
 }
 
 /// The share link fragment (`#…`) of the last [`evaluate_form_page`] or
-/// [`evaluate_field_page`] call's form and view, or empty text when a field did not read, the view did not read or the link cannot hold a value.
+/// [`evaluate_field_page`] call's form and view, or empty text when a field did not read, the
+/// view did not read or the link cannot hold a value.
 #[wasm_bindgen]
 pub fn last_link() -> String {
     framewise_web_core::last_link()
 }
 
 /// The drawing of the last [`evaluate_form_page`] or [`evaluate_field_page`] call that
-/// evaluated, as only what changed
-/// since the drawing the page shows: `shown` is the `seq` of the last answer the page applied
-/// (0 for none). JSON text: `{seq, structure, changes: [[index, value], …]}` (indexes into the
-/// patch list) when `shown` is the last answer and the structure is the same, else
-/// `{seq, structure, patch}` (the whole list); `null` before any evaluation. See [`changes`].
+/// evaluated, as only what changed since the drawing the page shows: `shown` is the `seq` of
+/// the last answer the page applied (0 for none). JSON text:
+/// `{seq, structure, changes: [[index, value], …]}` (indexes into the patch list) when `shown`
+/// is the last answer and the structure is the same, else `{seq, structure, patch}` (the whole
+/// list); `null` before any evaluation. See [`changes`].
 #[wasm_bindgen]
 pub fn drawing_changes(shown: u32) -> String {
     changes::last_drawing_changes(shown)
@@ -425,7 +426,8 @@ pub mod framewise_web_core {
     }
 
     /// The share link fragment of the last [`evaluate_form_page_json`] or
-    /// [`crate::edit::evaluate_field_page_json`] call, or empty text when a field did not read, the view did not read or the link cannot hold a value.
+    /// [`crate::edit::evaluate_field_page_json`] call, or empty text when a field did not read,
+    /// the view did not read or the link cannot hold a value.
     pub fn last_link() -> String {
         LINKABLE.with(|l| l.borrow().as_ref().and_then(link_of).unwrap_or_default())
     }
