@@ -510,6 +510,43 @@ fn fewer_values_than_sizes_are_read_from_the_left_and_said() {
     assert!(has_note(&c, "Stack", "2 values for 3 sizes"));
 }
 
+/// A PDF copy with single spaces loses a blank cell's place: "Chainstay 435 440" under three
+/// sizes may be S and M or M and L. The import asks (default: the first sizes, read from the
+/// left) and an answer moves the values under the last sizes. A chart whose cells keep their
+/// places (tabs) does not ask.
+#[test]
+fn a_short_row_without_places_asks_which_sizes_it_belongs_to() {
+    let text = "Size S M L\nReach 430 455 480\nStack 611 620 629\nChainstay 435 440\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    let q = c.questions.iter().find(|q| q.row == "Chainstay").unwrap();
+    assert_eq!(q.options, ["the first 2 sizes", "the last 2 sizes"]);
+    assert!(
+        q.message
+            .starts_with("\"Chainstay\" gives 2 values for 3 sizes"),
+        "{}",
+        q.message
+    );
+    assert_eq!(q.chosen, "the first 2 sizes");
+    let chainstay = row(&c, "chainstay_mm");
+    assert_eq!(chainstay[..2], [435.0, 440.0]);
+    assert!(chainstay[2].is_nan(), "{chainstay:?}");
+    assert_eq!(c.questions.len(), 1, "{:?}", c.questions);
+
+    let answers: Answers = [(q.id.clone(), "the last 2 sizes".to_string())]
+        .into_iter()
+        .collect();
+    let c = import_chart_with(text, &answers).unwrap();
+    let chainstay = row(&c, "chainstay_mm");
+    assert!(chainstay[0].is_nan(), "{chainstay:?}");
+    assert_eq!(chainstay[1..], [435.0, 440.0]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+
+    let tabs = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nChainstay\t435\t440\n").unwrap();
+    assert!(tabs.questions.is_empty(), "{:?}", tabs.questions);
+    assert!(has_note(&tabs, "Chainstay", "read from the left"));
+}
+
 #[test]
 fn pdf_single_spaces_sizes_as_rows() {
     let c = chart("15_pdf_single_spaces_rows.txt");

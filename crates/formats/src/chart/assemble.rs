@@ -57,7 +57,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         return Err(ChartError::TooManySizes { count: width - 1 });
     }
     repair_short_rows(&mut table);
-    let table = orient(table, &mut log)?;
+    let (table, across) = orient(table, &mut log)?;
     let (table, units_col) = label_first(table, &mut log)?;
     let header = find_header(&table);
     let value_count = table
@@ -102,7 +102,14 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
             }
         })
         .collect();
-    fill(&mut sizes, rows, global_unit, grid.decimal_comma, &mut log);
+    // A short row of a chart with sizes as columns whose cells lost their places (single
+    // spaces) does not say which sizes it skips: the person is asked.
+    let read = super::rows::Reading {
+        global: global_unit,
+        decimal_comma: grid.decimal_comma,
+        short_rows_ask: !grid.placed && !across,
+    };
+    fill(&mut sizes, rows, read, &mut log);
     drop_empty_sizes(&mut sizes, &header_cells, &mut log);
     Ok(ChartImport {
         sizes,
@@ -255,7 +262,8 @@ fn measurement(cell: &str) -> bool {
 }
 
 /// Sizes as rows (labels across the top) are transposed to sizes as columns.
-fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<Vec<Vec<String>>, ChartError> {
+/// The table with sizes as columns, and whether it was turned (the sizes ran down the side).
+fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<(Vec<Vec<String>>, bool), ChartError> {
     let col_best = (0..3)
         .map(|c| {
             table
@@ -272,7 +280,7 @@ fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<Vec<Vec<String>>, Ch
         .max()
         .unwrap_or(0);
     if row_best <= col_best {
-        return Ok(table);
+        return Ok((table, false));
     }
     if table.len() > MAX_SIZES + 4 {
         return Err(ChartError::TooManySizes {
@@ -284,7 +292,7 @@ fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<Vec<Vec<String>>, Ch
         "the measurements run across the top, so each row was read as one size".into(),
     );
     let width = table.iter().map(Vec::len).max().unwrap_or(0);
-    Ok((0..width)
+    let turned = (0..width)
         .map(|c| {
             let mut col: Vec<String> = table
                 .iter()
@@ -295,7 +303,8 @@ fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<Vec<Vec<String>>, Ch
             }
             col
         })
-        .collect())
+        .collect();
+    Ok((turned, true))
 }
 
 type Units = Vec<Option<Mark>>;

@@ -38,6 +38,10 @@ pub struct Grid {
     pub sep: Sep,
     /// Whether the chart writes decimal commas (then `1.180` reads as 1180).
     pub decimal_comma: bool,
+    /// Whether each cell's place in its line is known: a separator marks every cell, or the
+    /// values stand in aligned columns. Single spaces or ragged columns lose a blank cell's
+    /// place, so a row with fewer values than sizes does not say which sizes it skips.
+    pub placed: bool,
 }
 
 /// Splits the text. `lines` are the cleaned, non-blank lines.
@@ -60,9 +64,7 @@ pub fn split(lines: &[String]) -> Grid {
         })
         .collect();
     let mut rows = rows;
-    if sep == Sep::Spaces {
-        align_values(lines, &mut rows);
-    }
+    let placed = sep != Sep::Spaces || align_values(lines, &mut rows);
     let decimal_comma = rows
         .iter()
         .flat_map(|r| r.cells.iter())
@@ -71,6 +73,7 @@ pub fn split(lines: &[String]) -> Grid {
         rows,
         sep,
         decimal_comma,
+        placed,
     }
 }
 
@@ -298,8 +301,8 @@ fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
 /// values is aligned (runs of two or more spaces) and the values of all lines fall into
 /// columns that no two values of one line share, a line's missing columns become empty cells,
 /// so each value stays under its own size. Anything less regular is left as it was (the rows
-/// are then read from the left, and the import says so).
-fn align_values(lines: &[String], rows: &mut [Row]) {
+/// are then read from the left, and the import says so). Returns whether the lines are aligned.
+fn align_values(lines: &[String], rows: &mut [Row]) -> bool {
     // Per row: the index of its first value cell (the values run to the end) and their spans.
     let mut valued: Vec<Option<(usize, Vec<Span>)>> = Vec::with_capacity(rows.len());
     for (line, row) in lines.iter().zip(rows.iter()) {
@@ -310,10 +313,10 @@ fn align_values(lines: &[String], rows: &mut [Row]) {
         };
         let tail = row.cells.get(first..).unwrap_or_default();
         if !line.contains("  ") || !tail.iter().all(|c| is_value_token(c)) {
-            return;
+            return false;
         }
         let Some(spans) = cell_spans(line, &row.cells) else {
-            return;
+            return false;
         };
         valued.push(Some((
             first,
@@ -342,10 +345,10 @@ fn align_values(lines: &[String], rows: &mut [Row]) {
             continue;
         };
         let Some(cols) = spans.iter().map(column_of).collect::<Option<Vec<usize>>>() else {
-            return;
+            return false;
         };
         if cols.windows(2).any(|w| matches!(w, [a, b] if a >= b)) {
-            return; // two values of one line in one column: not aligned
+            return false; // two values of one line in one column: not aligned
         }
         placed.push(Some((*first, cols)));
     }
@@ -354,7 +357,7 @@ fn align_values(lines: &[String], rows: &mut [Row]) {
         .flatten()
         .any(|(_, cols)| cols.len() == columns.len())
     {
-        return; // no line fills every column
+        return false; // no line fills every column
     }
     for (row, p) in rows.iter_mut().zip(&placed) {
         let Some((first, cols)) = p else { continue };
@@ -371,6 +374,7 @@ fn align_values(lines: &[String], rows: &mut [Row]) {
         }
         row.cells.extend(out);
     }
+    true
 }
 
 #[cfg(test)]

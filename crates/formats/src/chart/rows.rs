@@ -28,20 +28,31 @@ struct Keyed {
 
 const LENGTHS: [Mark; 3] = [Mark::Mm, Mark::Cm, Mark::In];
 
+/// How the rows are read: the unit of lengths without one, decimal commas, and whether a row
+/// with fewer values than sizes asks which sizes they belong to (else they are read from the
+/// left, with a note).
+pub(super) struct Reading {
+    /// The unit of lengths given without one.
+    pub global: Option<Mark>,
+    /// Whether the chart writes decimal commas.
+    pub decimal_comma: bool,
+    /// Whether a short row asks which sizes its values belong to.
+    pub short_rows_ask: bool,
+}
+
 /// Reads every row into `sizes`.
-pub(super) fn fill(
-    sizes: &mut [ChartSize],
-    rows: Vec<TableRow>,
-    global: Option<Mark>,
-    decimal_comma: bool,
-    log: &mut Log,
-) {
+pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, log: &mut Log) {
+    let Reading {
+        global,
+        decimal_comma,
+        short_rows_ask,
+    } = read;
     let n = sizes.len();
     let mut keyed: Vec<Keyed> = Vec::new();
     let mut ambiguous: Vec<(TableRow, Ambiguity)> = Vec::new();
     for row in rows {
         match row.label.kind {
-            Kind::Key(k) => push_keyed(&mut keyed, row, k, n, decimal_comma, log),
+            Kind::Key(k) => push_keyed(&mut keyed, row, k, (n, short_rows_ask), decimal_comma, log),
             Kind::Ambiguous(a) => ambiguous.push((row, a)),
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
@@ -57,7 +68,7 @@ pub(super) fn fill(
     }
     for (row, a) in ambiguous {
         if let Some(k) = resolve(&row, a, &keyed, log) {
-            push_keyed(&mut keyed, row, k, n, decimal_comma, log);
+            push_keyed(&mut keyed, row, k, (n, short_rows_ask), decimal_comma, log);
         }
     }
     let consensus = consensus(&keyed, global);
@@ -70,7 +81,7 @@ fn push_keyed(
     keyed: &mut Vec<Keyed>,
     row: TableRow,
     key: &'static str,
-    n: usize,
+    (n, short_rows_ask): (usize, bool),
     decimal_comma: bool,
     log: &mut Log,
 ) {
@@ -98,10 +109,7 @@ fn push_keyed(
         );
     }
     if (2..n).contains(&cells.len()) {
-        log.note(
-            &row.label.text,
-            format!("{} values for {n} sizes; read from the left", cells.len()),
-        );
+        place_short_row(&mut cells, n, short_rows_ask, &row.label.text, log);
     }
     if cells.len() > n {
         log.note(
@@ -119,6 +127,34 @@ fn push_keyed(
         unit: row.unit,
         cells,
     });
+}
+
+/// A row of fewer values than sizes: read from the left with a note when the cells' places are
+/// known (a blank at the end of a row is the last sizes' blank); else the person is asked
+/// whether the values belong to the first sizes (the default) or the last ones (a measurement
+/// given only for the bigger sizes), and the row is read that way.
+fn place_short_row(cells: &mut Vec<Cell>, n: usize, ask: bool, row: &str, log: &mut Log) {
+    let k = cells.len();
+    if !ask {
+        log.note(row, format!("{k} values for {n} sizes; read from the left"));
+        return;
+    }
+    let (first, last) = (
+        format!("the first {k} sizes"),
+        format!("the last {k} sizes"),
+    );
+    let chosen = log.ask(
+        row,
+        "sizes",
+        format!("\"{row}\" gives {k} values for {n} sizes; read as the first {k} sizes"),
+        &[&first, &last],
+        &first,
+    );
+    if chosen == last {
+        let mut placed = vec![Cell::Missing; n - k];
+        placed.append(cells);
+        *cells = placed;
+    }
 }
 
 /// Seat angle or top tube without "effective"/"actual": the other row of the pair decides,
