@@ -73,6 +73,18 @@ for (const [name, width, height] of SIZES) {
     await page.waitForFunction(() => document.querySelector('[name="frame.seat_angle_actual_deg"]').value === '76', null, { timeout: 5000 });
     assert.equal(await page.inputValue('[name="frame.seat_angle_effective_deg"]'), '');
     await waitCell(page, 'seat_angle_actual_deg', 76, 0.05, 'given');
+    // A PDF copy with single spaces: a short row asks which sizes its values belong to, and the
+    // answer moves them (the chainstay given for M and L only).
+    await page.fill('#chart-text', 'Size S M L\nReach 430 455 480\nStack 611 620 629\nChainstay 435 440\n');
+    await page.click('#chart-read');
+    await page.click('#chart-out button.size[data-size="L"]');
+    const sizesQ = page.locator('#chart-out .chart-questions li', { hasText: 'Chainstay' });
+    assert.match(await sizesQ.textContent(), /"Chainstay" gives 2 values for 3 sizes/);
+    assert.equal(await page.inputValue('[name="frame.chainstay_mm"]'), '');
+    await sizesQ.locator('select').selectOption('the last 2 sizes');
+    await page.waitForFunction(() => document.querySelector('[name="frame.chainstay_mm"]').value === '440', null, { timeout: 5000 });
+    await page.click('#chart-out button.size[data-size="S"]');
+    assert.equal(await page.inputValue('[name="frame.chainstay_mm"]'), '');
     // Nonsense gets a plain message and leaves the bike alone.
     const svg = await page.locator('#drawing svg').innerHTML();
     await page.fill('#chart-text', 'hello');
