@@ -42,17 +42,13 @@ pub(super) struct Reading {
 
 /// Reads every row into `sizes`.
 pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, log: &mut Log) {
-    let Reading {
-        global,
-        decimal_comma,
-        short_rows_ask,
-    } = read;
+    let global = read.global;
     let n = sizes.len();
     let mut keyed: Vec<Keyed> = Vec::new();
     let mut ambiguous: Vec<(TableRow, Ambiguity)> = Vec::new();
     for row in rows {
         match row.label.kind {
-            Kind::Key(k) => push_keyed(&mut keyed, row, k, (n, short_rows_ask), decimal_comma, log),
+            Kind::Key(k) => push_keyed(&mut keyed, row, k, n, &read, log),
             Kind::Ambiguous(a) => ambiguous.push((row, a)),
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
@@ -68,7 +64,7 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
     }
     for (row, a) in ambiguous {
         if let Some(k) = resolve(&row, a, &keyed, log) {
-            push_keyed(&mut keyed, row, k, (n, short_rows_ask), decimal_comma, log);
+            push_keyed(&mut keyed, row, k, n, &read, log);
         }
     }
     let consensus = consensus(&keyed, global);
@@ -81,8 +77,8 @@ fn push_keyed(
     keyed: &mut Vec<Keyed>,
     row: TableRow,
     key: &'static str,
-    (n, short_rows_ask): (usize, bool),
-    decimal_comma: bool,
+    n: usize,
+    read: &Reading,
     log: &mut Log,
 ) {
     let Some(m) = lookup(key) else { return };
@@ -97,7 +93,7 @@ fn push_keyed(
     let mut cells: Vec<Cell> = row
         .cells
         .iter()
-        .map(|c| parse_cell(c, decimal_comma))
+        .map(|c| parse_cell(c, read.decimal_comma))
         .collect();
     let given: Vec<&Cell> = cells.iter().filter(|c| **c != Cell::Missing).collect();
     if n > 1 && cells.len() == 1 && given.len() == 1 {
@@ -109,7 +105,7 @@ fn push_keyed(
         );
     }
     if (2..n).contains(&cells.len()) {
-        place_short_row(&mut cells, n, short_rows_ask, &row.label.text, log);
+        place_short_row(&mut cells, n, read.short_rows_ask, &row.label.text, log);
     }
     if cells.len() > n {
         log.note(
