@@ -587,3 +587,92 @@ fn aligned_spaces_with_blank_cells_keep_values_under_their_sizes() {
     assert!(!has_note(&c, "Stack", "read from the left"));
     assert_row(&c, "head_tube_mm", &[95.0, 105.0, 115.0, 125.0]);
 }
+
+/// Sizes as rows, copied from a PDF with single spaces: the size row "M" has one value fewer
+/// than there are measurements (its reach is blank), and nothing says which one is missing, so
+/// the import asks whether its values are the first measurements (the default) or the last
+/// ones. With tabs the row's places are known (a blank last cell is lost in a copy) and it is
+/// read from the left with a note.
+#[test]
+fn a_short_size_row_without_places_asks_which_measurements_it_gives() {
+    let text = "Size Reach Stack Chainstay\nS 430 611 435\nM 620 437\nL 480 629 440\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    let q = c.questions.iter().find(|q| q.row == "M").unwrap();
+    assert_eq!(q.id, "M#measurements");
+    assert_eq!(
+        q.options,
+        ["the first 2 measurements", "the last 2 measurements"]
+    );
+    assert!(
+        q.message
+            .starts_with("\"M\" gives 2 values for 3 measurements"),
+        "{}",
+        q.message
+    );
+    assert_eq!(q.chosen, "the first 2 measurements");
+    assert_eq!(c.questions.len(), 1, "{:?}", c.questions);
+    // Read as the first two: M's 620 is its reach and 437 its stack (the person sees it is
+    // wrong and answers), and it has no chainstay.
+    assert_row(&c, "reach_mm", &[430.0, 620.0, 480.0]);
+    assert_row(&c, "stack_mm", &[611.0, 437.0, 629.0]);
+    let chainstay = row(&c, "chainstay_mm");
+    assert!(chainstay[1].is_nan(), "{chainstay:?}");
+
+    // Answered "the last": 620 and 437 are M's stack and chainstay, and it has no reach.
+    let answers: Answers = [(q.id.clone(), "the last 2 measurements".to_string())]
+        .into_iter()
+        .collect();
+    let c = import_chart_with(text, &answers).unwrap();
+    let reach = row(&c, "reach_mm");
+    assert!(reach[1].is_nan(), "{reach:?}");
+    assert_eq!([reach[0], reach[2]], [430.0, 480.0]);
+    assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
+    assert_row(&c, "chainstay_mm", &[435.0, 437.0, 440.0]);
+
+    let tabs = import_chart(
+        "Size\tReach\tStack\tChainstay\nS\t430\t611\t435\nM\t455\t620\nL\t480\t629\t440\n",
+    )
+    .unwrap();
+    assert!(tabs.questions.is_empty(), "{:?}", tabs.questions);
+    assert!(has_note(
+        &tabs,
+        "M",
+        "2 values for 3 measurements; read from the left"
+    ));
+    assert_row(&tabs, "stack_mm", &[611.0, 620.0, 629.0]);
+    let chainstay = row(&tabs, "chainstay_mm");
+    assert!(chainstay[1].is_nan(), "{chainstay:?}");
+}
+
+/// One value under three sizes in a copy whose cells lost their places (single spaces): it is
+/// used for every size (a merged cell, the usual case), and the person is asked, since it may
+/// be the first or the last size's alone. With tabs it is used for all with a note only.
+#[test]
+fn one_value_without_places_asks_whether_it_is_every_size() {
+    let text = "Size S M L\nReach 430 455 480\nHead angle 64\n";
+    let c = import_chart(text).unwrap();
+    assert_row(&c, "head_angle_deg", &[64.0; 3]);
+    let q = c.questions.iter().find(|q| q.row == "Head angle").unwrap();
+    assert_eq!(q.id, "Head angle#sizes");
+    assert_eq!(q.options, ["every size", "the first size", "the last size"]);
+    assert_eq!(q.chosen, "every size");
+    assert!(q.message.contains("one value for 3 sizes"), "{}", q.message);
+
+    let last: Answers = [(q.id.clone(), "the last size".to_string())]
+        .into_iter()
+        .collect();
+    let head = row(&import_chart_with(text, &last).unwrap(), "head_angle_deg");
+    assert!(head[0].is_nan() && head[1].is_nan(), "{head:?}");
+    assert_eq!(head[2], 64.0);
+    let first: Answers = [(q.id.clone(), "the first size".to_string())]
+        .into_iter()
+        .collect();
+    let head = row(&import_chart_with(text, &first).unwrap(), "head_angle_deg");
+    assert_eq!(head[0], 64.0);
+    assert!(head[1].is_nan() && head[2].is_nan(), "{head:?}");
+
+    let tabs = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nHead angle\t64\n").unwrap();
+    assert!(tabs.questions.is_empty(), "{:?}", tabs.questions);
+    assert!(has_note(&tabs, "Head angle", "used it for all"));
+}

@@ -5,7 +5,7 @@ use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
 use super::grid::{is_size_token, Grid, Row, Sep};
 use super::label::{classify, Kind};
 use super::log::{shorten, Log};
-use super::rows::{fill, TableRow};
+use super::rows::{fill, place_short, Short, TableRow};
 use super::segment::split_header;
 use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
 use std::collections::BTreeMap;
@@ -57,7 +57,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         return Err(ChartError::TooManySizes { count: width - 1 });
     }
     repair_short_rows(&mut table);
-    let (table, across) = orient(table, &mut log)?;
+    let (table, across) = orient(table, grid, &mut log)?;
     let (table, units_col) = label_first(table, &mut log)?;
     let header = find_header(&table);
     let value_count = table
@@ -245,10 +245,17 @@ fn repair_short_rows(table: &mut [Vec<String>]) {
         .filter(|r| r.len() == mode && is_ref(r))
         .count();
     let referenced = refs * 2 > full;
+    // A size name before plain values ("M 455 620") is the label of a size row (sizes as
+    // rows), not the first of a row of size names.
+    let sizes_only = |r: &Vec<String>| {
+        r.iter()
+            .skip(1)
+            .all(|c| c.is_empty() || is_size_token(c) || !is_value_token(c))
+    };
     for r in table.iter_mut() {
         let first = r.first().map_or("", String::as_str);
         let unlabelled = first.is_empty()
-            || is_size_token(first)
+            || (is_size_token(first) && sizes_only(r))
             || is_value_token(first)
             || (referenced && !is_ref(r));
         if r.len() + 1 == mode && unlabelled {
@@ -263,7 +270,13 @@ fn measurement(cell: &str) -> bool {
 
 /// Sizes as rows (labels across the top) are transposed to sizes as columns.
 /// The table with sizes as columns, and whether it was turned (the sizes ran down the side).
-fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<(Vec<Vec<String>>, bool), ChartError> {
+/// A size row with fewer values than the table has columns is placed first
+/// ([`place_short_size_rows`]).
+fn orient(
+    mut table: Vec<Vec<String>>,
+    grid: &Grid,
+    log: &mut Log,
+) -> Result<(Vec<Vec<String>>, bool), ChartError> {
     let col_best = (0..3)
         .map(|c| {
             table
@@ -292,6 +305,7 @@ fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<(Vec<Vec<String>>, b
         "the measurements run across the top, so each row was read as one size".into(),
     );
     let width = table.iter().map(Vec::len).max().unwrap_or(0);
+    place_short_size_rows(&mut table, width, grid, log);
     let turned = (0..width)
         .map(|c| {
             let mut col: Vec<String> = table
@@ -305,6 +319,38 @@ fn orient(table: Vec<Vec<String>>, log: &mut Log) -> Result<(Vec<Vec<String>>, b
         })
         .collect();
     Ok((turned, true))
+}
+
+/// The size rows of a chart with sizes as rows that have fewer cells than the widest row:
+/// read from the left with a note when the cells kept their places (tabs, separators, aligned
+/// columns: a blank at the end of a line is lost when it is copied), else the person is asked
+/// whether the values are the first or the last measurements ([`place_short`]). Rows without a
+/// number (the labels across the top, a units row) are left as they are.
+fn place_short_size_rows(table: &mut [Vec<String>], width: usize, grid: &Grid, log: &mut Log) {
+    for r in table.iter_mut() {
+        let numbers = r
+            .iter()
+            .skip(1)
+            .filter(|c| matches!(parse_cell(c, grid.decimal_comma), Cell::Number(_)))
+            .count();
+        if numbers == 0 || r.len() >= width || r.len() < 2 {
+            continue;
+        }
+        let label = strip_footnotes(r.first().map_or("", String::as_str));
+        let label = if label.is_empty() {
+            "(a size row without a name)".to_string()
+        } else {
+            shorten(&label)
+        };
+        let mut cells = r.split_off(1);
+        let short = Short {
+            row: &label,
+            ask: !grid.placed,
+            what: "measurements",
+        };
+        place_short(&mut cells, width - 1, String::new(), short, log);
+        r.append(&mut cells);
+    }
 }
 
 type Units = Vec<Option<Mark>>;

@@ -19,7 +19,8 @@
 //! and a note says so; a row that fits two units follows the other rows' unit or asks.
 //! Angles are always degrees. Also read: a header of labels that lost its cell borders (single
 //! spaces; split to the data's width), a phone copy with one cell per line, drawing-reference
-//! or row-number columns, one value standing for every size, `470-475` ranges (midpoint),
+//! or row-number columns, one value standing for every size, a row short of values (read from
+//! the left; asked when the cells lost their places), `470-475` ranges (midpoint),
 //! `65/64.5` two settings (asked), one length in two units (`470 mm (18.5")`).
 //! Nothing is dropped silently: rows it does not know are listed in
 //! `unrecognised`, lines of text and ignored columns in `notes`, guesses in `questions` (with

@@ -97,15 +97,15 @@ fn push_keyed(
         .collect();
     let given: Vec<&Cell> = cells.iter().filter(|c| **c != Cell::Missing).collect();
     if n > 1 && cells.len() == 1 && given.len() == 1 {
-        let one = cells.first().cloned().unwrap_or(Cell::Missing);
-        cells = vec![one; n];
-        log.note(
-            &row.label.text,
-            "one value for every size; used it for all".into(),
-        );
+        cells = one_for_all(cells, n, read.short_rows_ask, &row.label.text, log);
     }
     if (2..n).contains(&cells.len()) {
-        place_short_row(&mut cells, n, read.short_rows_ask, &row.label.text, log);
+        let short = Short {
+            row: &row.label.text,
+            ask: read.short_rows_ask,
+            what: "sizes",
+        };
+        place_short(&mut cells, n, Cell::Missing, short, log);
     }
     if cells.len() > n {
         log.note(
@@ -125,29 +125,83 @@ fn push_keyed(
     });
 }
 
-/// A row of fewer values than sizes: read from the left with a note when the cells' places are
-/// known (a blank at the end of a row is the last sizes' blank); else the person is asked
-/// whether the values belong to the first sizes (the default) or the last ones (a measurement
-/// given only for the bigger sizes), and the row is read that way.
-fn place_short_row(cells: &mut Vec<Cell>, n: usize, ask: bool, row: &str, log: &mut Log) {
+/// A row of one value for `n` sizes: one value standing for every size (a merged cell), with a
+/// note. When the cells lost their places the person is also asked, since the value may be the
+/// first or the last size's alone (question id `<row>#sizes`).
+fn one_for_all(cells: Vec<Cell>, n: usize, ask: bool, row: &str, log: &mut Log) -> Vec<Cell> {
+    let one = cells.into_iter().next().unwrap_or(Cell::Missing);
+    const ALL: &str = "every size";
+    const FIRST: &str = "the first size";
+    const LAST: &str = "the last size";
+    let chosen = if ask {
+        log.ask(
+            row,
+            "sizes",
+            format!("\"{row}\" gives one value for {n} sizes; used it for every size"),
+            &[ALL, FIRST, LAST],
+            ALL,
+        )
+    } else {
+        log.note(row, "one value for every size; used it for all".into());
+        ALL.to_string()
+    };
+    let mut out = vec![Cell::Missing; n];
+    let place = match chosen.as_str() {
+        FIRST => out.first_mut(),
+        LAST => out.last_mut(),
+        _ => return vec![one; n],
+    };
+    if let Some(c) = place {
+        *c = one;
+    }
+    out
+}
+
+/// A row of fewer values than it has places for: its label, whether to ask, and what the
+/// places are ("sizes", or "measurements" for a size row of a chart with sizes as rows).
+pub(super) struct Short<'a> {
+    /// The row's label as written.
+    pub row: &'a str,
+    /// Whether the person is asked (the cells lost their places).
+    pub ask: bool,
+    /// What the places are, plural.
+    pub what: &'static str,
+}
+
+/// A row of `k` values for `n` places, `k < n`: read from the left with a note when the cells'
+/// places are known (a blank at the end of a row is the last places' blank); else the person
+/// is asked whether the values belong to the first places (the default) or the last ones (a
+/// measurement given only for the bigger sizes), and the row is read that way: with the last,
+/// `n - k` blanks go before the values. Question id: `<row>#<what>`.
+pub(super) fn place_short<T: Clone>(
+    cells: &mut Vec<T>,
+    n: usize,
+    blank: T,
+    short: Short<'_>,
+    log: &mut Log,
+) {
+    let Short { row, ask, what } = short;
     let k = cells.len();
     if !ask {
-        log.note(row, format!("{k} values for {n} sizes; read from the left"));
+        log.note(
+            row,
+            format!("{k} values for {n} {what}; read from the left"),
+        );
         return;
     }
     let (first, last) = (
-        format!("the first {k} sizes"),
-        format!("the last {k} sizes"),
+        format!("the first {k} {what}"),
+        format!("the last {k} {what}"),
     );
     let chosen = log.ask(
         row,
-        "sizes",
-        format!("\"{row}\" gives {k} values for {n} sizes; read as the first {k} sizes"),
+        what,
+        format!("\"{row}\" gives {k} values for {n} {what}; read as the first {k} {what}"),
         &[&first, &last],
         &first,
     );
     if chosen == last {
-        let mut placed = vec![Cell::Missing; n - k];
+        let mut placed = vec![blank; n - k];
         placed.append(cells);
         *cells = placed;
     }
