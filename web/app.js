@@ -1,7 +1,7 @@
 // framewise page: read the form, ask the wasm kernel, write the drawing and the tables.
 // Every number and every word about a number comes from Rust; this file only wires the DOM.
 import * as wasm from './pkg/framewise.js';
-import { buildForm, readForm, clearMessages, showErrors, setField } from './ui/form.js';
+import { buildForm, readForm, clearMessages, showErrors, showNotes, setField } from './ui/form.js';
 import { renderResults, wireDefinitions } from './ui/results.js';
 import { attachZoom } from './ui/zoom.js';
 import { attachView, getView, applyView } from './ui/view.js';
@@ -68,6 +68,7 @@ function update(event) {
   }
   const result = JSON.parse(answer);
   clearMessages();
+  if (result.field_notes) showNotes(form, result.field_notes); // lengths read in cm or inches
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
     const unplaced = showErrors(form, errors.length ? errors : result.report.errors);

@@ -77,7 +77,7 @@ for (const [name, width, height] of SIZES) {
     const cases = [
       ['frame.head_angle_deg', 'steep', /"steep" is not a number/],
       ['frame.head_angle_deg', '', /empty/],
-      ['frame.head_angle_deg', '95', /Head tube angle must be between 45 and 85 °, got 95/],
+      ['frame.head_angle_deg', '95', /Head tube angle must be between 45 and 85°, got 95/],
       ['wheels.front', '31x9', /not recognised/],
       ['rider.height_mm', 'tall', /"tall" is not a number/],
     ];

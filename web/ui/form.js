@@ -81,7 +81,10 @@ export function clearMessages() {
     c.removeAttribute('aria-invalid');
     c.setAttribute('aria-describedby', `${c.id}-def`);
     const m = msgFor(c);
-    if (m) m.textContent = '';
+    if (m) {
+      m.textContent = '';
+      m.classList.remove('note');
+    }
   }
   marked.clear();
 }
@@ -101,6 +104,19 @@ export function showErrors(form, errors) {
     if (more) more.open = true;
   }
   return unplaced;
+}
+
+/** Puts each note (a length read in cm or inches) beside its field, not marked as an error. */
+export function showNotes(form, notes) {
+  for (const n of notes) {
+    const c = form.elements.namedItem(n.field);
+    const m = c && msgFor(c);
+    if (!m) continue;
+    m.textContent = n.message;
+    m.classList.add('note');
+    marked.add(c);
+    c.setAttribute('aria-describedby', `${m.id} ${c.id}-def`);
+  }
 }
 
 /** Sets a field's text (used by the chart paste box). */

@@ -86,7 +86,7 @@ pub static GROUPS: &[Group] = &[
     Group {
         id: "frame",
         title: "Frame numbers from the listing",
-        hint: "Type what the geometry table gives; leave the rest blank.",
+        hint: "Type what the geometry table gives, in mm, cm or inches; leave the rest blank.",
     },
     Group {
         id: "wheels",

@@ -8,6 +8,7 @@ pub mod chart;
 pub mod fields;
 pub mod form;
 pub mod form_inverse;
+pub mod form_units;
 pub mod json;
 pub mod link;
 pub mod units;

@@ -15,6 +15,10 @@ pub struct FieldError {
     pub field: String,
     /// One sentence naming the field, the value and what is allowed.
     pub message: String,
+    /// For a value outside its range: the allowed `(min, max)` in the field's unit, so that a
+    /// caller can offer another reading of the typed text (not part of the JSON).
+    #[serde(skip)]
+    pub allowed: Option<(f64, f64)>,
 }
 
 impl FieldError {
@@ -24,6 +28,7 @@ impl FieldError {
             code: code.to_string(),
             field: field.into(),
             message: message.into(),
+            allowed: None,
         }
     }
 
@@ -36,21 +41,26 @@ impl FieldError {
         max: f64,
         unit: &str,
     ) -> Self {
+        // Degrees and percent follow the number directly ("85°"); other units after a space.
+        let unit = match unit {
+            "°" | "%" | "" => unit.to_string(),
+            u => format!(" {u}"),
+        };
         let message = if value.is_finite() {
             format!(
-                "{label} must be between {} and {} {unit}, got {}",
+                "{label} must be between {} and {}{unit}, got {}",
                 fmt_num(min),
                 fmt_num(max),
                 fmt_num(value)
             )
         } else {
             format!(
-                "{label} must be a finite number between {} and {} {unit}, got {value}",
+                "{label} must be a finite number between {} and {}{unit}, got {value}",
                 fmt_num(min),
                 fmt_num(max)
             )
         };
-        Self::new(
+        let mut e = Self::new(
             if value.is_finite() {
                 "out_of_range"
             } else {
@@ -58,7 +68,9 @@ impl FieldError {
             },
             field,
             message,
-        )
+        );
+        e.allowed = value.is_finite().then_some((min, max));
+        e
     }
 }
 
@@ -118,9 +130,10 @@ mod tests {
             "°",
         );
         assert_eq!(e.code, "out_of_range");
+        assert_eq!(e.allowed, Some((45.0, 85.0)));
         assert_eq!(
             e.message,
-            "head tube angle must be between 45 and 85 °, got 95"
+            "head tube angle must be between 45 and 85°, got 95"
         );
         let e = FieldError::out_of_range("x", "reach", f64::NAN, 0.0, 1.0, "mm");
         assert_eq!(e.code, "not_a_number");

@@ -284,11 +284,24 @@ pub mod framewise_web_core {
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
         field_errors: Vec<framewise_kernel::FieldError>,
+        /// Notes beside fields that do not stop the evaluation: a length typed without a unit
+        /// read in cm or inches (`framewise_formats::form_units`).
+        #[serde(skip_serializing_if = "Vec::is_empty")]
+        field_notes: Vec<FieldNote>,
         /// `Some(link)` for [`evaluate_form_linked_to_json`] (a member, `null` when `None`),
         /// `None` for the plain form result (no member). A plain member rather than a
         /// `#[serde(flatten)]` wrapper: the same text, without flatten's map serializer.
         #[serde(skip_serializing_if = "Option::is_none")]
         link: Option<Option<String>>,
+    }
+
+    /// A note beside one form field.
+    #[derive(Serialize, Debug, Clone, PartialEq)]
+    pub(crate) struct FieldNote {
+        /// The form field name.
+        pub field: String,
+        /// One sentence.
+        pub message: String,
     }
 
     thread_local! {
@@ -321,8 +334,8 @@ pub mod framewise_web_core {
     pub fn evaluate_form_to_json(fields_json: &str) -> String {
         match read_form(fields_json) {
             Ok(fields) => {
-                let (scenario, errors) = framewise_formats::scenario_from_form(&fields);
-                form_result_json(&scenario, errors, None, false, Run::Page)
+                let read = read_and_evaluate(&fields, Run::Page);
+                form_result_json(read.evaluated, None, false, Run::Page)
             }
             Err(json) => json,
         }
@@ -364,14 +377,18 @@ pub mod framewise_web_core {
         if later {
             LINKABLE.with(|l| *l.borrow_mut() = None);
         }
-        let (mut scenario, errors) = framewise_formats::scenario_from_form(fields);
+        let Read {
+            mut scenario,
+            form_errors,
+            evaluated,
+        } = read_and_evaluate(fields, run);
         let view = if view_json.trim().is_empty() {
             Some(scenario.view.clone())
         } else {
             serde_json::from_str(view_json).ok()
         };
         let linkable = match view {
-            Some(view) if errors.is_empty() => {
+            Some(view) if form_errors == 0 => {
                 scenario.view = view;
                 true
             }
@@ -381,7 +398,7 @@ pub mod framewise_web_core {
             Link::Now => Some(linkable.then(|| link_of(&scenario)).flatten()),
             Link::Later => None,
         };
-        let json = form_result_json(&scenario, errors, link, true, run);
+        let json = form_result_json(evaluated, link, true, run);
         if later && linkable {
             LINKABLE.with(|l| *l.borrow_mut() = Some(scenario));
         }
@@ -451,20 +468,86 @@ pub mod framewise_web_core {
                 drawing: None,
                 notes: None,
                 field_errors: Vec::new(),
+                field_notes: Vec::new(),
                 link: None,
             })
             .unwrap_or_else(|_| "{}".into())
         })
     }
 
-    /// Evaluates and draws a form's scenario; `link: Some(_)` adds the `link` member.
-    fn form_result_json(
+    /// A form read and evaluated: its scenario, how many of its fields did not read, and the
+    /// evaluation.
+    pub(crate) struct Read {
+        scenario: framewise_kernel::Scenario,
+        form_errors: usize,
+        evaluated: Evaluated,
+    }
+
+    /// A scenario's report (empty when a field did not read), every field error (form field
+    /// names) and the notes beside fields.
+    pub(crate) struct Evaluated {
+        report: Report,
+        field_errors: Vec<framewise_kernel::FieldError>,
+        field_notes: Vec<FieldNote>,
+    }
+
+    /// Reads and evaluates a form. When the kernel refuses a length typed without a unit as out
+    /// of range and exactly one of cm and inches fits, the form is read again that way, with a
+    /// note beside the field; when both fit, the field's error says both readings
+    /// (`framewise_formats::form_units`). The re-read form is what the link and the drawing
+    /// show.
+    pub(crate) fn read_and_evaluate(
+        fields: &std::collections::BTreeMap<String, String>,
+        run: Run,
+    ) -> Read {
+        use framewise_formats::form_units::{reread_lengths, Reread};
+        let (scenario, errors) = framewise_formats::scenario_from_form(fields);
+        let form_errors = errors.len();
+        let mut first = evaluated(&scenario, errors, run);
+        let rereads = reread_lengths(fields, &first.field_errors);
+        let mut again = fields.clone();
+        let mut notes = Vec::new();
+        for r in rereads {
+            match r {
+                Reread::Unit { field, text, note } => {
+                    again.insert(field.clone(), text);
+                    notes.push(FieldNote {
+                        field,
+                        message: note,
+                    });
+                }
+                Reread::Either { field, hint } => {
+                    for e in first.field_errors.iter_mut().filter(|e| e.field == field) {
+                        e.message = format!("{}. {hint}", e.message);
+                    }
+                }
+            }
+        }
+        if notes.is_empty() {
+            return Read {
+                scenario,
+                form_errors,
+                evaluated: first,
+            };
+        }
+        let (scenario, errors) = framewise_formats::scenario_from_form(&again);
+        let form_errors = errors.len();
+        let mut evaluated = evaluated(&scenario, errors, run);
+        evaluated.field_notes = notes;
+        Read {
+            scenario,
+            form_errors,
+            evaluated,
+        }
+    }
+
+    /// Evaluates a form's scenario when every field read (`field_errors` empty); kernel errors
+    /// are renamed from `bikes[0].frame.x` to the form's `frame.x`.
+    fn evaluated(
         scenario: &framewise_kernel::Scenario,
         mut field_errors: Vec<framewise_kernel::FieldError>,
-        link: Option<Option<String>>,
-        page_call: bool,
         run: Run,
-    ) -> String {
+    ) -> Evaluated {
         let mut report = Report {
             version: REPORT_VERSION,
             bikes: Vec::new(),
@@ -485,6 +568,25 @@ pub mod framewise_web_core {
                 field_errors.push(e);
             }
         }
+        Evaluated {
+            report,
+            field_errors,
+            field_notes: Vec::new(),
+        }
+    }
+
+    /// Writes an evaluated form (and draws it); `link: Some(_)` adds the `link` member.
+    fn form_result_json(
+        evaluated: Evaluated,
+        link: Option<Option<String>>,
+        page_call: bool,
+        run: Run,
+    ) -> String {
+        let Evaluated {
+            report,
+            field_errors,
+            field_notes,
+        } = evaluated;
         let ok = field_errors.is_empty() && !report.bikes.is_empty();
         let notes = report
             .bikes
@@ -501,6 +603,7 @@ pub mod framewise_web_core {
                 drawing: None,
                 notes,
                 field_errors,
+                field_notes,
                 link,
             })
             .unwrap_or_else(|_| "{}".into());
@@ -532,6 +635,7 @@ pub mod framewise_web_core {
             drawing,
             notes,
             field_errors,
+            field_notes,
             link,
         })
         .unwrap_or_else(|_| "{}".into())
@@ -579,9 +683,82 @@ mod tests {
         assert_eq!(v["field_errors"][0]["field"], "frame.head_angle_deg");
         assert_eq!(
             v["field_errors"][0]["message"],
-            "Head tube angle must be between 45 and 85 °, got 95"
+            "Head tube angle must be between 45 and 85°, got 95"
         );
         assert!(v["svg"].is_null());
+    }
+
+    /// A form with the given reach and rider height texts (the rest as the page's demo).
+    fn form_with(reach: &str, height: &str) -> String {
+        format!(
+            r#"{{"frame.reach_mm":"{reach}","frame.stack_mm":"635","frame.head_angle_deg":"65",
+            "frame.head_tube_mm":"110","frame.fork_a2c_mm":"561","frame.fork_offset_mm":"44",
+            "frame.chainstay_mm":"435","frame.bb_drop_mm":"35","setup.stem_mm":"45",
+            "rider.height_mm":"{height}","rider.mass_kg":"74"}}"#
+        )
+    }
+
+    #[test]
+    fn a_length_typed_without_its_unit_is_read_in_cm_or_inches_when_only_one_fits() {
+        let view = r#"{"posture":"seated"}"#;
+        let parse =
+            |json: String| -> serde_json::Value { serde_json::from_str(&json).unwrap_or_default() };
+        // A reach of 47,5 (cm, as a phone's number pad types it) and a height of 70 (inches).
+        let guessed = parse(evaluate_form_linked_to_json(&form_with("47,5", "70"), view));
+        let typed = parse(evaluate_form_linked_to_json(
+            &form_with("475", "1778"),
+            view,
+        ));
+        assert_eq!(guessed["field_errors"], serde_json::json!([]), "{guessed}");
+        assert_eq!(guessed["report"], typed["report"]);
+        assert_eq!(guessed["link"], typed["link"]);
+        assert!(
+            typed.get("field_notes").is_none(),
+            "no notes when nothing was guessed"
+        );
+        let notes = guessed["field_notes"]
+            .as_array()
+            .cloned()
+            .unwrap_or_default();
+        assert_eq!(notes.len(), 2, "{notes:?}");
+        let note = |field: &str| {
+            notes
+                .iter()
+                .find(|n| n["field"] == field)
+                .and_then(|n| n["message"].as_str())
+                .unwrap_or_default()
+                .to_string()
+        };
+        let said = note("frame.reach_mm");
+        assert!(said.starts_with("Read as 47,5 cm = 475 mm"), "{said}");
+        let said = note("rider.height_mm");
+        assert!(said.starts_with("Read as 70 in = 1778 mm"), "{said}");
+
+        // A reach of 30 is read as cm: 762 mm (in) is no published reach.
+        let reach = parse(evaluate_form_linked_to_json(&form_with("30", "1780"), view));
+        assert_eq!(
+            reach["field_notes"][0]["field"], "frame.reach_mm",
+            "{reach}"
+        );
+        // A saddle height of 40 (allowed 300–1200 mm) fits 400 mm (cm) and 1016 mm (in): the
+        // error says both and nothing is guessed.
+        let form = form_with("470", "1780").replace(
+            r#""setup.stem_mm":"45""#,
+            r#""setup.stem_mm":"45","setup.saddle_height_mm":"40""#,
+        );
+        let both = parse(evaluate_form_linked_to_json(&form, view));
+        assert!(both.get("field_notes").is_none(), "{both}");
+        assert_eq!(
+            both["field_errors"][0]["field"], "setup.saddle_height_mm",
+            "{both}"
+        );
+        let said = both["field_errors"][0]["message"]
+            .as_str()
+            .unwrap_or_default();
+        assert!(
+            said.ends_with("got 40. In cm that is 400 mm, in inches 1016 mm: type the value in mm, or add cm or in"),
+            "{said}"
+        );
     }
 
     #[test]
