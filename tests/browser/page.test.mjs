@@ -102,6 +102,29 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
+  test(`${name}: a length typed without its unit on a number pad is read in cm or inches and said`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    // 47,5 mm is no reach (the kernel allows 100–800 mm); 47,5 cm = 475 mm is one.
+    // Source: 1 cm = 10 mm (SI).
+    await page.fill('input[name="frame.reach_mm"]', '47,5');
+    await waitCell(page, 'reach_mm', 475, 0.06);
+    const input = page.locator('input[name="frame.reach_mm"]');
+    const msg = page.locator('#f-frame-reach-mm-msg');
+    assert.match(await msg.textContent(), /^Read as 47,5 cm = 475 mm: no unit was typed/);
+    assert.ok(await msg.isVisible());
+    assert.equal(await msg.getAttribute('class'), 'msg note');
+    assert.equal(await input.getAttribute('aria-invalid'), null, 'a note, not an error');
+    assert.match(await input.getAttribute('aria-describedby'), /f-frame-reach-mm-msg/);
+    await shot(page, `${SHOTS}/page-${name}-unit-read.png`, {}, page.locator('.field:has(input[name="frame.reach_mm"])'));
+    // Typed in mm again: the note goes.
+    await page.fill('input[name="frame.reach_mm"]', '470');
+    await waitCell(page, 'reach_mm', 470, 0.06);
+    assert.equal(await msg.textContent(), '');
+    assert.equal(await msg.getAttribute('class'), 'msg');
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test(`${name}: a published value that disagrees is marked and explained in a sentence`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     // The demo frame's wheelbase is fixed by reach, head angle, fork and chainstay (§8a: about
