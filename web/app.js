@@ -1,7 +1,7 @@
 // framewise page: read the form, ask the wasm kernel, write the drawing and the tables.
 // Every number and every word about a number comes from Rust; this file only wires the DOM.
 import * as wasm from './pkg/framewise.js';
-import { buildForm, readForm, clearMessages, showErrors, showNotes, setField } from './ui/form.js';
+import { buildForm, readForm, clearMessages, showErrors, showNotes, setField, showFilled } from './ui/form.js';
 import { renderResults, wireDefinitions } from './ui/results.js';
 import { attachZoom } from './ui/zoom.js';
 import { attachView, getView, applyView } from './ui/view.js';
@@ -45,8 +45,25 @@ function writeForm(fields) {
   typed = null;
   heldForm = 0;
   for (const c of form.elements) if (c.name) c.value = fields[c.name] ?? (c.tagName === 'SELECT' ? c.options[0]?.value ?? '' : '');
+  showFilled(form);
   return Object.keys(fields).filter((name) => !form.elements.namedItem(name));
 }
+
+// A new listing starts blank: the demo's frame numbers (some under "More frame numbers") would
+// otherwise be read with the person's own and could disagree with them.
+const clearFrame = document.createElement('button');
+clearFrame.type = 'button';
+clearFrame.className = 'tool clear-frame';
+clearFrame.textContent = 'Clear frame and fork numbers';
+form.querySelector('.group-frame .group-hint')?.after(clearFrame);
+clearFrame.addEventListener('click', () => {
+  for (const c of form.elements) if (c.name === 'label' || c.name?.startsWith('frame.')) c.value = '';
+  typed = null;
+  heldForm = 0;
+  showFilled(form);
+  update();
+  form.elements.namedItem('frame.reach_mm')?.focus();
+});
 
 // Share links (issue 6): opens a link in the address before the first drawing.
 // A link pasted into the open page's address is evaluated at once.
@@ -55,6 +72,7 @@ const share = initShare({ getFields: formFields, applyFields: writeForm, getView
 function update(event) {
   const typedIn = event?.target;
   const oneField = typed && typedIn?.name && typedIn.form === form;
+  if (typedIn?.form === form) showFilled(form, typedIn);
   if (oneField) typed[typedIn.name] = typedIn.value;
   share.settle(); // a link still to be made of the previous form
   // One wasm call reads the form once for the tables, the drawing (made when written) and the
@@ -96,6 +114,7 @@ function applySize(size) {
     if (typeof w === 'string') setField(form, `wheels.${end}`, w);
   }
   if (size.label) setField(form, 'label', `Chart size ${size.label}`);
+  showFilled(form);
   update();
 }
 

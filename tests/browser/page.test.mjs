@@ -125,6 +125,33 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
+  test(`${name}: a new listing starts blank, and values under "more" are counted`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    const more = page.locator('.group-frame details.more summary');
+    // The demo has an actual seat angle and a lower headset stack under "More frame numbers".
+    assert.equal(await more.textContent(), 'More frame numbers from the listing (9, 2 filled)');
+    const good = await page.locator('#drawing svg').innerHTML();
+    await page.click('button.clear-frame');
+    const left = await page.$$eval('#bike-form [name^="frame."], #bike-form [name="label"]',
+      (els) => els.filter((e) => e.value !== '').map((e) => e.name));
+    assert.deepEqual(left, []);
+    assert.equal(await more.textContent(), 'More frame numbers from the listing (9)');
+    assert.equal(await page.evaluate(() => document.activeElement?.name), 'frame.reach_mm');
+    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^empty: enter a length/);
+    assert.equal(await page.locator('#drawing svg').innerHTML(), good, 'the last good drawing stays');
+    // A listing's own numbers: the page solves them alone, with nothing to disagree with.
+    await page.fill('input[name="frame.reach_mm"]', '480');
+    await page.fill('input[name="frame.stack_mm"]', '630');
+    await page.fill('input[name="frame.head_angle_deg"]', '64');
+    await waitCell(page, 'reach_mm', 480, 0.06);
+    await page.locator('.group-frame details.more').evaluate((d) => { d.open = true; });
+    await page.fill('input[name="frame.rear_centre_mm"]', '440');
+    await page.waitForFunction(() => document.querySelector('.group-frame details.more summary').textContent === 'More frame numbers from the listing (9, 1 filled)', null, { timeout: 5000 });
+    assert.equal(await page.locator('#results tr.inconsistent').count(), 0);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test(`${name}: a published value that disagrees is marked and explained in a sentence`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     // The demo frame's wheelbase is fixed by reach, head angle, fork and chainstay (§8a: about

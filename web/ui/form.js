@@ -54,10 +54,28 @@ export function buildForm(form, words) {
     const set = el('fieldset', { class: `card group group-${g.id}` },
       el('legend', {}, g.title), el('p', { class: 'group-hint' }, g.hint), ...common);
     if (rest.length) {
-      set.append(el('details', { class: 'more' },
-        el('summary', {}, `More ${g.title.toLowerCase()} (${rest.length})`), ...rest));
+      const more = el('details', { class: 'more' }, el('summary', {}), ...rest);
+      more.dataset.title = `More ${g.title.toLowerCase()}`;
+      set.append(more);
     }
     form.append(set);
+  }
+  showFilled(form);
+}
+
+/**
+ * Each "more" disclosure's summary says how many fields it has and how many of its text boxes
+ * hold a value, so a value hidden under it is never a surprise. `target`: the edited control
+ * (only its disclosure is counted again), or none (all of them).
+ */
+export function showFilled(form, target) {
+  const list = target ? [target.closest?.('details.more')].filter(Boolean) : form.querySelectorAll('details.more');
+  for (const d of list) {
+    const fields = d.querySelectorAll('input, select');
+    const filled = [...d.querySelectorAll('input')].filter((i) => i.value.trim()).length;
+    const text = `${d.dataset.title} (${fields.length}${filled ? `, ${filled} filled` : ''})`;
+    const summary = d.querySelector('summary');
+    if (summary.textContent !== text) summary.textContent = text;
   }
 }
 
