@@ -125,16 +125,22 @@ test('a garbled link shows its message, the page stays usable and saved data is 
   await page.waitForFunction(() => /could not be opened/.test(document.getElementById('share-msg').textContent), null, { timeout: 5000 });
   assert.match(await page.locator('#share-msg').textContent(), /damaged.*copy the whole link again/);
   assert.equal(await page.evaluate(() => location.hash), garbled, 'the bad link stays to be looked at');
+  // Said under the drawing too, where a person looks first: these are not the shared numbers.
+  const problem = page.locator('#link-problem');
+  assert.ok(await problem.isVisible());
+  assert.match(await problem.textContent(), /^The shared link could not be opened: .*damaged.*\. The page still shows the numbers from before, not the shared ones\.$/);
   // Still usable: an edit redraws and the address follows again.
   const before = await page.locator('#drawing svg').innerHTML();
   await page.fill('input[name="frame.reach_mm"]', '480');
   await page.waitForFunction((old) => document.querySelector('#drawing svg').innerHTML !== old, before, { timeout: 5000 });
   await page.waitForFunction((bad) => location.hash !== bad, garbled, { timeout: 5000 });
+  assert.ok(await problem.isHidden(), 'an edit takes the warning away');
   assert.equal(await page.evaluate(() => localStorage.getItem('framewise-test')), 'kept');
   // Cut short and future-version links also explain themselves.
   for (const [hash, pattern] of [[good.slice(0, 12), /cut short|damaged/], ['#AgAA', /newer version/]]) {
     const other = await openPage(env, { hash });
     assert.match(await other.page.locator('#share-msg').textContent(), pattern);
+    assert.match(await other.page.locator('#link-problem').textContent(), /^The shared link could not be opened: .*These are the demo bike's numbers, not the shared ones\.$/);
     assert.equal(await other.page.locator('#drawing svg .ridden .tyre').count(), 2);
     assert.deepEqual(other.problems, []);
     await other.context.close();

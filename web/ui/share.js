@@ -46,7 +46,17 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   // A jump link's target (#results-title…) is a place on the page, not a share link.
   const isPlace = (hash) => Boolean(document.getElementById(hash.slice(1)));
 
-  function open(hash) {
+  // A link that cannot be opened is also said under the drawing, where a person looks first:
+  // what is drawn is not what was shared. The first edit takes it away.
+  const problem = byId('link-problem');
+  function warnUnderDrawing(text) {
+    if (!problem) return;
+    problem.textContent = text;
+    problem.hidden = !text;
+  }
+
+  // first: the link the page was opened with (it shows the demo bike), else one pasted later.
+  function open(hash, first) {
     if (!hash || hash === '#' || isPlace(hash)) return;
     let result;
     try {
@@ -54,8 +64,13 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     } catch (e) {
       hold = true;
       say(`This link could not be opened: ${e.message ?? e}. The page shows its last numbers instead.`, 'bad');
+      const why = String(e.message ?? e).replace(/\.$/, '');
+      warnUnderDrawing(`The shared link could not be opened: ${why}. ${first
+        ? 'These are the demo bike\'s numbers, not the shared ones.'
+        : 'The page still shows the numbers from before, not the shared ones.'}`);
       return;
     }
+    warnUnderDrawing('');
     hold = true;
     view = result.view ?? {};
     const unplaced = applyFields(result.fields) ?? [];
@@ -181,8 +196,11 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   });
 
   // The first edit lets the address follow the page again.
+  // A message about the link shown before ("Link copied.", "Opened the shared link.", a bad
+  // link) no longer describes the page once it is edited.
   document.addEventListener('input', () => {
-    if (hold && msg.dataset.kind === 'bad') say('');
+    if (msg.dataset.kind === 'bad' || msg.dataset.kind === 'info') say('');
+    if (problem && !problem.hidden) warnUnderDrawing('');
     hold = false;
   }, { capture: true });
   // A link pasted into the address bar of an open page.
@@ -193,11 +211,11 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
       if (before && !isPlace(before)) history.replaceState(history.state, '', before);
       return;
     }
-    open(location.hash);
+    open(location.hash, false);
     opened();
   });
 
-  open(location.hash);
+  open(location.hash, true);
   url.value = location.href;
   return { fields, view: currentView, update, settle };
 }
