@@ -55,6 +55,27 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
+  test(`${name}: a pasted chart is read at once, and a changed text takes the old sizes away`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    // A paste as a browser sends it: the paste event, then the text in the box and an input event.
+    await page.locator('#chart-text').evaluate((box, text) => {
+      box.focus();
+      box.dispatchEvent(new ClipboardEvent('paste', { bubbles: true, cancelable: true }));
+      box.value = text;
+      box.dispatchEvent(new Event('input', { bubbles: true }));
+    }, chart('01_web_tab_columns.txt'));
+    await firstRead(page);
+    assert.deepEqual(await page.locator('#chart-out button.size').allTextContents(), ['S', 'M', 'L', 'XL']);
+    // Typing in the box: the sizes of the text before go, so none of them can be applied.
+    await page.fill('#chart-text', chart('02_csv_rows.txt'));
+    assert.equal(await page.locator('#chart-out button.size').count(), 0);
+    assert.match(await page.locator('#chart-out').textContent(), /The text changed: press "Read the chart"/);
+    await page.click('#chart-read');
+    assert.ok(await page.locator('#chart-out button.size').count() > 0);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test(`${name}: rows not recognised are listed and questions can be answered`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     await page.fill('#chart-text', chart('09_unknown_rows.txt'));

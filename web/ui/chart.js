@@ -89,12 +89,31 @@ export function attachChart(section, apply) {
     parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : n.message)), 'chart-notes'));
     out.replaceChildren(...parts.filter(Boolean));
   }
-  // A paste starts the load, so the reader is usually there by the time the button is pressed.
-  text.addEventListener('paste', () => { loadExtras().catch(() => {}); });
-  button.addEventListener('click', () => {
+  function start() {
     answers = {};
     picked = null;
     if (importChart) read(); // once loaded, the chart is read at once, in the same task
     else load().then((ok) => { if (ok) read(); });
+  }
+  // A paste is read as soon as it is in the box; typed changes wait for the button. Either way
+  // the sizes, questions and notes of the text before are taken away at once, so a size button
+  // never applies a chart that is no longer in the box.
+  let pasted = false;
+  text.addEventListener('paste', () => {
+    pasted = true;
+    loadExtras().catch(() => {});
   });
+  text.addEventListener('input', () => {
+    if (pasted) {
+      pasted = false;
+      start();
+      return;
+    }
+    answers = {};
+    picked = null;
+    if (out.childElementCount) {
+      out.replaceChildren(el('p', { class: 'chart-none' }, 'The text changed: press "Read the chart" to read it.'));
+    }
+  });
+  button.addEventListener('click', start);
 }

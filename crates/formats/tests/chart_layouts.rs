@@ -520,7 +520,14 @@ fn a_short_row_without_places_asks_which_sizes_it_belongs_to() {
     let c = import_chart(text).unwrap();
     assert_eq!(labels(&c), ["S", "M", "L"]);
     let q = c.questions.iter().find(|q| q.row == "Chainstay").unwrap();
-    assert_eq!(q.options, ["the first 2 sizes", "the last 2 sizes"]);
+    assert_eq!(
+        q.options,
+        [
+            "the first 2 sizes",
+            "the last 2 sizes",
+            "none of them (leave the values out)"
+        ]
+    );
     assert!(
         q.message
             .starts_with("\"Chainstay\" gives 2 values for 3 sizes"),
@@ -602,7 +609,11 @@ fn a_short_size_row_without_places_asks_which_measurements_it_gives() {
     assert_eq!(q.id, "M#measurements");
     assert_eq!(
         q.options,
-        ["the first 2 measurements", "the last 2 measurements"]
+        [
+            "the first 2 measurements",
+            "the last 2 measurements",
+            "none of them (leave the values out)"
+        ]
     );
     assert!(
         q.message
@@ -624,11 +635,36 @@ fn a_short_size_row_without_places_asks_which_measurements_it_gives() {
         .into_iter()
         .collect();
     let c = import_chart_with(text, &answers).unwrap();
+    // The question now says the answer, not the default.
+    assert!(
+        c.questions[0]
+            .message
+            .ends_with("; read as the last 2 measurements"),
+        "{}",
+        c.questions[0].message
+    );
     let reach = row(&c, "reach_mm");
     assert!(reach[1].is_nan(), "{reach:?}");
     assert_eq!([reach[0], reach[2]], [430.0, 480.0]);
     assert_row(&c, "stack_mm", &[611.0, 620.0, 629.0]);
     assert_row(&c, "chainstay_mm", &[435.0, 437.0, 440.0]);
+
+    // Answered "none": M has none of the three, the other sizes keep theirs.
+    let none: Answers = [(
+        q.id.clone(),
+        "none of them (leave the values out)".to_string(),
+    )]
+    .into_iter()
+    .collect();
+    let c = import_chart_with(text, &none).unwrap();
+    assert!(c.sizes[1].frame.is_empty(), "{:?}", c.sizes[1].frame);
+    let reach = row(&c, "reach_mm");
+    assert_eq!([reach[0], reach[2]], [430.0, 480.0]);
+    assert!(
+        c.questions[0].message.ends_with("; they were left out"),
+        "{}",
+        c.questions[0].message
+    );
 
     let tabs = import_chart(
         "Size\tReach\tStack\tChainstay\nS\t430\t611\t435\nM\t455\t620\nL\t480\t629\t440\n",
@@ -662,7 +698,15 @@ fn one_value_without_places_asks_whether_it_is_every_size() {
     let last: Answers = [(q.id.clone(), "the last size".to_string())]
         .into_iter()
         .collect();
-    let head = row(&import_chart_with(text, &last).unwrap(), "head_angle_deg");
+    let answered = import_chart_with(text, &last).unwrap();
+    assert!(
+        answered.questions[0]
+            .message
+            .ends_with("; used it for the last size only"),
+        "{}",
+        answered.questions[0].message
+    );
+    let head = row(&answered, "head_angle_deg");
     assert!(head[0].is_nan() && head[1].is_nan(), "{head:?}");
     assert_eq!(head[2], 64.0);
     let first: Answers = [(q.id.clone(), "the first size".to_string())]

@@ -33,12 +33,14 @@ impl<'a> Log<'a> {
         });
     }
 
-    /// Asks a question; returns the answer given for its id, else `default`.
+    /// Asks a question; returns the answer given for its id, else `default`. `message` says
+    /// what is unclear and what was done, given the option used (so an answered question says
+    /// the answer, not the default).
     pub fn ask(
         &mut self,
         row: &str,
         topic: &str,
-        message: String,
+        message: impl FnOnce(&str) -> String,
         options: &[&str],
         default: &str,
     ) -> String {
@@ -53,7 +55,7 @@ impl<'a> Log<'a> {
             self.questions.push(Question {
                 id,
                 row: row.to_string(),
-                message,
+                message: message(&chosen),
                 options: options.iter().map(|o| (*o).to_string()).collect(),
                 chosen: chosen.clone(),
             });

@@ -137,7 +137,14 @@ fn one_for_all(cells: Vec<Cell>, n: usize, ask: bool, row: &str, log: &mut Log) 
         log.ask(
             row,
             "sizes",
-            format!("\"{row}\" gives one value for {n} sizes; used it for every size"),
+            |c| {
+                let used = if c == ALL {
+                    "every size".to_string()
+                } else {
+                    format!("{c} only")
+                };
+                format!("\"{row}\" gives one value for {n} sizes; used it for {used}")
+            },
             &[ALL, FIRST, LAST],
             ALL,
         )
@@ -171,8 +178,9 @@ pub(super) struct Short<'a> {
 /// A row of `k` values for `n` places, `k < n`: read from the left with a note when the cells'
 /// places are known (a blank at the end of a row is the last places' blank); else the person
 /// is asked whether the values belong to the first places (the default) or the last ones (a
-/// measurement given only for the bigger sizes), and the row is read that way: with the last,
-/// `n - k` blanks go before the values. Question id: `<row>#<what>`.
+/// measurement given only for the bigger sizes), or to none (a blank in the middle: the values
+/// are left out), and the row is read that way: with the last, `n - k` blanks go before the
+/// values. Question id: `<row>#<what>`.
 pub(super) fn place_short<T: Clone>(
     cells: &mut Vec<T>,
     n: usize,
@@ -193,17 +201,27 @@ pub(super) fn place_short<T: Clone>(
         format!("the first {k} {what}"),
         format!("the last {k} {what}"),
     );
+    // A blank in the middle of the row fits neither: its values can be left out and typed in.
+    const NONE: &str = "none of them (leave the values out)";
     let chosen = log.ask(
         row,
         what,
-        format!("\"{row}\" gives {k} values for {n} {what}; read as the first {k} {what}"),
-        &[&first, &last],
+        |c| {
+            if c == NONE {
+                format!("\"{row}\" gives {k} values for {n} {what}; they were left out")
+            } else {
+                format!("\"{row}\" gives {k} values for {n} {what}; read as {c}")
+            }
+        },
+        &[&first, &last, NONE],
         &first,
     );
     if chosen == last {
         let mut placed = vec![blank; n - k];
         placed.append(cells);
         *cells = placed;
+    } else if chosen == NONE {
+        *cells = vec![blank; n];
     }
 }
 
@@ -226,7 +244,7 @@ fn resolve(row: &TableRow, a: Ambiguity, keyed: &[Keyed], log: &mut Log) -> Opti
         _ => log.ask(
             text,
             "meaning",
-            format!("\"{text}\" does not say effective or actual; read as the effective {what}"),
+            |c| format!("\"{text}\" does not say effective or actual; read as the {c} {what}"),
             &["effective", "actual"],
             "effective",
         ),
@@ -341,16 +359,13 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
             );
             one
         }
-        [] => pick(
-            log,
-            text,
-            &["mm", "cm", "in"],
-            "mm",
+        [] => pick(log, text, &["mm", "cm", "in"], "mm", |c| {
             format!(
-            "the numbers of \"{text}\" fit no usual range for {} in mm, cm or inches; read as mm",
-            row.m.label
-        ),
-        ),
+                    "the numbers of \"{text}\" fit no usual range for {} in mm, cm or inches; read as {}",
+                    row.m.label,
+                    unit_words(c)
+                )
+        }),
         _ => {
             let names: Vec<&str> = list.iter().map(|m| m.name()).collect();
             let words: Vec<&str> = list.iter().map(|m| m.words()).collect();
@@ -362,22 +377,38 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
             } else {
                 "as the most usual value"
             };
-            pick(
-                log,
-                text,
-                &names,
-                default.name(),
+            pick(log, text, &names, default.name(), |c| {
+                let why = if c == default.name() {
+                    why
+                } else {
+                    "as chosen"
+                };
                 format!(
                     "no unit given and the numbers of \"{text}\" fit {}; read as {} {why}",
                     words.join(" or "),
-                    default.words()
-                ),
-            )
+                    unit_words(c)
+                )
+            })
         }
     }
 }
 
-fn pick(log: &mut Log, row: &str, options: &[&str], default: &str, message: String) -> Mark {
+/// The words of a length unit's name (`"in"` → `"inches"`).
+fn unit_words(name: &str) -> &'static str {
+    LENGTHS
+        .into_iter()
+        .find(|m| m.name() == name)
+        .unwrap_or(Mark::Mm)
+        .words()
+}
+
+fn pick(
+    log: &mut Log,
+    row: &str,
+    options: &[&str],
+    default: &str,
+    message: impl FnOnce(&str) -> String,
+) -> Mark {
     let chosen = log.ask(row, "unit", message, options, default);
     LENGTHS
         .into_iter()
@@ -454,7 +485,7 @@ fn write_row(
                     log.ask(
                         &row.text,
                         "setting",
-                        format!("\"{}\" gives two values per size (such as two settings); the first was used", row.text),
+                        |c| format!("\"{}\" gives two values per size (such as two settings); the {c} was used", row.text),
                         &["first", "second"],
                         "first",
                     ) == "second"
