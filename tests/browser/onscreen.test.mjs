@@ -11,13 +11,25 @@ after(async () => { await env?.stop(); });
 
 const T = { timeout: 60000 };
 
+/**
+ * Scrolls the numbers so the element `selector` finds has its `edge` (top or bottom) `dy` px
+ * from the top of the screen, then waits for the observer. On a desk the numbers scroll in their
+ * own column (style.css, .view-col); on a phone with the page.
+ */
+async function scrollNumbers(page, selector, edge, at) {
+  await page.evaluate(([selector, edge, at]) => {
+    const by = document.querySelector(selector).getBoundingClientRect()[edge] - at;
+    const col = document.querySelector('.view-col');
+    if (getComputedStyle(col).overflowY === 'auto') col.scrollTop += by;
+    else window.scrollBy(0, by);
+  }, [selector, edge, at]);
+  await frames(page);
+}
+
 /** Scrolls so the frame table's reach row is the last on the screen; waits for the observer. */
 async function showReachRowLast(page) {
-  await page.evaluate(() => {
-    const row = document.querySelector('#results tr[data-key="reach_mm"]');
-    window.scrollTo(0, row.getBoundingClientRect().bottom + scrollY - innerHeight + 4);
-  });
-  await frames(page);
+  const height = await page.evaluate(() => innerHeight);
+  await scrollNumbers(page, '#results tr[data-key="reach_mm"]', 'bottom', height - 4);
 }
 
 /** Sets reach in one task and reports what the page shows right after the handler. */
@@ -125,11 +137,7 @@ test('rows queued by an edit give way to a later edit; a table wholly on the scr
   assert.equal(await page.evaluate(topTube), start, 'no older queued write came after the later edit');
   // The whole table on the screen (as the observer saw it at the last frame): every row is
   // written in the handler.
-  await page.evaluate(() => {
-    const table = document.querySelector('#results table');
-    window.scrollTo(0, table.getBoundingClientRect().top + scrollY - 10);
-  });
-  await frames(page);
+  await scrollNumbers(page, '#results table', 'top', 10);
   assert.equal(await page.evaluate(() => document.querySelector('#results table').getBoundingClientRect().bottom < innerHeight), true, 'the whole table fits');
   const whole = await edit(['456', '470']);
   assert.equal(whole.below, false);

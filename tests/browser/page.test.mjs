@@ -76,7 +76,7 @@ for (const [name, width, height] of SIZES) {
     const table = await page.locator('#results').innerHTML();
     const cases = [
       ['frame.head_angle_deg', 'steep', /"steep" is not a number/],
-      ['frame.head_angle_deg', '', /empty/],
+      ['frame.head_angle_deg', '', /^Required: enter an angle/],
       ['frame.head_angle_deg', '95', /Head tube angle must be between 45 and 85°, got 95/],
       ['wheels.front', '31x9', /not recognised/],
       ['rider.height_mm', 'tall', /"tall" is not a number/],
@@ -137,7 +137,7 @@ for (const [name, width, height] of SIZES) {
     assert.deepEqual(left, []);
     assert.equal(await more.textContent(), 'More frame numbers from the listing (9)');
     assert.equal(await page.evaluate(() => document.activeElement?.name), 'frame.reach_mm');
-    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^empty: enter a length/);
+    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^Required: enter a length/);
     assert.equal(await page.locator('#drawing svg').innerHTML(), good, 'the last good drawing stays');
     // A listing's own numbers: the page solves them alone, with nothing to disagree with.
     await page.fill('input[name="frame.reach_mm"]', '480');

@@ -16,6 +16,9 @@ function el(tag, props = {}, ...children) {
   return node;
 }
 
+/** A message as a sentence: its first letter in capitals. */
+const sentence = (t) => (t ? t.charAt(0).toUpperCase() + t.slice(1) : t);
+
 function list(title, items, cls) {
   if (!items?.length) return null;
   const text = (i) => (typeof i === 'string' ? i : i.message ?? i.label ?? JSON.stringify(i));
@@ -29,7 +32,7 @@ function questionList(questions, answers, reread) {
     const select = el('select', { id });
     for (const o of q.options ?? []) select.append(el('option', { value: o, selected: o === q.chosen }, o));
     select.addEventListener('change', () => { answers[q.id] = select.value; reread(); });
-    return el('li', { class: 'question' }, el('label', { htmlFor: id }, q.message), select);
+    return el('li', { class: 'question' }, el('label', { htmlFor: id }, sentence(q.message)), select);
   });
   return el('div', { class: 'chart-questions' }, el('h3', {}, 'Questions'), el('ul', {}, ...items));
 }
@@ -86,7 +89,7 @@ export function attachChart(section, apply) {
     }
     parts.push(list('Rows not recognised (not used)', run.unrecognised, 'chart-unrecognised'));
     parts.push(questionList(run.questions, answers, read));
-    parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : n.message)), 'chart-notes'));
+    parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : sentence(n.message))), 'chart-notes'));
     out.replaceChildren(...parts.filter(Boolean));
   }
   function start() {

@@ -16,6 +16,9 @@ export function format(key, v) {
   return v.toFixed(unitOf(key)[2]).replace('-', '−');
 }
 
+/** A message as a sentence: its first letter in capitals. */
+const sentence = (t) => (t ? t.charAt(0).toUpperCase() + t.slice(1) : t);
+
 function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);
   for (const [k, v] of Object.entries(props)) {
@@ -109,7 +112,7 @@ function model(bike, notes, catalogue) {
     bike.warnings?.length && ['warnings', () => ({
       type: 'warnings',
       items: bike.warnings.map((w) => ({
-        cls: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note', text: w.message,
+        cls: w.code.startsWith('caution') ? 'caution' : w.code === 'inconsistent' ? 'inconsistent' : 'note', text: sentence(w.message),
       })),
     })],
     bike.missing?.length && ['missing', () => ({ type: 'missing', keys: bike.missing })],

@@ -64,7 +64,7 @@ pub enum UnitError {
 impl fmt::Display for UnitError {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
-            UnitError::Empty { accepted } => write!(f, "empty: enter {accepted}"),
+            UnitError::Empty { accepted } => write!(f, "Required: enter {accepted}"),
             UnitError::NotANumber { text, accepted } => {
                 write!(f, "\"{text}\" is not a number: enter {accepted}")
             }

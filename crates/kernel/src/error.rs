@@ -41,6 +41,12 @@ impl FieldError {
         max: f64,
         unit: &str,
     ) -> Self {
+        // A sentence: the label's first letter in capitals ("rider height" → "Rider height").
+        let mut chars = label.chars();
+        let label: String = chars
+            .next()
+            .map(|c| c.to_uppercase().chain(chars).collect())
+            .unwrap_or_default();
         // Degrees and percent follow the number directly ("85°"); other units after a space.
         let unit = match unit {
             "°" | "%" | "" => unit.to_string(),
@@ -133,7 +139,7 @@ mod tests {
         assert_eq!(e.allowed, Some((45.0, 85.0)));
         assert_eq!(
             e.message,
-            "head tube angle must be between 45 and 85°, got 95"
+            "Head tube angle must be between 45 and 85°, got 95"
         );
         let e = FieldError::out_of_range("x", "reach", f64::NAN, 0.0, 1.0, "mm");
         assert_eq!(e.code, "not_a_number");
