@@ -1,6 +1,9 @@
-//! A length typed as a bare number that millimetres put outside its allowed range: read again in
-//! centimetres or inches when exactly one of them fits, so a listing's "47.5" (cm) or "18.5"
-//! (in) can be typed on a phone's number pad, which has no letters.
+//! Second readings of what the kernel refused:
+//! - a length typed as a bare number that millimetres put outside its allowed range: read again
+//!   in centimetres or inches when exactly one of them fits, so a listing's "47.5" (cm) or
+//!   "18.5" (in) can be typed on a phone's number pad, which has no letters;
+//! - a wheel named without its tyre width (`29`, `27.5"`, `700c`, `650b`): read with the common
+//!   stock width the chart importer uses ([`crate::chart::wheels`]), with a note.
 //!
 //! **Invariant:** a value the kernel accepts as millimetres is never read another way; only a
 //! field the kernel refused as out of range is looked at, and only when the person typed no
@@ -44,13 +47,37 @@ pub enum Reread {
     },
 }
 
-/// The second readings of the fields `errors` refused as out of range (form field names).
+/// The second readings of the fields `errors` refused (form field names): lengths out of range,
+/// wheel names without a width.
 pub fn reread_lengths(fields: &BTreeMap<String, String>, errors: &[FieldError]) -> Vec<Reread> {
     errors
         .iter()
-        .filter(|e| e.code == "out_of_range")
-        .filter_map(|e| reread(fields, e))
+        .filter_map(|e| match e.code.as_str() {
+            "out_of_range" => reread(fields, e),
+            "unknown_wheel" => reread_wheel(fields, e),
+            _ => None,
+        })
         .collect()
+}
+
+/// A wheel field (`wheels.front`, `changes.wheels.rear` …) whose text names a wheel without its
+/// tyre width: the designation with the common width, for the field's end of the bike.
+fn reread_wheel(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
+    field(&e.field).filter(|f| f.kind == Kind::Wheel)?;
+    let typed = fields.get(&e.field)?.trim();
+    let w = crate::chart::wheels::parse_wheel_cell(typed).filter(|w| w.width_assumed)?;
+    let text = if e.field.ends_with("rear") {
+        w.rear
+    } else {
+        w.front
+    };
+    Some(Reread::Unit {
+        field: e.field.clone(),
+        note: format!(
+            "Read as {text}: \"{typed}\" gives no tyre width, so a common stock width was assumed (29 and 27.5: 2.4 in; 700c: 32 mm; 650b: 47 mm). Type the width, such as 29x2.6, if yours differs."
+        ),
+        text,
+    })
 }
 
 fn reread(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
@@ -156,6 +183,31 @@ mod tests {
         };
         assert_eq!(field, "setup.stem_mm");
         assert!(hint.contains("5 mm, in inches 12.7 mm"), "{hint}");
+    }
+
+    #[test]
+    fn a_wheel_named_without_its_width_gets_the_common_width_and_says_so() {
+        let fields = form(&[
+            ("wheels.front", "29\""),
+            ("changes.wheels.rear", "MX"),
+            ("wheels.rear", "31"),
+        ]);
+        let errors: Vec<FieldError> = ["wheels.front", "changes.wheels.rear", "wheels.rear"]
+            .iter()
+            .map(|f| FieldError::new("unknown_wheel", *f, "not recognised"))
+            .collect();
+        let got = reread_lengths(&fields, &errors);
+        assert_eq!(got.len(), 2, "{got:?}");
+        let Reread::Unit { text, note, .. } = &got[0] else {
+            panic!("{got:?}");
+        };
+        assert_eq!(text, "29x2.4");
+        assert!(
+            note.starts_with("Read as 29x2.4: \"29\"\" gives no tyre width"),
+            "{note}"
+        );
+        // A mixed pair in a rear field: the rear's 27.5.
+        assert!(matches!(&got[1], Reread::Unit { text, .. } if text == "27.5x2.4"));
     }
 
     #[test]

@@ -33,9 +33,9 @@ pub struct Wheel {
 }
 
 /// The accepted forms, listed in every error message.
-pub const ACCEPTED_FORMS: &str = "ETRTO \"62-622\" (width-BSD in mm), \"29x2.4\", \"27.5x2.5\", \"26x2.3\", \
-\"24x2.0\", \"20x1.75\", \"700x32c\", \"650bx47\", \"650cx23\" (tyre width in inches below 5, else mm), \
-or {\"diameter_mm\": 740}";
+pub const ACCEPTED_FORMS: &str = "a wheel and tyre size such as 29x2.4, 27.5x2.5, 26x2.3, 24x2.0, \
+20x1.75, 700x32c, 650bx47 or 650cx23 (tyre width in inches below 5, else mm), or ETRTO 62-622 \
+(width-BSD in mm)";
 
 /// Common size names → bead seat diameter (mm).
 /// Source: ISO 5775 bead seat diameters (Wikipedia, "ISO 5775"): 622, 584, 559, 507, 406, 305 read;
@@ -104,7 +104,7 @@ impl WheelSpec {
                     "unknown_wheel",
                     field.to_string(),
                     format!(
-                        "wheel size \"{}\" is not recognised; accepted forms: {ACCEPTED_FORMS}",
+                        "Wheel size \"{}\" is not recognised: enter {ACCEPTED_FORMS}",
                         text.trim()
                     ),
                 )

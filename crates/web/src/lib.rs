@@ -762,6 +762,46 @@ mod tests {
     }
 
     #[test]
+    fn a_wheel_named_without_its_tyre_width_is_read_with_the_common_width() {
+        let view = r#"{"posture":"seated"}"#;
+        let with_wheel = |w: &str| {
+            let form = form_with("470", "1780").replace(
+                r#""setup.stem_mm":"45""#,
+                &format!(r#""setup.stem_mm":"45","wheels.front":"{w}","wheels.rear":"29x2.4""#),
+            );
+            let json = evaluate_form_linked_to_json(&form, view);
+            serde_json::from_str::<serde_json::Value>(&json).unwrap_or_default()
+        };
+        let named = with_wheel("27.5");
+        let full = with_wheel("27.5x2.4");
+        assert_eq!(named["field_errors"], serde_json::json!([]), "{named}");
+        assert_eq!(named["report"], full["report"]);
+        assert_eq!(named["field_notes"][0]["field"], "wheels.front");
+        let said = named["field_notes"][0]["message"]
+            .as_str()
+            .unwrap_or_default();
+        assert!(
+            said.starts_with("Read as 27.5x2.4: \"27.5\" gives no tyre width"),
+            "{said}"
+        );
+        // A size no wheel has stays an error, in words a person can act on.
+        let bad = with_wheel("31");
+        let said = bad["field_errors"][0]["message"]
+            .as_str()
+            .unwrap_or_default();
+        assert!(
+            said.starts_with(
+                "Wheel size \"31\" is not recognised: enter a wheel and tyre size such as 29x2.4"
+            ),
+            "{said}"
+        );
+        assert!(
+            !said.contains('{'),
+            "no JSON in a message for a person: {said}"
+        );
+    }
+
+    #[test]
     fn an_inconsistent_published_value_is_explained_and_the_drawing_has_every_layer() {
         // Reach, stack, head angle, head tube, fork and offset fix the front; a wheelbase 40 mm
         // longer than the frame with a 435 mm chainstay allows cannot also hold.
