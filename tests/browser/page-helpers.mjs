@@ -21,7 +21,7 @@ export async function waitCell(page, key, want, tol, col = 'ridden') {
 
 
 /**
- * Wheel-zooms into the middle of the drawing; returns its viewBox before (`fit`) and after
+ * Ctrl-wheel-zooms into the middle of the drawing; returns its viewBox before (`fit`) and after
  * (`zoomed`), and its box.
  */
 export async function zoomIn(page) {
@@ -29,7 +29,9 @@ export async function zoomIn(page) {
   const fit = await svg.getAttribute('viewBox');
   const box = await svg.boundingBox();
   await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.keyboard.down('Control'); // a plain wheel scrolls the page (web/ui/zoom.js)
   await page.mouse.wheel(0, -400);
+  await page.keyboard.up('Control');
   return { fit, zoomed: await svg.getAttribute('viewBox'), box };
 }
 

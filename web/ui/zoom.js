@@ -1,6 +1,10 @@
 // Pinch, wheel and drag zoom and pan on the drawing, by changing the SVG viewBox. The drawing
 // arrives fitted to the bike; once the person zooms, the chosen view is kept across redraws
 // (restore) and patches (refit) until "Fit" is pressed.
+// The drawing must not trap scrolling: on a touch screen one finger scrolls the page until the
+// drawing is zoomed (then it moves the drawing; the container's `zoomed` class switches
+// touch-action in style.css); a mouse wheel scrolls the page, and zooms with Ctrl held (a
+// trackpad pinch arrives as a wheel with Ctrl).
 
 export function attachZoom(container, fitButton) {
   let view = null; // [x, y, w, h] chosen by the person, or null = the drawing's own fit
@@ -11,6 +15,7 @@ export function attachZoom(container, fitButton) {
   const current = () => view ?? svg()?.getAttribute('viewBox')?.split(/[ ,]+/).map(Number);
 
   function apply() {
+    container.classList.toggle('zoomed', view !== null);
     const s = svg();
     if (!s || !view) return;
     if (!s.dataset.fit) s.dataset.fit = s.getAttribute('viewBox');
@@ -19,6 +24,7 @@ export function attachZoom(container, fitButton) {
 
   function fit() {
     view = null;
+    container.classList.remove('zoomed');
     const s = svg();
     if (s?.dataset.fit) s.setAttribute('viewBox', s.dataset.fit);
   }
@@ -75,7 +81,8 @@ export function attachZoom(container, fitButton) {
     const g = gesture();
     if (last && g.n === last.n) {
       if (g.n > 1 && last.dist > 0 && g.dist > 0) zoomAt(g.cx, g.cy, g.dist / last.dist);
-      panBy(g.cx - last.cx, g.cy - last.cy);
+      // One finger on a drawing that is not zoomed is the page's (sideways too): no pan.
+      if (g.n > 1 || e.pointerType !== 'touch' || view) panBy(g.cx - last.cx, g.cy - last.cy);
     }
     last = g;
   });
@@ -83,7 +90,7 @@ export function attachZoom(container, fitButton) {
   container.addEventListener('pointerup', up);
   container.addEventListener('pointercancel', up);
   container.addEventListener('wheel', (e) => {
-    if (!svg()) return;
+    if (!svg() || !e.ctrlKey) return; // a plain wheel scrolls the page
     e.preventDefault();
     zoomAt(e.clientX, e.clientY, Math.exp(-e.deltaY * 0.0015));
   }, { passive: false });
