@@ -279,17 +279,14 @@ pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, S
         .iter()
         .filter(|(_, r)| !r.consistent)
         .map(|(key, r)| {
-            let (label, unit, digits) = match lookup(key) {
-                Some(m) if m.unit.symbol() == "°" => (m.label, "°", 1),
-                Some(m) => (m.label, " mm", 0),
-                None => (key.as_str(), "", 1),
+            let (label, degrees) = match lookup(key) {
+                Some(m) => (m.label, m.unit.symbol() == "°"),
+                None => (key.as_str(), false),
             };
-            let n = |v: f64| format!("{v:.digits$}{unit}");
+            let [given, solved, away] =
+                framewise_kernel::error::fmt_disagreement(r.given, r.solved, degrees);
             let note = format!(
-                "{label} is published as {} but the other published numbers make it {}, {} away, more than rounding explains: one of them is probably a misprint or measured another way.",
-                n(r.given),
-                n(r.solved),
-                n(r.residual.abs())
+                "{label} is published as {given} but the other published numbers make it {solved}, {away} away, more than rounding explains: one of them is probably a misprint or measured another way."
             );
             (key.clone(), note)
         })

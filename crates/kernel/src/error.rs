@@ -107,6 +107,29 @@ impl Warning {
     }
 }
 
+/// A published value, the value the other numbers give and their difference, as text with the
+/// unit: whole millimetres or tenths of a degree, one digit more when the difference would
+/// otherwise read as one step or less ("0.1° away" for 0.06°), so the difference is never
+/// shown smaller or larger than the values beside it show.
+pub fn fmt_disagreement(given: f64, solved: f64, degrees: bool) -> [String; 3] {
+    let (mut digits, unit) = if degrees { (1, "°") } else { (0, " mm") };
+    let step = 10f64.powi(-digits);
+    if (solved - given).abs() <= step * 1.5 {
+        digits += 1;
+    }
+    let d = usize::try_from(digits).unwrap_or(1);
+    let n = |v: f64| {
+        let s = format!("{v:.d$}");
+        let s = if s.trim_start_matches('-').bytes().all(|b| b == b'0' || b == b'.') {
+            s.trim_start_matches('-').to_string()
+        } else {
+            s
+        };
+        format!("{s}{unit}")
+    };
+    [n(given), n(solved), n((solved - given).abs())]
+}
+
 /// Formats a number for a message: at most two decimals, no trailing zeros.
 pub fn fmt_num(v: f64) -> String {
     if !v.is_finite() {
@@ -144,6 +167,26 @@ mod tests {
         let e = FieldError::out_of_range("x", "reach", f64::NAN, 0.0, 1.0, "mm");
         assert_eq!(e.code, "not_a_number");
         assert!(e.message.contains("NaN"));
+    }
+
+    #[test]
+    fn disagreements_show_a_digit_more_when_the_difference_is_one_step() {
+        assert_eq!(
+            fmt_disagreement(64.5, 64.56, true),
+            ["64.50°", "64.56°", "0.06°"]
+        );
+        assert_eq!(
+            fmt_disagreement(64.5, 65.1, true),
+            ["64.5°", "65.1°", "0.6°"]
+        );
+        assert_eq!(
+            fmt_disagreement(1272.0, 1232.1, false),
+            ["1272 mm", "1232 mm", "40 mm"]
+        );
+        assert_eq!(
+            fmt_disagreement(440.0, 439.42, false),
+            ["440.0 mm", "439.4 mm", "0.6 mm"]
+        );
     }
 
     #[test]

@@ -8,7 +8,7 @@ use super::model::{leverages, rank, Model, Row};
 use super::unknowns::X;
 use super::INCONSISTENT_FACTOR;
 use crate::catalogue::lookup;
-use crate::error::{fmt_num, Warning};
+use crate::error::{fmt_disagreement, Warning};
 use crate::geometry::MEASURED_KEYS;
 
 fn key(index: usize) -> &'static str {
@@ -91,11 +91,11 @@ pub fn warning(bad: &[(usize, f64, f64)], suspects: &[usize]) -> Warning {
     let list: Vec<String> = bad
         .iter()
         .map(|(i, given, solved)| {
+            let [given, solved, _] =
+                fmt_disagreement(*given, *solved, key(*i).ends_with("_deg"));
             format!(
-                "{} is published as {} but the other numbers give {}",
-                label(*i),
-                fmt_num(*given),
-                fmt_num(*solved)
+                "{} is published as {given} but the other numbers give {solved}",
+                label(*i)
             )
         })
         .collect();
