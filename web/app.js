@@ -69,6 +69,15 @@ clearFrame.addEventListener('click', () => {
 // A link pasted into the open page's address is evaluated at once.
 const share = initShare({ getFields: formFields, applyFields: writeForm, getView, applyView, opened: () => update() });
 
+// A problem with the field being typed in waits for this pause (or for the field to be left).
+const TYPING_PAUSE_MS = 800;
+let problemsLater = 0;
+let sayProblems = null; // the waiting problems' writer
+form.addEventListener('focusout', () => {
+  clearTimeout(problemsLater);
+  sayProblems?.();
+});
+
 function update(event) {
   const typedIn = event?.target;
   const oneField = typed && typedIn?.name && typedIn.form === form;
@@ -85,14 +94,26 @@ function update(event) {
     heldForm = wasm.page_form_seq();
   }
   const result = JSON.parse(answer);
+  clearTimeout(problemsLater);
+  sayProblems = null;
   clearMessages();
   if (result.field_notes) showNotes(form, result.field_notes); // lengths read in cm or inches
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
-    const unplaced = showErrors(form, errors.length ? errors : result.report.errors);
-    status.textContent = unplaced.length
-      ? unplaced.join(' ')
-      : 'Fix the marked field; the drawing and numbers show the last good values.';
+    const show = () => {
+      sayProblems = null;
+      const unplaced = showErrors(form, errors.length ? errors : result.report.errors);
+      status.textContent = unplaced.length
+        ? unplaced.join(' ')
+        : 'Fix the marked field; the drawing and numbers show the last good values.';
+    };
+    // A number half typed ("4" of "470") is said only after a pause in typing, or when the
+    // person leaves the field; any other problem at once. The last good result stays meanwhile.
+    const typing = oneField && errors.length && errors.every((e) => e.field === typedIn.name);
+    if (typing) {
+      sayProblems = show;
+      problemsLater = setTimeout(show, TYPING_PAUSE_MS);
+    } else show();
     return;
   }
   if (status.textContent) status.textContent = '';

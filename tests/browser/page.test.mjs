@@ -84,6 +84,10 @@ for (const [name, width, height] of SIZES) {
     for (const [field, value, pattern] of cases) {
       await page.fill(`[name="${field}"]`, value);
       const input = page.locator(`[name="${field}"]`);
+      // While the person types, the half-typed value is not called wrong at once; leaving the
+      // field says it (a pause in typing does too, below).
+      assert.equal(await input.getAttribute('aria-invalid'), null, `${field}: not marked while typing`);
+      await input.blur();
       const ids = (await input.getAttribute('aria-describedby')).split(' ');
       const msg = page.locator(`#${ids[0]}`);
       assert.match(await msg.textContent(), pattern);
@@ -95,6 +99,9 @@ for (const [name, width, height] of SIZES) {
       await page.fill(`[name="${field}"]`, field === 'wheels.front' ? '29x2.4' : field === 'rider.height_mm' ? '1780' : '65');
     }
     await page.fill('input[name="frame.head_angle_deg"]', '95');
+    // Still in the field: the message comes after a pause in typing.
+    await page.waitForSelector('input[name="frame.head_angle_deg"][aria-invalid="true"]', { timeout: 5000 });
+    assert.match(await page.locator('#f-frame-head-angle-deg-msg').textContent(), /must be between 45 and 85°/);
     await shot(page, `${SHOTS}/page-${name}-bad-value.png`);
     await page.fill('input[name="frame.head_angle_deg"]', '65');
     await page.waitForFunction(() => !document.querySelector('[aria-invalid="true"]'), null, { timeout: 5000 });
