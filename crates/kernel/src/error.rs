@@ -120,7 +120,11 @@ pub fn fmt_disagreement(given: f64, solved: f64, degrees: bool) -> [String; 3] {
     let d = usize::try_from(digits).unwrap_or(1);
     let n = |v: f64| {
         let s = format!("{v:.d$}");
-        let s = if s.trim_start_matches('-').bytes().all(|b| b == b'0' || b == b'.') {
+        let s = if s
+            .trim_start_matches('-')
+            .bytes()
+            .all(|b| b == b'0' || b == b'.')
+        {
             s.trim_start_matches('-').to_string()
         } else {
             s

@@ -124,3 +124,30 @@ fn outside_the_annex_a_window_is_information() {
         .iter()
         .any(|w| w.code == "info_iso_window"));
 }
+
+/// The note names only what is outside the guide, and a head angle a hair under 65° (a solved
+/// frame's 64.99…°, shown as 65.0°) counts as inside. Source: ISO 4210-2:2015 Annex A as above;
+/// the margins are the page's rounding (0.1°, 1 mm).
+#[test]
+fn the_annex_a_note_names_only_what_is_outside() {
+    // R 372, 65°, offset 44: axis height 267.9 mm, above the 223.2 mm top of the window.
+    let d = derived(372.0, 64.999_999, 44.0);
+    let note = |d: &framewise_kernel::report::Numbers, angle: f64| {
+        let rep = framewise_kernel::evaluate::iso_window_note(d, angle);
+        rep.map(|w| w.message).unwrap_or_default()
+    };
+    let said = note(&d, 64.999_999);
+    assert!(!said.contains("head angle"), "{said}");
+    assert!(
+        said.contains("268 mm above the ground, outside its 56 to 223 mm"),
+        "{said}"
+    );
+    let said = note(&d, 63.5);
+    assert!(
+        said.contains("the head angle of 63.5° is outside its 65° to 75°, and"),
+        "{said}"
+    );
+    // A road-like bike inside both: no note.
+    let d = derived(340.0, 73.0, 45.0);
+    assert_eq!(note(&d, 73.0), "");
+}

@@ -91,8 +91,7 @@ pub fn warning(bad: &[(usize, f64, f64)], suspects: &[usize]) -> Warning {
     let list: Vec<String> = bad
         .iter()
         .map(|(i, given, solved)| {
-            let [given, solved, _] =
-                fmt_disagreement(*given, *solved, key(*i).ends_with("_deg"));
+            let [given, solved, _] = fmt_disagreement(*given, *solved, key(*i).ends_with("_deg"));
             format!(
                 "{} is published as {given} but the other numbers give {solved}",
                 label(*i)
