@@ -10,6 +10,7 @@ import { initShare } from './ui/share.js'; // share links (issue 6)
 import { registerOffline } from './ui/offline.js'; // offline use (issue 6)
 import { createPainter } from './ui/onscreen.js';
 import { createDrawingWriter } from './ui/drawing.js';
+import { createStrip } from './ui/strip.js';
 
 await wasm.default();
 
@@ -32,6 +33,7 @@ attachView(drawing);
 const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
+const showStrip = createStrip(document.getElementById('strip'), definitions); // key numbers on a phone
 
 // The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;
@@ -119,6 +121,7 @@ function update(event) {
   if (status.textContent) status.textContent = '';
   // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
+  showStrip(result.report.bikes[0]);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page, in the next task
 }

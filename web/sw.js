@@ -23,6 +23,7 @@ const PRECACHE = [
   'ui/results.js',
   'ui/share.css',
   'ui/share.js',
+  'ui/strip.js',
   'ui/view.js',
   'ui/zoom.js',
   'pkg/framewise.js',

@@ -159,6 +159,39 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
+  test(`${name}: while typing, a phone shows the key numbers at the top of the screen`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    const strip = page.locator('#strip');
+    assert.equal(await strip.isVisible(), false, 'hidden until the form has the focus');
+    const grip = () => strip.locator('div[title="BB-to-grip distance"] dd').textContent();
+    await page.fill('input[name="frame.reach_mm"]', '490');
+    await waitCell(page, 'reach_mm', 490, 0.06);
+    if (width < 960) {
+      assert.ok(await strip.isVisible());
+      const box = await strip.boundingBox();
+      assert.equal(box.y, 0, 'at the top of the screen');
+      assert.ok(box.height <= 96, `a short strip: ${box.height} px`);
+      // The same numbers as the tables, whole mm.
+      assert.equal(await strip.locator('div[title="Reach"] dd').textContent(), '490 mm');
+      const wheelbase = Math.round(await cell(page, 'wheelbase_mm'));
+      assert.equal(await strip.locator('div[title="Wheelbase"] dd').textContent(), `${wheelbase} mm`);
+      // A longer stem moves the grip away from the BB.
+      const before = Number.parseFloat(await grip());
+      await page.fill('input[name="setup.stem_mm"]', '70');
+      await page.waitForFunction((b) => Number.parseFloat(document.querySelector('#strip div[title="BB-to-grip distance"] dd').textContent) > b, before, { timeout: 5000 });
+      // The focused field stays clear of the strip.
+      const field = await page.locator('input[name="setup.stem_mm"]').boundingBox();
+      assert.ok(field.y >= box.y + box.height, `the field (${field.y}) is below the strip`);
+      await shot(page, `${SHOTS}/page-${name}-strip.png`);
+      await page.locator('input[name="setup.stem_mm"]').blur();
+      assert.equal(await strip.isVisible(), false, 'gone with the focus');
+    } else {
+      assert.equal(await strip.isVisible(), false, 'a desk shows the drawing and tables beside the form');
+    }
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test(`${name}: a published value that disagrees is marked and explained in a sentence`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     // The demo frame's wheelbase is fixed by reach, head angle, fork and chainstay (§8a: about

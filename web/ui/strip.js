@@ -1,0 +1,49 @@
+// The strip of key numbers on a phone: while a person types in the form, the drawing and the
+// tables are far above, so a bar at the top of the screen shows the ridden bike's key numbers and
+// the count of cautions, written by every edit (style.css shows it only on a narrow screen with
+// the focus in the form). Labels come from the catalogue and glossary (Rust).
+
+/** The ridden numbers shown, in order. */
+const KEYS = ['reach_mm', 'stack_mm', 'head_angle_deg', 'trail_mm', 'wheelbase_mm', 'bb_to_grip_mm'];
+
+/** Short names for the strip's narrow cells; the full name is the cell's title. */
+const SHORT = { head_angle_deg: 'Head angle', bb_to_grip_mm: 'BB to grip' };
+
+/** Whole millimetres and tenths of a degree: the strip is narrow (the tables show more). */
+const text = (key, v) => (key.endsWith('_deg') ? `${v.toFixed(1)}°` : `${Math.round(v)} mm`);
+
+/**
+ * strip: the strip's element; words: key → catalogue entry. Returns show(bike): writes the
+ * numbers of one evaluated bike.
+ */
+export function createStrip(strip, words) {
+  const cells = new Map();
+  const list = document.createElement('dl');
+  for (const key of KEYS) {
+    const item = document.createElement('div');
+    const name = document.createElement('dt');
+    const value = document.createElement('dd');
+    name.textContent = SHORT[key] ?? words.get(key)?.label ?? key;
+    item.title = words.get(key)?.label ?? key;
+    value.textContent = '–';
+    item.append(name, value);
+    list.append(item);
+    cells.set(key, value);
+  }
+  const cautions = document.createElement('a');
+  cautions.href = '#results-title';
+  cautions.className = 'strip-cautions';
+  strip.append(list, cautions);
+
+  return function show(bike) {
+    for (const [key, cell] of cells) {
+      const v = bike.ridden?.[key];
+      const shown = Number.isFinite(v) ? text(key, v) : '–';
+      if (cell.textContent !== shown) cell.textContent = shown;
+    }
+    const n = (bike.warnings ?? []).filter((w) => w.code.startsWith('caution')).length;
+    const said = n ? `${n} caution${n > 1 ? 's' : ''}` : 'No cautions';
+    if (cautions.textContent !== said) cautions.textContent = said;
+    cautions.classList.toggle('some', n > 0);
+  };
+}
