@@ -15,12 +15,25 @@ pub const REQUIRED: &[&str] = &["frame.reach_mm", "frame.stack_mm", "frame.head_
 
 /// Builds a scenario from the form. Errors carry the form field name in `field`.
 pub fn scenario_from_form(fields: &BTreeMap<String, String>) -> (Scenario, Vec<FieldError>) {
+    scenario_from_form_with(fields, &[])
+}
+
+/// [`scenario_from_form`] with the text of some fields replaced (`(field name, text)`: a second
+/// reading, `crate::form_units`), without copying the form.
+pub fn scenario_from_form_with(
+    fields: &BTreeMap<String, String>,
+    replaced: &[(String, String)],
+) -> (Scenario, Vec<FieldError>) {
     let mut bike = BikeInput::default();
     let mut rider = serde_json::Map::new();
     let mut errors = Vec::new();
     let mut setup = serde_json::Map::new();
     let mut changes = serde_json::Map::new();
     for (name, text) in fields {
+        let text = replaced
+            .iter()
+            .find(|(n, _)| n == name)
+            .map_or(text, |(_, t)| t);
         let blank = text.trim().is_empty();
         if blank && !REQUIRED.contains(&name.as_str()) {
             continue;

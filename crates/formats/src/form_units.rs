@@ -61,16 +61,11 @@ pub fn reread_lengths(fields: &BTreeMap<String, String>, errors: &[FieldError]) 
 }
 
 /// A wheel field (`wheels.front`, `changes.wheels.rear` …) whose text names a wheel without its
-/// tyre width: the designation with the common width, for the field's end of the bike.
+/// tyre width: the designation with the common width.
 fn reread_wheel(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
     field(&e.field).filter(|f| f.kind == Kind::Wheel)?;
     let typed = fields.get(&e.field)?.trim();
-    let w = crate::chart::wheels::parse_wheel_cell(typed).filter(|w| w.width_assumed)?;
-    let text = if e.field.ends_with("rear") {
-        w.rear
-    } else {
-        w.front
-    };
+    let text = bare_wheel(typed)?.to_string();
     Some(Reread::Unit {
         field: e.field.clone(),
         note: format!(
@@ -85,17 +80,15 @@ fn reread(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
     let f = field(&e.field).filter(|f| f.kind == Kind::Mm)?;
     let typed = fields.get(&e.field)?.trim();
     let v = parse_number(typed).filter(|v| *v > 0.0 && *v < min)?;
-    let key = e.field.rsplit('.').next().unwrap_or("");
     let likely = e
         .field
-        .starts_with("frame.")
-        .then(|| lookup(key).map(|m| m.plausible))
-        .flatten()
-        .unwrap_or((min, max));
+        .strip_prefix("frame.")
+        .and_then(lookup)
+        .map_or((min, max), |m| m.plausible);
     let fits = |mm: f64| (min..=max).contains(&mm) && (likely.0..=likely.1).contains(&mm);
     let (cm, inch) = (v * MM_PER_CM, v * MM_PER_IN);
     let field = e.field.clone();
-    let label = f.label.to_lowercase();
+    let label = f.label.to_ascii_lowercase();
     match (fits(cm), fits(inch)) {
         (true, false) => Some(unit(field, typed, ("cm", cm), &label, min)),
         (false, true) => Some(unit(field, typed, ("in", inch), &label, min)),
@@ -122,6 +115,26 @@ fn unit(field: String, typed: &str, (mark, mm): (&str, f64), label: &str, min: f
             fmt_num(min)
         ),
     }
+}
+
+/// The designation with the chart importer's common width for a wheel named without one (`29`,
+/// `27,5"`, `700C`, `650b`, `29 in`), or `None`. ASCII only: the page's module stays small.
+fn bare_wheel(typed: &str) -> Option<&'static str> {
+    let t: String = typed
+        .to_ascii_lowercase()
+        .replace(',', ".")
+        .chars()
+        .filter(|c| !c.is_whitespace() && !matches!(c, '"' | '\u{2033}' | '\u{201d}'))
+        .collect();
+    let t = t
+        .strip_suffix("inches")
+        .or_else(|| t.strip_suffix("inch"))
+        .or_else(|| t.strip_suffix("in"))
+        .unwrap_or(&t);
+    crate::chart::wheels::DEFAULTS
+        .iter()
+        .find(|(name, _)| *name == t)
+        .map(|(_, designation)| *designation)
 }
 
 #[cfg(test)]
@@ -189,25 +202,35 @@ mod tests {
     fn a_wheel_named_without_its_width_gets_the_common_width_and_says_so() {
         let fields = form(&[
             ("wheels.front", "29\""),
-            ("changes.wheels.rear", "MX"),
+            ("changes.wheels.rear", "27,5 in"),
             ("wheels.rear", "31"),
+            ("changes.wheels.front", "700C"),
         ]);
-        let errors: Vec<FieldError> = ["wheels.front", "changes.wheels.rear", "wheels.rear"]
-            .iter()
-            .map(|f| FieldError::new("unknown_wheel", *f, "not recognised"))
-            .collect();
+        let errors: Vec<FieldError> = [
+            "wheels.front",
+            "changes.wheels.rear",
+            "wheels.rear",
+            "changes.wheels.front",
+        ]
+        .iter()
+        .map(|f| FieldError::new("unknown_wheel", *f, "not recognised"))
+        .collect();
         let got = reread_lengths(&fields, &errors);
-        assert_eq!(got.len(), 2, "{got:?}");
-        let Reread::Unit { text, note, .. } = &got[0] else {
+        let texts: Vec<&str> = got
+            .iter()
+            .filter_map(|r| match r {
+                Reread::Unit { text, .. } => Some(text.as_str()),
+                Reread::Either { .. } => None,
+            })
+            .collect();
+        assert_eq!(texts, ["29x2.4", "27.5x2.4", "700x32c"], "{got:?}");
+        let Reread::Unit { note, .. } = &got[0] else {
             panic!("{got:?}");
         };
-        assert_eq!(text, "29x2.4");
         assert!(
             note.starts_with("Read as 29x2.4: \"29\"\" gives no tyre width"),
             "{note}"
         );
-        // A mixed pair in a rear field: the rear's 27.5.
-        assert!(matches!(&got[1], Reread::Unit { text, .. } if text == "27.5x2.4"));
     }
 
     #[test]

@@ -41,12 +41,12 @@ impl FieldError {
         max: f64,
         unit: &str,
     ) -> Self {
-        // A sentence: the label's first letter in capitals ("rider height" → "Rider height").
-        let mut chars = label.chars();
-        let label: String = chars
-            .next()
-            .map(|c| c.to_uppercase().chain(chars).collect())
-            .unwrap_or_default();
+        // A sentence: the label's first letter in capitals ("rider height" → "Rider height";
+        // labels are ASCII, and Unicode case tables would add kilobytes to the page's module).
+        let mut label = label.to_string();
+        if let Some(first) = label.get_mut(..1) {
+            first.make_ascii_uppercase();
+        }
         // Degrees and percent follow the number directly ("85°"); other units after a space.
         let unit = match unit {
             "°" | "%" | "" => unit.to_string(),
@@ -112,24 +112,16 @@ impl Warning {
 /// otherwise read as one step or less ("0.1° away" for 0.06°), so the difference is never
 /// shown smaller or larger than the values beside it show.
 pub fn fmt_disagreement(given: f64, solved: f64, degrees: bool) -> [String; 3] {
-    let (mut digits, unit) = if degrees { (1, "°") } else { (0, " mm") };
-    let step = 10f64.powi(-digits);
-    if (solved - given).abs() <= step * 1.5 {
-        digits += 1;
-    }
-    let d = usize::try_from(digits).unwrap_or(1);
+    let (step, unit) = if degrees { (0.1, "°") } else { (1.0, " mm") };
+    let fine = (solved - given).abs() <= step * 1.5;
+    let d = usize::from(degrees) + usize::from(fine);
     let n = |v: f64| {
         let s = format!("{v:.d$}");
-        let s = if s
-            .trim_start_matches('-')
-            .bytes()
-            .all(|b| b == b'0' || b == b'.')
-        {
-            s.trim_start_matches('-').to_string()
-        } else {
-            s
-        };
-        format!("{s}{unit}")
+        match s.strip_prefix('-') {
+            // "-0.0" is written without its sign.
+            Some(rest) if rest.bytes().all(|b| b == b'0' || b == b'.') => format!("{rest}{unit}"),
+            _ => format!("{s}{unit}"),
+        }
     };
     [n(given), n(solved), n((solved - given).abs())]
 }

@@ -453,23 +453,24 @@ pub fn iso_window_note(d: &Numbers, head_angle_deg: f64) -> Option<Warning> {
     let (lo, hi) = (*d.get("iso_window_min_mm")?, *d.get("iso_window_max_mm")?);
     let angle_out = !(64.95..=75.05).contains(&head_angle_deg);
     let height_out = !((lo - 0.5)..=(hi + 0.5)).contains(&height);
-    let angle = || {
-        format!(
-            "the head angle of {:.1}° is outside its 65° to 75°",
-            head_angle_deg
-        )
-    };
-    let axis = || {
-        format!(
-            "the steering axis meets the vertical through the front axle {:.0} mm above the ground, outside its {:.0} to {:.0} mm (0.15 to 0.60 times the tyre radius)",
-            height, lo, hi
-        )
-    };
+    if !angle_out && !height_out {
+        return None;
+    }
+    // Tenths of a degree and whole mm, as the page shows them.
+    let angle = format!(
+        "the head angle of {}° is outside its 65° to 75°",
+        fmt_num((head_angle_deg * 10.0).round() / 10.0)
+    );
+    let axis = format!(
+        "the steering axis meets the vertical through the front axle {} mm above the ground, outside its {} to {} mm (0.15 to 0.60 times the tyre radius)",
+        fmt_num(height.round()),
+        fmt_num(lo.round()),
+        fmt_num(hi.round())
+    );
     let what = match (angle_out, height_out) {
-        (false, false) => return None,
-        (true, false) => angle(),
-        (false, true) => axis(),
-        (true, true) => format!("{}, and {}", angle(), axis()),
+        (true, false) => angle,
+        (false, _) => axis,
+        (true, true) => format!("{angle}, and {axis}"),
     };
     Some(Warning::new(
         "info_iso_window",

@@ -284,24 +284,16 @@ pub mod framewise_web_core {
         #[serde(skip_serializing_if = "Option::is_none")]
         notes: Option<std::collections::BTreeMap<String, String>>,
         field_errors: Vec<framewise_kernel::FieldError>,
-        /// Notes beside fields that do not stop the evaluation: a length typed without a unit
-        /// read in cm or inches (`framewise_formats::form_units`).
+        /// Notes beside fields that do not stop the evaluation, code `read_as`: a length typed
+        /// without a unit read in cm or inches, a wheel without its tyre width
+        /// (`framewise_formats::form_units`). The error type's shape: `{code, field, message}`.
         #[serde(skip_serializing_if = "Vec::is_empty")]
-        field_notes: Vec<FieldNote>,
+        field_notes: Vec<framewise_kernel::FieldError>,
         /// `Some(link)` for [`evaluate_form_linked_to_json`] (a member, `null` when `None`),
         /// `None` for the plain form result (no member). A plain member rather than a
         /// `#[serde(flatten)]` wrapper: the same text, without flatten's map serializer.
         #[serde(skip_serializing_if = "Option::is_none")]
         link: Option<Option<String>>,
-    }
-
-    /// A note beside one form field.
-    #[derive(Serialize, Debug, Clone, PartialEq)]
-    pub(crate) struct FieldNote {
-        /// The form field name.
-        pub field: String,
-        /// One sentence.
-        pub message: String,
     }
 
     thread_local! {
@@ -488,7 +480,7 @@ pub mod framewise_web_core {
     pub(crate) struct Evaluated {
         report: Report,
         field_errors: Vec<framewise_kernel::FieldError>,
-        field_notes: Vec<FieldNote>,
+        field_notes: Vec<framewise_kernel::FieldError>,
     }
 
     /// Reads and evaluates a form. When the kernel refuses a length typed without a unit as out
@@ -501,39 +493,44 @@ pub mod framewise_web_core {
         run: Run,
     ) -> Read {
         use framewise_formats::form_units::{reread_lengths, Reread};
-        let (scenario, errors) = framewise_formats::scenario_from_form(fields);
-        let form_errors = errors.len();
-        let mut first = evaluated(&scenario, errors, run);
-        let rereads = reread_lengths(fields, &first.field_errors);
-        let mut again = fields.clone();
+        let mut first = read_once(fields, &[], run);
+        let rereads = reread_lengths(fields, &first.evaluated.field_errors);
+        let mut replaced = Vec::new();
         let mut notes = Vec::new();
         for r in rereads {
             match r {
                 Reread::Unit { field, text, note } => {
-                    again.insert(field.clone(), text);
-                    notes.push(FieldNote {
-                        field,
-                        message: note,
-                    });
+                    replaced.push((field.clone(), text));
+                    notes.push(framewise_kernel::FieldError::new("read_as", field, note));
                 }
                 Reread::Either { field, hint } => {
-                    for e in first.field_errors.iter_mut().filter(|e| e.field == field) {
+                    let errors = first.evaluated.field_errors.iter_mut();
+                    for e in errors.filter(|e| e.field == field) {
                         e.message = format!("{}. {hint}", e.message);
                     }
                 }
             }
         }
         if notes.is_empty() {
-            return Read {
-                scenario,
-                form_errors,
-                evaluated: first,
-            };
+            return first;
         }
-        let (scenario, errors) = framewise_formats::scenario_from_form(&again);
+        let mut read = read_once(fields, &replaced, run);
+        read.evaluated.field_notes = notes;
+        read
+    }
+
+    /// One reading and evaluation of a form, with the text of the `replaced` fields replaced
+    /// (never inlined: [`read_and_evaluate`] calls it twice, and two inlined copies of the
+    /// evaluation would add kilobytes to the page's module).
+    #[inline(never)]
+    fn read_once(
+        fields: &std::collections::BTreeMap<String, String>,
+        replaced: &[(String, String)],
+        run: Run,
+    ) -> Read {
+        let (scenario, errors) = framewise_formats::form::scenario_from_form_with(fields, replaced);
         let form_errors = errors.len();
-        let mut evaluated = evaluated(&scenario, errors, run);
-        evaluated.field_notes = notes;
+        let evaluated = evaluated(&scenario, errors, run);
         Read {
             scenario,
             form_errors,

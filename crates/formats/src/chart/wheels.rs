@@ -9,7 +9,7 @@ use framewise_kernel::WheelSpec;
 
 /// Default tyre per wheel name, used when the chart gives no width. [practice]: common stock
 /// tyre widths for each wheel family.
-const DEFAULTS: &[(&str, &str)] = &[
+pub const DEFAULTS: &[(&str, &str)] = &[
     ("29", "29x2.4"),
     ("29er", "29x2.4"),
     ("27.5+", "27.5x2.8"),
