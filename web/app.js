@@ -12,7 +12,8 @@ import { createPainter } from './ui/onscreen.js';
 import { createDrawingWriter } from './ui/drawing.js';
 import { createStrip } from './ui/strip.js';
 
-await wasm.default();
+// The module's path from this file: the built site bundles this file with the glue (scripts/site.mjs).
+await wasm.default({ module_or_path: new URL('./pkg/framewise_bg.wasm', import.meta.url) });
 
 const words = JSON.parse(wasm.page_words_json());
 const catalogue = JSON.parse(wasm.catalogue_json());

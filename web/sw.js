@@ -1,7 +1,8 @@
 // Service worker (issue 6): after one visit the page works with no network.
 // Keep PRECACHE equal to the files in web/ (tests/browser/offline.test.mjs compares them). The
-// install fails if any file is missing. VERSION is written by scripts/build (scripts/site.mjs):
-// a hash of the built files, so any change to them installs a new cache.
+// install fails if any file is missing. scripts/build (scripts/site.mjs) writes the built site's
+// own list (app.js bundled with the modules it imports, which are then not files of their own)
+// and VERSION: a hash of the built files, so any change to them installs a new cache.
 const VERSION = 'written-by-scripts-build';
 const CACHE = `framewise-v${VERSION}`;
 const PRECACHE = [

@@ -212,10 +212,12 @@ test('view choices and values the page has no input for survive an edit', T, asy
   assert.match(note, /bikes\[0\]\.load/);
   await page.fill('input[name="frame.reach_mm"]', '485');
   await page.waitForFunction((old) => location.hash !== old, golden(name), { timeout: 5000 });
-  const opened = await page.evaluate(async () => {
-    const m = await import('./pkg/framewise.js');
-    return JSON.parse(m.form_from_link(location.hash));
-  });
+  // The page's address, decoded by the same wasm module in Node (the built site bundles the
+  // module's glue into app.js, so the page has no file of it to import).
+  const hash = await page.evaluate(() => location.hash);
+  const m = await import(`${ROOT}web/pkg/framewise.js`);
+  await m.default({ module_or_path: readFileSync(`${ROOT}web/pkg/framewise_bg.wasm`) });
+  const opened = JSON.parse(m.form_from_link(hash));
   assert.deepEqual(opened.view, want.view);
   assert.equal(opened.fields['frame.reach_mm'], '485');
   assert.equal(opened.fields['rider.height_mm'], String(want.rider.height_mm));

@@ -1,5 +1,5 @@
 // Browser tests of offline use (issue 6): the service worker's precache list is exactly the
-// page's files, a missing file fails the install, and after one visit the page opens and draws
+// page's files (web/'s as written, the built site's as built), a missing file fails the install, and after one visit the page opens and draws
 // with the server gone, and a pasted chart is read (the on-demand module comes from the cache).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -59,26 +59,38 @@ test('the precache list is exactly the files of web/ and the built web/pkg', () 
   assert.ok(manifest.icons.some((i) => i.sizes === '192x192'));
 });
 
-test('the served site is web/ with minified scripts and a cache version of its files', () => {
+test('the served site is web/ minified, app.js bundled with its modules, and a cache of exactly its files', () => {
   const filesIn = (root, dir = root) => readdirSync(dir).flatMap((name) => {
     const path = join(dir, name);
     return statSync(path).isDirectory() ? filesIn(root, path) : [relative(root, path)];
   });
   const web = filesIn(WEB).sort();
-  assert.deepEqual(filesIn(SITE).sort(), web, 'the same files (scripts/build makes target/site)');
-  for (const f of web.filter((n) => /\.(js|css)$/.test(n) && n !== 'sw.js')) {
+  const site = filesIn(SITE).sort();
+  // The modules app.js imports are in the bundle, not files of their own; the rest are web/'s.
+  const bundled = web.filter((f) => (/^ui\/.*\.js$/.test(f)) || f === 'pkg/framewise.js');
+  assert.ok(bundled.includes('ui/results.js') && bundled.includes('pkg/framewise.js'));
+  assert.deepEqual(site, web.filter((f) => !bundled.includes(f)), 'scripts/build makes target/site');
+  for (const f of site.filter((n) => /\.(js|css)$/.test(n) && n !== 'sw.js' && n !== 'app.js')) {
     const [a, b] = [readFileSync(join(WEB, f), 'utf8'), readFileSync(join(SITE, f), 'utf8')];
     assert.ok(b.length < a.length, `${f} is minified (${b.length} < ${a.length} characters)`);
     assert.ok(!/^\s*\/\//m.test(b), `${f} has no comment lines`);
   }
-  // The built VERSION: sha-256 over each precached file's path, a NUL and its built bytes, in
-  // path order, first 12 hex digits (scripts/site.mjs), recomputed here with node:crypto.
+  // The bundle: smaller than its sources together, no comment lines, no import of a bundled file.
+  const app = readFileSync(join(SITE, 'app.js'), 'utf8');
+  const sources = ['app.js', ...bundled].reduce((n, f) => n + readFileSync(join(WEB, f), 'utf8').length, 0);
+  assert.ok(app.length < sources, `app.js is one minified bundle (${app.length} < ${sources})`);
+  assert.ok(!/^\s*\/\//m.test(app));
+  assert.doesNotMatch(app, /from\s*["'][^"']*(ui\/|pkg\/framewise\.js)/);
+  // The built worker precaches the shell and every file of the site but itself, and its VERSION
+  // is sha-256 over each one's path, a NUL and its built bytes, in path order, first 12 hex
+  // digits (scripts/site.mjs), recomputed here with node:crypto.
   const sw = readFileSync(`${SITE}/sw.js`, 'utf8');
+  const listed = [...sw.match(/const PRECACHE = \[([^\]]*)\]/)[1].matchAll(/'([^']*)'/g)].map((m) => m[1]);
+  const files = site.filter((f) => f !== 'sw.js');
+  assert.deepEqual(listed, ['./', ...files]);
   const version = sw.match(/const VERSION = '([^']*)'/)[1];
   const hash = createHash('sha256');
-  for (const f of precacheList().filter((n) => n !== './').sort()) {
-    hash.update(`${f}\0`).update(readFileSync(join(SITE, f)));
-  }
+  for (const f of files) hash.update(`${f}\0`).update(readFileSync(join(SITE, f)));
   assert.equal(version, hash.digest('hex').slice(0, 12));
 });
 

@@ -9,7 +9,8 @@ let extras = null;
  * forgotten, so the next call tries again.
  */
 export function loadExtras() {
-  extras ??= import('../pkg/framewise_extras.js')
+  // From the page's address, not this file's: the built site bundles this file into app.js.
+  extras ??= import(new URL('pkg/framewise_extras.js', document.baseURI).href)
     .then(async (m) => { await m.default(); return m; })
     .catch((e) => { extras = null; throw e; });
   return extras;
