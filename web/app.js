@@ -34,7 +34,7 @@ attachView(drawing);
 const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
-const showStrip = createStrip(document.getElementById('strip'), definitions); // key numbers on a phone
+const showStrip = createStrip(document.getElementById('strip'), definitions, form); // key numbers on a phone
 
 // The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;

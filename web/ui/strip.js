@@ -1,7 +1,8 @@
 // The strip of key numbers on a phone: while a person types in the form, the drawing and the
 // tables are far above, so a bar at the top of the screen shows the ridden bike's key numbers and
 // the count of cautions, written by every edit (style.css shows it only on a narrow screen with
-// the focus in the form). Labels come from the catalogue and glossary (Rust).
+// the focus in the form: <html class="form-focus">). Labels come from the catalogue and glossary
+// (Rust).
 
 /** The ridden numbers shown, in order. */
 const KEYS = ['reach_mm', 'stack_mm', 'head_angle_deg', 'trail_mm', 'wheelbase_mm', 'bb_to_grip_mm'];
@@ -13,10 +14,17 @@ const SHORT = { head_angle_deg: 'Head angle', bb_to_grip_mm: 'BB to grip' };
 const text = (key, v) => (key.endsWith('_deg') ? `${v.toFixed(1)}°` : `${Math.round(v)} mm`);
 
 /**
- * strip: the strip's element; words: key → catalogue entry. Returns show(bike): writes the
- * numbers of one evaluated bike.
+ * strip: the strip's element; words: key → catalogue entry; form: the inputs. Returns
+ * show(bike): writes the numbers of one evaluated bike.
  */
-export function createStrip(strip, words) {
+export function createStrip(strip, words, form) {
+  // Whether the form has the focus, as a class on <html> (style.css shows the strip with it).
+  const root = document.documentElement;
+  form.addEventListener('focusin', () => root.classList.add('form-focus'));
+  form.addEventListener('focusout', (e) => {
+    if (!form.contains(e.relatedTarget)) root.classList.remove('form-focus');
+  });
+
   const cells = new Map();
   const list = document.createElement('dl');
   for (const key of KEYS) {
