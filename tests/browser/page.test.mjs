@@ -179,6 +179,14 @@ for (const [name, width, height] of SIZES) {
       const before = Number.parseFloat(await grip());
       await page.fill('input[name="setup.stem_mm"]', '70');
       await page.waitForFunction((b) => Number.parseFloat(document.querySelector('#strip div[title="BB-to-grip distance"] dd').textContent) > b, before, { timeout: 5000 });
+      // A fork 20 mm longer is a caution: the strip counts it and links to the warnings list.
+      await page.fill('input[name="changes.fork_a2c_delta_mm"]', '20');
+      const cautions = strip.locator('a.strip-cautions');
+      await page.waitForFunction(() => /^\d+ cautions?$/.test(document.querySelector('#strip a.strip-cautions').textContent), null, { timeout: 5000 });
+      assert.equal(await cautions.getAttribute('href'), '#warnings');
+      assert.match(await page.locator('#warnings').textContent(), /20 mm longer than stock/);
+      await page.fill('input[name="changes.fork_a2c_delta_mm"]', '');
+      await page.locator('input[name="setup.stem_mm"]').focus();
       // The focused field stays clear of the strip.
       const field = await page.locator('input[name="setup.stem_mm"]').boundingBox();
       assert.ok(field.y >= box.y + box.height, `the field (${field.y}) is below the strip`);

@@ -192,7 +192,8 @@ function buildItems(b, refs) {
     (b.type === 'warnings' && i.cls === 'note' ? minor : main).append(li);
   }
   const title = b.type === 'checks' ? 'Fit and safety checks' : 'Warnings and cautions';
-  const box = el('div', { class: b.type });
+  // The warnings list is a place the phone's strip of key numbers links to (ui/strip.js).
+  const box = el('div', b.type === 'warnings' ? { class: b.type, id: 'warnings' } : { class: b.type });
   if (main.children.length) box.append(el('h3', {}, title), main);
   if (minor.children.length) {
     box.append(el('details', { class: 'notes' },

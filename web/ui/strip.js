@@ -53,5 +53,7 @@ export function createStrip(strip, words, form) {
     const said = n ? `${n} caution${n > 1 ? 's' : ''}` : 'No cautions';
     if (cautions.textContent !== said) cautions.textContent = said;
     cautions.classList.toggle('some', n > 0);
+    const to = n ? '#warnings' : '#results-title'; // the cautions are in the warnings list
+    if (cautions.getAttribute('href') !== to) cautions.setAttribute('href', to);
   };
 }
