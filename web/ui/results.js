@@ -94,7 +94,14 @@ function postureBlock(caption, block) {
   };
 }
 
-/** The catalogue's frame keys (the cockpit table shows the other ridden numbers). */
+/** Which table a ridden number that is not a frame measurement goes in, by its key. */
+function partOf(key) {
+  if (/^(saddle|post|dropper|seat)_/.test(key)) return 'saddle';
+  if (/^(pedal|toe)_/.test(key)) return 'ground';
+  return 'cockpit';
+}
+
+/** The catalogue's frame keys (the cockpit tables show the other ridden numbers). */
 const frameKeys = new WeakMap();
 
 /** Whether a posture block (columns of numbers) has any number. */
@@ -106,7 +113,10 @@ function hasPostureNumbers(block) {
 function model(bike, notes, catalogue) {
   if (!frameKeys.has(catalogue)) frameKeys.set(catalogue, new Set(catalogue.map((m) => m.key)));
   const isFrame = frameKeys.get(catalogue);
-  const ridden = () => Object.fromEntries(Object.entries(bike.ridden).filter(([k]) => !isFrame.has(k)));
+  // The ridden numbers that are not frame measurements, in three tables by what they are about.
+  const ridden = (part) => Object.fromEntries(Object.entries(bike.ridden)
+    .filter(([k, v]) => !isFrame.has(k) && typeof v === 'number' && partOf(k) === part));
+  const hasRidden = (part) => Object.keys(ridden(part)).length > 0;
   const table = (caption, make) => [`table|${caption}`, () => make(caption)];
   return [
     bike.warnings?.length && ['warnings', () => ({
@@ -117,8 +127,9 @@ function model(bike, notes, catalogue) {
     })],
     bike.missing?.length && ['missing', () => ({ type: 'missing', keys: bike.missing })],
     table(FRAME_CAPTION, () => frameBlock(bike, notes, catalogue)),
-    Object.keys(bike.ridden).some((k) => !isFrame.has(k) && typeof bike.ridden[k] === 'number')
-      && table('Cockpit and saddle, as ridden', (c) => simpleBlock(c, ridden())),
+    hasRidden('cockpit') && table('Cockpit, as ridden', (c) => simpleBlock(c, ridden('cockpit'))),
+    hasRidden('saddle') && table('Saddle and seatpost, as ridden', (c) => simpleBlock(c, ridden('saddle'))),
+    hasRidden('ground') && table('Pedals and toes', (c) => simpleBlock(c, ridden('ground'))),
     hasPostureNumbers(bike.fit) && table('Fit', (c) => postureBlock(c, bike.fit)),
     hasPostureNumbers(bike.handling) && table('Handling', (c) => postureBlock(c, bike.handling)),
     numberKeys(bike.derived).length && table('Steering', (c) => simpleBlock(c, bike.derived)),
