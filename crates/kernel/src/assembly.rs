@@ -164,6 +164,22 @@ fn cockpit(
 }
 
 fn seat_in_use(s: &SetupValues, rider: Option<&RiderValues>, r: &mut BikeReport) -> Option<Seat> {
+    let seat = seat_as_given(s, rider, r)?;
+    if !s.setback_given {
+        warn(
+            r,
+            "assumed",
+            format!(
+                "saddle setback not given: assumed {} mm (the saddle centred over the seatpost clamp).",
+                fmt_num(seat.setback)
+            ),
+        );
+    }
+    Some(seat)
+}
+
+/// The seat with its given height, or with a height from the inseam (said in a warning).
+fn seat_as_given(s: &SetupValues, rider: Option<&RiderValues>, r: &mut BikeReport) -> Option<Seat> {
     if s.saddle_given {
         return Some(s.seat);
     }

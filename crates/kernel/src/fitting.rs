@@ -53,6 +53,9 @@ pub struct SetupValues {
     pub seat: Seat,
     /// Saddle height given.
     pub saddle_given: bool,
+    /// Saddle setback given (else the saddle is centred over the post's clamp: the post's
+    /// offset).
+    pub setback_given: bool,
     /// Fork spacer limit, mm.
     pub spacer_limit: f64,
     /// Crank length, mm, and whether it was given.
@@ -455,6 +458,7 @@ pub fn check_setup(bike: &BikeInput, prefix: &str, c: &mut Checker) -> SetupValu
         cockpit,
         seat,
         saddle_given: saddle_height.is_some(),
+        setback_given: s.saddle_setback_mm.is_some(),
         spacer_limit: c.range_or(
             f("spacer_limit_mm"),
             limit("spacer limit", 0.0, 100.0, "mm"),

@@ -236,3 +236,30 @@ fn checks_with_sources() {
     assert_eq!(get("pedal_strike_lean").min, Some(25.0));
     assert!(get("torso_angle").source.contains("[practice]"));
 }
+
+/// A saddle setback not given is the post's offset (the saddle centred over the clamp): the
+/// report says so among its assumptions, and says nothing when the setback is given.
+#[test]
+fn a_saddle_setback_not_given_is_an_assumption_said() {
+    let said = |setup: Value| {
+        let r = run(json!({ "version": 1, "bikes": [bike(setup)] }));
+        assert!(r.errors.is_empty(), "{:?}", r.errors);
+        r.bikes[0]
+            .warnings
+            .iter()
+            .filter(|w| w.code == "assumed" && w.message.starts_with("saddle setback"))
+            .map(|w| w.message.clone())
+            .collect::<Vec<_>>()
+    };
+    let mut with_offset = setup();
+    with_offset["post_offset_mm"] = json!(20);
+    assert_eq!(
+        said(with_offset),
+        ["saddle setback not given: assumed 20 mm (the saddle centred over the seatpost clamp)."]
+    );
+    let mut given = setup();
+    given["saddle_setback_mm"] = json!(30);
+    assert!(said(given).is_empty());
+    let r = run(json!({ "version": 1, "bikes": [bike(setup())] }));
+    assert_eq!(r.bikes[0].ridden["saddle_setback_mm"], 0.0);
+}
