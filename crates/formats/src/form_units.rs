@@ -49,11 +49,11 @@ pub enum Reread {
 
 /// The second readings of the fields `errors` refused (form field names): lengths out of range,
 /// wheel names without a width.
-pub fn reread_lengths(fields: &BTreeMap<String, String>, errors: &[FieldError]) -> Vec<Reread> {
+pub fn second_readings(fields: &BTreeMap<String, String>, errors: &[FieldError]) -> Vec<Reread> {
     errors
         .iter()
         .filter_map(|e| match e.code.as_str() {
-            "out_of_range" => reread(fields, e),
+            "out_of_range" => reread_length(fields, e),
             "unknown_wheel" => reread_wheel(fields, e),
             _ => None,
         })
@@ -69,13 +69,15 @@ fn reread_wheel(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Rer
     Some(Reread::Unit {
         field: e.field.clone(),
         note: format!(
-            "Read as {text}: \"{typed}\" gives no tyre width, so a common stock width was assumed (29 and 27.5: 2.4 in; 700c: 32 mm; 650b: 47 mm). Type the width, such as 29x2.6, if yours differs."
+            "Read as {text}: \"{typed}\" gives no tyre width, so a common stock width was assumed ({}). Type the width, such as 29x2.6, if yours differs.",
+            crate::chart::wheels::DEFAULT_WIDTHS
         ),
         text,
     })
 }
 
-fn reread(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
+/// A length refused as below its range, read as cm or inches when exactly one fits.
+fn reread_length(fields: &BTreeMap<String, String>, e: &FieldError) -> Option<Reread> {
     let (min, max) = e.allowed?;
     let f = field(&e.field).filter(|f| f.kind == Kind::Mm)?;
     let typed = fields.get(&e.field)?.trim();
@@ -160,7 +162,7 @@ mod tests {
             refused("frame.reach_mm", 47.5, 100.0, 800.0),
             refused("frame.stack_mm", 18.5, 250.0, 900.0),
         ];
-        let got = reread_lengths(&fields, &errors);
+        let got = second_readings(&fields, &errors);
         let Some(Reread::Unit { text, note, .. }) = got.first() else {
             panic!("{got:?}");
         };
@@ -188,7 +190,7 @@ mod tests {
             // A half-typed reach: 40 mm (cm) and 101.6 mm (in) are not plausible reaches.
             refused("frame.reach_mm", 4.0, 100.0, 800.0),
         ];
-        let got = reread_lengths(&fields, &errors);
+        let got = second_readings(&fields, &errors);
         assert_eq!(got.len(), 2, "{got:?}");
         assert!(matches!(&got[0], Reread::Unit { text, .. } if text == "70 in"));
         let Reread::Either { field, hint } = &got[1] else {
@@ -215,7 +217,7 @@ mod tests {
         .iter()
         .map(|f| FieldError::new("unknown_wheel", *f, "not recognised"))
         .collect();
-        let got = reread_lengths(&fields, &errors);
+        let got = second_readings(&fields, &errors);
         let texts: Vec<&str> = got
             .iter()
             .filter_map(|r| match r {
@@ -246,6 +248,6 @@ mod tests {
             refused("frame.head_angle_deg", 6.5, 45.0, 85.0),
             FieldError::new("bad_number", "frame.reach_mm", "no"),
         ];
-        assert!(reread_lengths(&fields, &errors).is_empty());
+        assert!(second_readings(&fields, &errors).is_empty());
     }
 }

@@ -483,39 +483,44 @@ pub mod framewise_web_core {
         field_notes: Vec<framewise_kernel::FieldError>,
     }
 
-    /// Reads and evaluates a form. When the kernel refuses a length typed without a unit as out
-    /// of range and exactly one of cm and inches fits, the form is read again that way, with a
-    /// note beside the field; when both fit, the field's error says both readings
-    /// (`framewise_formats::form_units`). The re-read form is what the link and the drawing
-    /// show.
+    /// Reads and evaluates a form, and reads it a second time when the kernel refused a field
+    /// that reads another way (`framewise_formats::form_units`): a length typed without a unit
+    /// that fits cm or inches alone, a wheel without its tyre width. Each such reading gets a
+    /// note beside its field; a length that fits both gets both readings in its error. The
+    /// re-read form is what the link and the drawing show.
     pub(crate) fn read_and_evaluate(
         fields: &std::collections::BTreeMap<String, String>,
         run: Run,
     ) -> Read {
-        use framewise_formats::form_units::{reread_lengths, Reread};
-        let mut first = read_once(fields, &[], run);
-        let rereads = reread_lengths(fields, &first.evaluated.field_errors);
+        use framewise_formats::form_units::{second_readings, Reread};
+        let first = read_once(fields, &[], run);
         let mut replaced = Vec::new();
         let mut notes = Vec::new();
-        for r in rereads {
+        let mut hints = Vec::new();
+        for r in second_readings(fields, &first.evaluated.field_errors) {
             match r {
                 Reread::Unit { field, text, note } => {
                     replaced.push((field.clone(), text));
                     notes.push(framewise_kernel::FieldError::new("read_as", field, note));
                 }
-                Reread::Either { field, hint } => {
-                    let errors = first.evaluated.field_errors.iter_mut();
-                    for e in errors.filter(|e| e.field == field) {
-                        e.message = format!("{}. {hint}", e.message);
-                    }
-                }
+                Reread::Either { field, hint } => hints.push((field, hint)),
             }
         }
-        if notes.is_empty() {
-            return first;
+        let mut read = if notes.is_empty() {
+            first
+        } else {
+            let mut again = read_once(fields, &replaced, run);
+            again.evaluated.field_notes = notes;
+            again
+        };
+        // Said on the final reading's errors (a second reading keeps them: it changes only the
+        // fields read another way).
+        for (field, hint) in hints {
+            let errors = read.evaluated.field_errors.iter_mut();
+            for e in errors.filter(|e| e.field == field) {
+                e.message = format!("{}. {hint}", e.message);
+            }
         }
-        let mut read = read_once(fields, &replaced, run);
-        read.evaluated.field_notes = notes;
         read
     }
 
@@ -752,6 +757,28 @@ mod tests {
         let said = both["field_errors"][0]["message"]
             .as_str()
             .unwrap_or_default();
+        assert!(
+            said.ends_with("got 40. In cm that is 400 mm, in inches 1016 mm: type the value in mm, or add cm or in"),
+            "{said}"
+        );
+    }
+
+    #[test]
+    fn a_second_reading_keeps_the_hint_of_a_length_that_fits_both_units() {
+        // Reach 47,5 is read as cm (a second reading); saddle height 40 fits cm and inches, so
+        // its error, on the second reading, still says both.
+        let form = form_with("47,5", "1780").replace(
+            r#""setup.stem_mm":"45""#,
+            r#""setup.stem_mm":"45","setup.saddle_height_mm":"40""#,
+        );
+        let v: serde_json::Value =
+            serde_json::from_str(&evaluate_form_linked_to_json(&form, "{}")).unwrap_or_default();
+        assert_eq!(v["field_notes"][0]["field"], "frame.reach_mm", "{v}");
+        assert_eq!(
+            v["field_errors"][0]["field"], "setup.saddle_height_mm",
+            "{v}"
+        );
+        let said = v["field_errors"][0]["message"].as_str().unwrap_or_default();
         assert!(
             said.ends_with("got 40. In cm that is 400 mm, in inches 1016 mm: type the value in mm, or add cm or in"),
             "{said}"

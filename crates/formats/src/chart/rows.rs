@@ -548,6 +548,6 @@ fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSlot, log: &m
         }
     }
     if assumed {
-        log.note(text, default_note().into());
+        log.note(text, default_note());
     }
 }

@@ -98,10 +98,15 @@ fn one(t: &str) -> Option<(String, bool)> {
         .filter(|(d, _)| accepted(d))
 }
 
-/// The default tyre widths, for the note that says one was assumed.
-pub fn default_note() -> &'static str {
-    "the chart gives no tyre width, so a common stock width was assumed \
-     (29 and 27.5: 2.4 in; 700c: 32 mm; 650b: 47 mm); change the tyres under wheels if yours differ"
+/// The default widths of [`DEFAULTS`] in words, for the notes that say one was assumed (the
+/// chart importer's and the form's, `crate::form_units`).
+pub const DEFAULT_WIDTHS: &str = "29 and 27.5: 2.4 in; 700c: 32 mm; 650b: 47 mm";
+
+/// The note that says a default width was assumed for a chart's wheel row.
+pub fn default_note() -> String {
+    format!(
+        "the chart gives no tyre width, so a common stock width was assumed ({DEFAULT_WIDTHS}); change the tyres under wheels if yours differ"
+    )
 }
 
 #[cfg(test)]
