@@ -28,18 +28,21 @@ function filesUnder(dir) {
   });
 }
 
+// FRAMEWISE_READABLE=1 keeps names and lines (for a profile; never for the published site).
+const READABLE = process.env.FRAMEWISE_READABLE === '1';
+
 async function minify(path) {
   const loader = extname(path) === '.css' ? 'css' : 'js';
   const source = readFileSync(path, 'utf8');
   // No `format`: an ES module stays an ES module, top-level await included.
-  const { code } = await transform(source, { loader, minify: true, target: 'es2022', legalComments: 'none' });
+  const { code } = await transform(source, { loader, minify: !READABLE, target: 'es2022', legalComments: 'none' });
   writeFileSync(path, code);
 }
 
 /** app.js with every module it imports, minified; returns the site paths of the modules bundled. */
 async function bundleApp() {
   const { outputFiles, metafile } = await build({
-    entryPoints: [join(WEB, 'app.js')], bundle: true, format: 'esm', minify: true, target: 'es2022',
+    entryPoints: [join(WEB, 'app.js')], bundle: true, format: 'esm', minify: !READABLE, target: 'es2022',
     legalComments: 'none', write: false, metafile: true, absWorkingDir: ROOT,
   });
   const [out] = outputFiles;

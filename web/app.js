@@ -86,9 +86,8 @@ function update(event) {
   const oneField = typed && typedIn?.name && typedIn.form === form;
   if (typedIn?.form === form) showFilled(form, typedIn);
   if (oneField) typed[typedIn.name] = typedIn.value;
-  share.settle(); // a link still to be made of the previous form
   // One wasm call reads the form once for the tables, the drawing (made when written) and the
-  // share link (made in the next task): the edited field of the form it holds, or the whole
+  // share link (made once typing pauses): the edited field of the form it holds, or the whole
   // form (share.fields(): the form plus values of an opened link that have no input here).
   const view = JSON.stringify(share.view());
   let answer = oneField && heldForm ? wasm.evaluate_field_page(heldForm, typedIn.name, typedIn.value, view) : 'null';
@@ -124,7 +123,7 @@ function update(event) {
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   showStrip(result.report.bikes[0]);
   painter.paint(drawing, showDrawing);
-  share.update(wasm.last_link); // the address follows the page, in the next task
+  share.update(wasm.last_link); // the address follows the page once typing pauses
 }
 
 function applySize(size) {

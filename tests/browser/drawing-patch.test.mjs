@@ -6,7 +6,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
-import { startAll, openPage, settled, SHOTS, ROOT } from './harness.mjs';
+import { startAll, openPage, settled, linkOf, SHOTS, ROOT } from './harness.mjs';
 import { zoomIn, showEveryLayer } from './page-helpers.mjs';
 
 let env;
@@ -64,8 +64,7 @@ for (const [name, width, height] of SIZES) {
     await showEveryLayer(page);
     // Every layer shown once: the patched drawing is exactly what a fresh page draws for the
     // same form, in the view box it keeps.
-    await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
-    const url = await page.locator('#share-url').inputValue();
+    const url = await linkOf(page);
     const fresh = await openPage(env, { width, height, hash: new URL(url).hash });
     assert.equal(await markup(fresh.page), await markup(page));
     await keepsTheFit(page, fresh.page);
@@ -79,10 +78,10 @@ for (const [name, width, height] of SIZES) {
 test('the rehearsal after load changes nothing the page shows, and the next edit patches as usual', T, async () => {
   const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
   await page.fill('input[name="frame.reach_mm"]', '481');
-  await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
+  const url = await linkOf(page);
   // The whole markup, view box and ground line included: the rehearsal keeps no drawing.
   const whole = () => page.locator('#drawing svg').evaluate((e) => e.outerHTML.replace(/ data-fit="[^"]*"/, ''));
-  const before = { svg: await whole(), url: await page.locator('#share-url').inputValue() };
+  const before = { svg: await whole(), url };
   await page.waitForFunction(() => document.documentElement.dataset.rehearsed === 'true', null, { timeout: 30000 });
   assert.deepEqual({ svg: await whole(), url: await page.locator('#share-url').inputValue() }, before);
   // The next edit gets only the changes since the answer the page shows: the same nodes.
@@ -123,7 +122,7 @@ test('a part that goes or comes replaces the drawing; a zoom survives a patch', 
   assert.equal(await svg.getAttribute('viewBox'), zoomed);
   await page.locator('#fit-view').click();
   assert.notEqual(await svg.getAttribute('viewBox'), fit, 'the new fit, not the one before the edit');
-  const url = await page.locator('#share-url').inputValue();
+  const url = await linkOf(page);
   const fresh = await openPage(env, { width: 360, height: 740, hash: new URL(url).hash });
   assert.equal(await svg.getAttribute('viewBox'), await fresh.page.locator('#drawing svg').getAttribute('viewBox'));
   assert.deepEqual([...problems, ...fresh.problems], []);
@@ -233,7 +232,7 @@ test('one-field edits after a chart size and a choice give the drawing and table
   const linkBefore = await page.evaluate(() => location.hash);
   await page.fill('input[name="frame.reach_mm"]', '47,8 cm');
   await settled(page);
-  // The address follows the edit in the next task.
+  // The address follows the edit once typing pauses.
   await page.waitForFunction((old) => location.hash !== old && document.getElementById('share-url').value === location.href, linkBefore, { timeout: 5000 });
   const url = await page.locator('#share-url').inputValue();
   const fresh = await openPage(env, { width: 1280, height: 800, hash: new URL(url).hash });

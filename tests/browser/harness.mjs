@@ -67,3 +67,17 @@ export async function shot(page, path, options = {}, target = page) {
 export async function frames(page) {
   await page.evaluate(() => new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok))));
 }
+
+/**
+ * The page's share link as the link box shows it, brought up to date first: the address follows
+ * the page once typing pauses (web/ui/share.js), and the link box's focus brings it up to date
+ * at once, as it does for a person who taps the box. A focus event, not a focus: the page does
+ * not scroll.
+ */
+export async function linkOf(page) {
+  return page.evaluate(() => {
+    const box = document.getElementById('share-url');
+    box.dispatchEvent(new FocusEvent('focus'));
+    return box.value;
+  });
+}

@@ -4,7 +4,7 @@
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
-import { startAll, openPage, settled, ROOT, SHOTS } from './harness.mjs';
+import { startAll, openPage, settled, linkOf, ROOT, SHOTS } from './harness.mjs';
 import { showEveryLayer } from './page-helpers.mjs';
 
 let env;
@@ -58,8 +58,8 @@ test('an edited page gives a link that opens the same in a new browser context',
   await page.fill('input[name="frame.reach_mm"]', '492.5');
   await page.fill('input[name="frame.head_angle_deg"]', '63.85');
   await page.fill('input[name="wheels.rear"]', '27.5x2.6');
-  await page.waitForFunction(() => document.getElementById('share-url').value.includes('#'), null, { timeout: 5000 });
-  const url = await page.locator('#share-url').inputValue();
+  const url = await linkOf(page);
+  assert.match(url, /#./);
   assert.equal(url, await page.evaluate(() => location.href));
   // replaceState: the edits add no history entries.
   assert.equal(await page.evaluate(() => history.length), historyLength);
@@ -99,11 +99,54 @@ test('a link pasted into the address of an edited page shows its numbers at once
   await context.close();
 });
 
+test('quick edits write the address once typing pauses, and copy takes the newest link at once', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  const demo = new URL(await linkOf(page)).hash;
+  await page.evaluate(() => {
+    window.addressWrites = 0;
+    const replace = history.replaceState.bind(history);
+    history.replaceState = (...a) => { window.addressWrites += 1; return replace(...a); };
+  });
+  // A person types 478 and then, before a pause, a reach that does not read ("4" of "40").
+  const typeReach = (values) => page.evaluate((vs) => {
+    const box = document.querySelector('[name="frame.reach_mm"]');
+    for (const v of vs) {
+      box.value = v;
+      box.dispatchEvent(new Event('input', { bubbles: true }));
+    }
+    return location.hash;
+  }, values);
+  assert.equal(await typeReach(['47', '478', '4']), demo, 'nothing is written while typing');
+  await page.waitForFunction((old) => location.hash !== old, demo, { timeout: 5000 });
+  await page.waitForTimeout(400);
+  assert.equal(await page.evaluate(() => window.addressWrites), 1, 'one write for the run of keystrokes');
+  // The last good form's link (reach 478), not the demo's: it opens with reach 478.
+  const good = await page.evaluate(() => location.href);
+  const opened = await openPage(env, { width: 360, height: 740, hash: new URL(good).hash });
+  assert.equal(await opened.page.locator('[name="frame.reach_mm"]').inputValue(), '478');
+  await opened.context.close();
+  // An edit and at once "Copy link": the address is brought up to date before it is copied.
+  const afterCopy = await page.evaluate(() => {
+    const box = document.querySelector('[name="frame.reach_mm"]');
+    box.value = '481';
+    box.dispatchEvent(new Event('input', { bubbles: true }));
+    document.getElementById('share-copy').click();
+    return [location.hash, document.getElementById('share-url').value === location.href];
+  });
+  assert.notEqual(afterCopy[0], new URL(good).hash);
+  assert.equal(afterCopy[1], true, 'the link box shows the copied link');
+  const copied = await openPage(env, { width: 360, height: 740, hash: afterCopy[0] });
+  assert.equal(await copied.page.locator('[name="frame.reach_mm"]').inputValue(), '481');
+  await copied.context.close();
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
 test('a jump link scrolls to its place and leaves the share link and its message alone', T, async () => {
   const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
   await page.fill('input[name="frame.reach_mm"]', '476');
-  await page.waitForFunction(() => location.hash.length > 20, null, { timeout: 5000 });
-  const link = await page.evaluate(() => location.hash);
+  const link = new URL(await linkOf(page)).hash;
+  assert.ok(link.length > 20, link);
   await page.locator('.jump a[href="#results-title"]').click();
   await page.waitForFunction(() => document.getElementById('results-title').getBoundingClientRect().top < innerHeight / 2, null, { timeout: 5000 });
   await settled(page);

@@ -9,6 +9,9 @@ import { loadExtras } from './extras.js';
 
 const byId = (id) => document.getElementById(id);
 
+/** The pause in typing after which the address follows the page, ms. */
+export const ADDRESS_PAUSE_MS = 300;
+
 /**
  * Wires the share area. Call once after the wasm module is initialised and before the first
  * evaluation. Options:
@@ -17,12 +20,12 @@ const byId = (id) => document.getElementById(id);
  *   getView()/applyView(v)  the page's view choices (optional; kept from the link otherwise)
  *   opened()           called after a link pasted into the address of the open page filled it
  *                      (the page evaluates the new form; the first link is opened before that)
- * Returns { fields(), view(), update(link), settle() }: fields() is the form plus the opened
- * link's values the form has no input for (evaluate these, so the drawing shows the whole
- * link); view() the view choices for the link; call update(link) after every evaluation that succeeded, with the
- * link fragment (null when none), a function that makes it (wasm last_link: called in the next
- * task, for the latest edit only; empty text when none), or update() to compute it now; call
- * settle() before an evaluation that would replace the form a pending function makes a link of.
+ * Returns { fields(), view(), update(link) }: fields() is the form plus the opened link's
+ * values the form has no input for (evaluate these, so the drawing shows the whole link); view()
+ * the view choices for the link; call update(link) after every evaluation that succeeded, with
+ * the link fragment (null when none), a function that makes it (wasm last_link, the link of the
+ * last form that read: called once typing pauses, for the latest edit only; empty text when
+ * none), or update() to compute it now.
  */
 export function initShare({ getFields, applyFields, getView, applyView = () => {}, opened = () => {} }) {
   const msg = byId('share-msg');
@@ -88,6 +91,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
 
   let qrSvg = null;
   async function showQr() {
+    addressNow();
     if (!qrSvg) {
       const loading = document.createElement('p');
       loading.textContent = 'Loading the QR code…';
@@ -132,26 +136,25 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
       url.value = location.href; // a field does not read: the address keeps the last good link
       return;
     }
-    // The address (history.replaceState, about 2 ms even on a fast machine), the link box (a
-    // text box's value costs a layout of about 1 ms) and the QR code follow in the next task,
-    // after the edit's drawing and tables are written, and only for the latest edit of a quick
-    // run of them.
+    // The address (history.replaceState: about 2 ms even on a fast machine, and work in the
+    // browser's own process), the link box (a text box's value costs a layout of about 1 ms) and
+    // the QR code follow once typing pauses, after the edit's drawing and tables are written:
+    // a run of keystrokes writes the address once. Whatever reads the address (copy, the share
+    // sheet, the QR code, the link box, leaving the page) brings it up to date first.
     pending = hash;
-    if (!scheduled) {
-      scheduled = true;
-      setTimeout(flush, 0);
-    }
+    clearTimeout(timer);
+    timer = setTimeout(flush, ADDRESS_PAUSE_MS);
   }
 
   let pending = null;
-  let scheduled = false;
-  // A link still to be made is made now, before the next evaluation replaces the form it is of
-  // (only when edits come faster than a task; the flush normally runs first).
-  function settle() {
-    if (typeof pending === 'function') pending = pending() || null;
+  let timer = 0;
+  function addressNow() {
+    if (!timer) return;
+    clearTimeout(timer);
+    flush();
   }
   function flush() {
-    scheduled = false;
+    timer = 0;
     let hash = pending;
     pending = null;
     if (hash === null || hold) return;
@@ -166,6 +169,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   }
 
   copy.addEventListener('click', async () => {
+    addressNow();
     url.value = location.href;
     try {
       await navigator.clipboard.writeText(location.href);
@@ -180,6 +184,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   if (typeof navigator.share === 'function') {
     native.hidden = false;
     native.addEventListener('click', () => {
+      addressNow();
       navigator.share({ title: document.title, url: location.href }).catch(() => {});
     });
   }
@@ -194,6 +199,10 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     shown(show);
     if (show) showQr();
   });
+
+  url.addEventListener('focus', addressNow);
+  window.addEventListener('pagehide', addressNow);
+  document.addEventListener('visibilitychange', () => { if (document.hidden) addressNow(); });
 
   // The first edit lets the address follow the page again.
   // A message about the link shown before ("Link copied.", "Opened the shared link.", a bad
@@ -217,5 +226,5 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
 
   open(location.hash, true);
   url.value = location.href;
-  return { fields, view: currentView, update, settle };
+  return { fields, view: currentView, update };
 }

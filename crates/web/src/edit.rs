@@ -121,7 +121,8 @@ mod tests {
     }
 
     /// Source: the module's protocol. An edit of a form the module no longer holds, or of none,
-    /// answers `null` and changes nothing; a whole form that does not read leaves no form.
+    /// answers `null` and changes nothing; a whole form that does not read leaves no form (and
+    /// the last good link).
     #[test]
     fn an_edit_of_another_form_is_refused() {
         evaluate_form_page_json(&form("470", "45"), "");
@@ -145,7 +146,11 @@ mod tests {
         let bad = evaluate_form_page_json("{not json", "");
         assert!(bad.contains("bad_form"), "{bad}");
         assert_eq!(form_seq(), 0);
-        assert_eq!(last_link(), "");
+        assert_eq!(
+            last_link(),
+            link,
+            "a whole form that does not read keeps the last good link"
+        );
         assert_eq!(
             evaluate_field_page_json(old, "frame.reach_mm", "500", ""),
             "null"

@@ -364,11 +364,11 @@ pub mod framewise_web_core {
         run: Run,
         when: Link,
     ) -> String {
-        // Only the page's own call remembers its form for `last_link`; a rehearsal keeps nothing.
+        // Only the page's own call remembers its form for `last_link`, and only a form the page
+        // shows (every field and the view read, and the kernel drew a bike): any other keeps
+        // the last good form's link, as the page keeps the last good drawing. A rehearsal keeps
+        // nothing.
         let later = when == Link::Later && run == Run::Page;
-        if later {
-            LINKABLE.with(|l| *l.borrow_mut() = None);
-        }
         let Read {
             mut scenario,
             form_errors,
@@ -390,8 +390,10 @@ pub mod framewise_web_core {
             Link::Now => Some(linkable.then(|| link_of(&scenario)).flatten()),
             Link::Later => None,
         };
+        // What the page shows: a bike and no field in error (else it keeps its last good one).
+        let shown = evaluated.field_errors.is_empty() && !evaluated.report.bikes.is_empty();
         let json = form_result_json(evaluated, link, true, run);
-        if later && linkable {
+        if later && linkable && shown {
             LINKABLE.with(|l| *l.borrow_mut() = Some(scenario));
         }
         json
@@ -407,8 +409,9 @@ pub mod framewise_web_core {
     }
 
     thread_local! {
-        /// The scenario of the page's last [`evaluate_form_page_json`] call, with its view, when
-        /// every field read and the view read; `None` otherwise.
+        /// The scenario, with its view, of the page's last [`evaluate_form_page_json`] or
+        /// [`crate::edit::evaluate_field_page_json`] call that the page shows (see [`last_link`]);
+        /// `None` before any.
         static LINKABLE: std::cell::RefCell<Option<framewise_kernel::Scenario>> =
             const { std::cell::RefCell::new(None) };
     }
@@ -428,15 +431,16 @@ pub mod framewise_web_core {
             Ok(fields) => crate::edit::keep_and_evaluate(fields, view_json),
             Err(json) => {
                 crate::edit::forget();
-                LINKABLE.with(|l| *l.borrow_mut() = None);
                 json
             }
         }
     }
 
-    /// The share link fragment of the last [`evaluate_form_page_json`] or
-    /// [`crate::edit::evaluate_field_page_json`] call, or empty text when a field did not read,
-    /// the view did not read or the link cannot hold a value.
+    /// The share link fragment of the last good form: that of the last [`evaluate_form_page_json`]
+    /// or [`crate::edit::evaluate_field_page_json`] call whose fields and view all read and whose
+    /// bike the kernel drew (any other call leaves it), or empty text before any or when the link
+    /// cannot hold a value. So the page may make the link any time after an edit (it waits for a pause in
+    /// typing): a later edit that does not read cannot take the last good link away.
     pub fn last_link() -> String {
         LINKABLE.with(|l| l.borrow().as_ref().and_then(link_of).unwrap_or_default())
     }
@@ -928,7 +932,7 @@ mod tests {
 
     /// The page's call leaves the link for later: the same result less the `link` member, and
     /// `last_link` then gives the link the one-call form gives. A form with a field that does
-    /// not read, or a view that does not read, has no link (empty text).
+    /// not read, or a view that does not read, has no link of its own: the last good one stays.
     #[test]
     fn the_page_call_gives_the_one_call_result_and_its_link_later() {
         let form = r#"{"label":"Trail M","frame.reach_mm":"47 cm","frame.stack_mm":"635",
@@ -948,12 +952,24 @@ mod tests {
             .is_some_and(|l| l.starts_with('#') && l.len() > 8));
         assert_eq!(page, whole);
         assert_eq!(last_link(), link.as_str().unwrap_or("none"));
+        let good = last_link();
         evaluate_form_page_json(r#"{"frame.reach_mm":"long"}"#, view);
-        assert_eq!(last_link(), "");
+        assert_eq!(
+            last_link(),
+            good,
+            "a field that does not read keeps the last good link"
+        );
+        let too_short = form.replace("\"47 cm\"", "\"4\"");
+        let refused = evaluate_form_page_json(&too_short, view);
+        assert!(refused.contains("frame.reach_mm"), "{refused}");
+        assert_eq!(last_link(), good, "a reach the kernel refuses keeps it");
         evaluate_form_page_json(form, "[1]");
-        assert_eq!(last_link(), "");
+        assert_eq!(last_link(), good, "a view that does not read keeps it");
         evaluate_form_page_json("not json", view);
-        assert_eq!(last_link(), "");
+        assert_eq!(last_link(), good, "a form that does not read keeps it");
+        let other = form.replace("\"45\"", "\"60\"");
+        evaluate_form_page_json(&other, view);
+        assert_ne!(last_link(), good, "the next good form has its own link");
     }
 
     /// The page's solve memo changes only the time: a series of form edits (frame, rider,
