@@ -22,7 +22,12 @@
 // main thread run unthrottled). Throttle check: a fixed loop of arithmetic is timed in the page
 // before and after the throttle starts; the ratio shows the slowdown the edits ran under.
 //
-// Usage: node scripts/bench-browser.mjs [--edits N] [--cores own|shared|both]   (after scripts/build)
+// --only NAME: only the situations whose name starts with NAME ("phone", "phone, at", "desk").
+// --by-edit: also each edit's median and slowest time on screen, and the edits in the slowest
+// 5 % (to tell a slow kind of edit from a machine's interruptions, which strike any edit).
+//
+// Usage: node scripts/bench-browser.mjs [--edits N] [--cores own|shared|both] [--only NAME] [--by-edit]
+//        (after scripts/build)
 import { gzipSync } from 'node:zlib';
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { startAll, openPage, ROOT } from '../tests/browser/harness.mjs';
@@ -32,6 +37,9 @@ const arg = process.argv.indexOf('--edits');
 const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
 const coresArg = process.argv.indexOf('--cores');
 const CORES = coresArg > 0 ? process.argv[coresArg + 1] : 'both';
+const onlyArg = process.argv.indexOf('--only');
+const ONLY = onlyArg > 0 ? process.argv[onlyArg + 1] : '';
+const BY_EDIT = process.argv.includes('--by-edit');
 if (!['own', 'shared', 'both'].includes(CORES)) throw new Error(`--cores ${CORES}: use own, shared or both`);
 const noOwnCore = CORES === 'shared' ? null : ownCoreProblem();
 if (noOwnCore && CORES === 'own') throw new Error(`--cores own: the main thread cannot have a core of its own here (${noOwnCore})`);
@@ -117,6 +125,7 @@ async function measure(env, situation, cores) {
   await throttleStarted(before);
   const restore = isolate({ pin: cores === 'own' });
   const times = [[], [], []];
+  const edits = []; // [field=value, on screen ms]
   let boxChanges = 0;
   let loopThrottled = 0;
   try {
@@ -126,6 +135,7 @@ async function measure(env, situation, cores) {
       const value = values[Math.floor(i / EDITS_CYCLE.length) % values.length];
       const t = await page.evaluate(editInPage, [name, value, situation.scroll]);
       times.forEach((list, j) => list.push(t[j]));
+      edits.push([`${name}=${value}`, t[1]]);
       if (t[3]) boxChanges += 1;
     }
     await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
@@ -139,7 +149,19 @@ async function measure(env, situation, cores) {
     on_screen_ms: stats(times[1]),
     whole_page_ms: stats(times[2]),
     view_box_changes: boxChanges,
+    by_edit: byEdit(edits),
     throttle_check: { loop_ms: loopFree, loop_throttled_ms: loopThrottled, slowdown: loopThrottled / loopFree },
+  };
+}
+
+/** Each edit's median and slowest time on screen, and the edits in the slowest 5 %. */
+function byEdit(edits) {
+  const kinds = new Map();
+  for (const [edit, ms] of edits) kinds.set(edit, [...(kinds.get(edit) ?? []), ms]);
+  const cut = quantile(edits.map(([, ms]) => ms).sort((a, b) => a - b), 0.95);
+  return {
+    kinds: Object.fromEntries([...kinds].map(([edit, ms]) => [edit, stats(ms)])),
+    slowest: edits.filter(([, ms]) => ms >= cut),
   };
 }
 
@@ -160,7 +182,7 @@ const env = await startAll();
 try {
   const loaded = await bytes(env);
   const situations = {};
-  for (const s of SITUATIONS) {
+  for (const s of SITUATIONS.filter((x) => x.name.startsWith(ONLY))) {
     for (const cores of KINDS) situations[`${s.name}, ${cores === 'own' ? 'main thread on its own core' : 'shared cores'}`] = await measure(env, s, cores);
   }
   const gzTotal = [...loaded.values()].reduce((a, f) => a + f.gz, 0);
@@ -186,6 +208,10 @@ try {
     console.log(`    view box changed       in ${r.view_box_changes} of ${EDITS} edits`);
     const c = r.throttle_check;
     console.log(`    throttle check         a fixed loop ${c.loop_ms.toFixed(1)} ms → ${c.loop_throttled_ms.toFixed(1)} ms throttled (${c.slowdown.toFixed(1)}×)`);
+    if (!BY_EDIT) continue;
+    console.log('    on screen by edit (median, slowest):');
+    for (const [edit, s] of Object.entries(r.by_edit.kinds)) console.log(`      ${edit.padEnd(32)} ${s.median.toFixed(1).padStart(5)} ms ${s.max.toFixed(1).padStart(6)} ms`);
+    console.log(`    the slowest 5 %: ${r.by_edit.slowest.map(([e, ms]) => `${e} ${ms.toFixed(1)}`).join('; ')}`);
   }
   console.log('Bytes loaded on first view:');
   for (const [name, b] of loaded) console.log(`  ${name.padEnd(28)} ${String(b.raw).padStart(8)} B  ${String(b.gz).padStart(7)} B gz`);
