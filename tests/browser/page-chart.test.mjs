@@ -76,7 +76,7 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
-  test(`${name}: rows not recognised are listed and questions can be answered`, T, async () => {
+  test(`${name}: rows not recognised are listed, rows without a unit are noted once, and questions can be answered`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     await page.fill('#chart-text', chart('09_unknown_rows.txt'));
     await page.click('#chart-read');
@@ -87,6 +87,11 @@ for (const [name, width, height] of SIZES) {
     await page.fill('#chart-text', 'Size\tS\tM\nReach\t450\t475\nStack\t620\t630\nHTA\t65\t65\nSTA\t76\t76\n');
     await page.click('#chart-read');
     await page.click('#chart-out button.size[data-size="M"]');
+    // Reach and stack have no unit: one note names both, as a sentence; the angles none.
+    assert.deepEqual(await page.locator('#chart-out .chart-notes li').allTextContents(),
+      ['No unit given for Reach, Stack: read as mm from the size of the numbers']);
+    await page.locator('#chart-out .chart-notes').scrollIntoViewIfNeeded();
+    await shot(page, `${SHOTS}/page-${name}-chart-notes.png`, {}, page.locator('#chart-out'));
     const q = page.locator('#chart-out .chart-questions select').first();
     assert.deepEqual(await q.locator('option').allTextContents(), ['effective', 'actual']);
     assert.equal(await page.inputValue('[name="frame.seat_angle_effective_deg"]'), '76');

@@ -89,6 +89,8 @@ export function attachChart(section, apply) {
     }
     parts.push(list('Rows not recognised (not used)', run.unrecognised, 'chart-unrecognised'));
     parts.push(questionList(run.questions, answers, read));
+    // A note about one row is shown after its label; a note about the whole chart, or said once
+    // for several rows (`rows`, which its message names), as a sentence.
     parts.push(list('Notes', run.notes?.map((n) => (n.row ? `${n.row}: ${n.message}` : sentence(n.message))), 'chart-notes'));
     out.replaceChildren(...parts.filter(Boolean));
   }

@@ -15,7 +15,8 @@ use wasm_bindgen::prelude::*;
 ///   "questions": [ { "id": "Seat tube angle#meaning", "row": "Seat tube angle",
 ///                    "message": "\"Seat tube angle\" does not say effective or actual; …",
 ///                    "options": ["effective", "actual"], "chosen": "effective" } ],
-///   "notes": [ { "row": "Reach", "message": "no unit given; read as mm from the size of the numbers" } ],
+///   "notes": [ { "row": "", "rows": [ "Reach", "Stack" ],
+///                "message": "no unit given for Reach, Stack: read as mm from the size of the numbers" } ],
 ///   "error": null }
 /// ```
 ///
@@ -24,7 +25,9 @@ use wasm_bindgen::prelude::*;
 ///   has no wheel-size row.
 /// - `unrecognised`: row labels that name nothing the importer reads (show them; never hide).
 /// - `questions`: guesses to confirm; pass an answer back by `id` with
-///   [`import_chart_with_answers`]. `row: ""` / notes with `row: ""` concern the whole chart.
+///   [`import_chart_with_answers`]. `row: ""` / notes with `row: ""` concern the whole chart;
+///   a note said once for several rows (a unit inferred from the size of the numbers) has
+///   `row: ""` and lists them in `rows`, which other notes leave out.
 /// - `error`: `null`, or `{ "code": "empty_chart" | "chart_too_large" | "chart_too_long" |
 ///   "not_a_table" | "one_row" | "too_many_sizes" | "nothing_recognised", "message": "…" }`
 ///   with the lists empty; the message says what to paste instead.

@@ -13,7 +13,9 @@
     clippy::indexing_slicing
 )]
 
-use framewise_formats::chart::{import_chart, import_chart_with, Answers, ChartError, ChartImport};
+use framewise_formats::chart::{
+    import_chart, import_chart_with, Answers, ChartError, ChartImport, Note,
+};
 
 fn chart(name: &str) -> ChartImport {
     let path = format!("{}/../../tests/charts/{name}", env!("CARGO_MANIFEST_DIR"));
@@ -61,6 +63,32 @@ fn has_note(c: &ChartImport, row: &str, part: &str) -> bool {
         .any(|n| n.row == row && n.message.contains(part))
 }
 
+/// The notes that say a unit was inferred from the size of the numbers.
+fn unit_notes(c: &ChartImport) -> Vec<&Note> {
+    c.notes
+        .iter()
+        .filter(|n| n.message.contains("from the size of the numbers"))
+        .collect()
+}
+
+/// Asserts that the chart says once that `rows` (in this order) were read as `unit`: one note
+/// with no `row`, the rows in `rows` and named in its message.
+fn assert_unit_note(c: &ChartImport, unit: &str, rows: &[&str]) {
+    let tail = format!(": read as {unit} from the size of the numbers");
+    let said: Vec<&Note> = unit_notes(c)
+        .into_iter()
+        .filter(|n| n.message.ends_with(&tail))
+        .collect();
+    assert_eq!(said.len(), 1, "one note for {unit}: {:#?}", c.notes);
+    let note = said[0];
+    assert_eq!(note.row, "");
+    assert_eq!(note.rows, rows);
+    assert_eq!(
+        note.message,
+        format!("no unit given for {}{tail}", rows.join(", "))
+    );
+}
+
 #[test]
 fn sizes_as_columns_tab_separated_web_copy() {
     let c = chart("01_web_tab_columns.txt");
@@ -92,9 +120,17 @@ fn sizes_as_rows_csv() {
     assert_row(&c, "chainstay_mm", &[420.0, 420.0, 425.0, 425.0]);
     assert_row(&c, "wheelbase_mm", &[1010.0, 1031.0, 1055.0, 1078.0]);
     assert_row(&c, "bb_height_mm", &[290.0, 290.0, 295.0, 295.0]);
-    // No units anywhere: each length row says it was read as mm from the numbers' size.
-    assert!(has_note(&c, "Reach", "read as mm"));
-    assert!(has_note(&c, "BB height", "read as mm"));
+    // No units anywhere: one note says the length rows were read as mm from the numbers' size.
+    let mm = [
+        "Reach",
+        "Stack",
+        "Top tube (eff.)",
+        "Chainstay",
+        "Wheelbase",
+        "BB height",
+    ];
+    assert_unit_note(&c, "mm", &mm);
+    assert_eq!(unit_notes(&c).len(), 1);
 }
 
 #[test]
@@ -167,8 +203,19 @@ fn centimetres_without_units_are_inferred_and_said() {
     assert_row(&c, "chainstay_mm", &[430.0; 3]);
     assert_row(&c, "wheelbase_mm", &[1120.0, 1146.0, 1172.0]);
     assert_row(&c, "head_angle_deg", &[67.0; 3]);
-    assert!(has_note(&c, "Reach", "read as cm"));
-    assert!(has_note(&c, "Wheelbase", "read as cm"));
+    // One note for the seven length rows, in the chart's order: "Top tube" is placed by a
+    // question after the others are read, and still named third.
+    let cm = [
+        "Reach",
+        "Stack",
+        "Top tube",
+        "Seat tube",
+        "Head tube",
+        "Chainstay",
+        "Wheelbase",
+    ];
+    assert_unit_note(&c, "cm", &cm);
+    assert_eq!(unit_notes(&c).len(), 1);
     // "Top tube" alone: asked, read as effective.
     assert_row(&c, "top_tube_effective_mm", &[575.0, 600.0, 625.0]);
     assert!(c
@@ -319,7 +366,8 @@ fn quoted_csv_with_decimal_commas_in_inches_without_units() {
     assert_row(&c, "stack_mm", &[607.06, 624.84]);
     assert_row(&c, "wheelbase_mm", &[1120.14, 1148.08]);
     assert_row(&c, "head_angle_deg", &[68.5; 2]);
-    assert!(has_note(&c, "Reach", "read as inches"));
+    assert_unit_note(&c, "inches", &["Reach", "Stack", "Wheelbase"]);
+    assert_eq!(unit_notes(&c).len(), 1);
 }
 
 #[test]
@@ -719,4 +767,160 @@ fn one_value_without_places_asks_whether_it_is_every_size() {
     let tabs = import_chart("Size\tS\tM\tL\nReach\t430\t455\t480\nHead angle\t64\n").unwrap();
     assert!(tabs.questions.is_empty(), "{:?}", tabs.questions);
     assert!(has_note(&tabs, "Head angle", "used it for all"));
+}
+
+/// Twelve length rows without a unit: one note names them all, instead of one note per row.
+/// A row with its unit, the angle rows and an unknown row are not named; a row's own note (one
+/// value for every size) stays its own.
+#[test]
+fn unitless_length_rows_share_one_note() {
+    let text = "Size\tS\tM\tL\n\
+        Reach\t430\t455\t480\n\
+        Stack\t610\t620\t630\n\
+        Head angle\t65\t65\t65\n\
+        Seat angle (effective)\t77\t77\t77\n\
+        Top tube\t590\t615\t640\n\
+        Head tube\t95\t105\t115\n\
+        Seat tube\t400\t430\t460\n\
+        Chainstay\t435\t435\t440\n\
+        Wheelbase\t1180\t1205\t1230\n\
+        BB drop\t30\t30\t30\n\
+        BB height\t310\t310\t310\n\
+        Fork offset\t44\n\
+        Standover\t740\t760\t780\n\
+        Axle to crown\t561\t561\t561\n\
+        Front centre (mm)\t720\t745\t770\n\
+        Stem length\t50\t60\t70\n";
+    let c = import_chart(text).unwrap();
+    let mm = [
+        "Reach",
+        "Stack",
+        "Top tube",
+        "Head tube",
+        "Seat tube",
+        "Chainstay",
+        "Wheelbase",
+        "BB drop",
+        "BB height",
+        "Fork offset",
+        "Standover",
+        "Axle to crown",
+    ];
+    assert_unit_note(&c, "mm", &mm);
+    assert_eq!(unit_notes(&c).len(), 1, "{:#?}", c.notes);
+    // No note names a row on its own for its unit.
+    assert!(
+        !c.notes
+            .iter()
+            .any(|n| n.message.starts_with("no unit given;")),
+        "{:#?}",
+        c.notes
+    );
+    assert!(has_note(&c, "Fork offset", "one value for every size"));
+    assert_eq!(c.unrecognised, ["Stem length"]);
+    // The values are read as before.
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "top_tube_effective_mm", &[590.0, 615.0, 640.0]);
+    assert_row(&c, "fork_offset_mm", &[44.0; 3]);
+    assert_row(&c, "fork_a2c_mm", &[561.0; 3]);
+    assert_row(&c, "front_centre_mm", &[720.0, 745.0, 770.0]);
+    assert_row(&c, "head_angle_deg", &[65.0; 3]);
+    // In the JSON the shared note lists its rows; a note about one row has no "rows".
+    let json = framewise_formats::chart_to_json(&Ok(c));
+    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let notes = v["notes"].as_array().unwrap();
+    let shared = notes.iter().find(|n| n["rows"].is_array()).unwrap();
+    assert_eq!(shared["row"], "");
+    assert_eq!(shared["rows"], serde_json::json!(mm));
+    let own = notes.iter().find(|n| n["row"] == "Fork offset").unwrap();
+    assert!(own.get("rows").is_none(), "{own}");
+}
+
+/// Length rows read as two different units get one note each; angle rows, always degrees,
+/// get none.
+#[test]
+fn unitless_rows_of_two_units_get_one_note_per_unit() {
+    // Reach 17.5/18.1 and stack 24.0/24.6 fit only inches (444.5/459.74 and 609.6/624.84 mm);
+    // chainstay 435 and wheelbase 1180/1205 fit only mm.
+    let text = "Size\tS\tM\n\
+        Reach\t17.5\t18.1\n\
+        Chainstay\t435\t435\n\
+        Head angle\t65\t65.5\n\
+        Stack\t24.0\t24.6\n\
+        Seat angle (effective)\t77\t77\n\
+        Wheelbase\t1180\t1205\n";
+    let c = import_chart(text).unwrap();
+    assert_unit_note(&c, "inches", &["Reach", "Stack"]);
+    assert_unit_note(&c, "mm", &["Chainstay", "Wheelbase"]);
+    let said = unit_notes(&c);
+    assert_eq!(said.len(), 2, "{:#?}", c.notes);
+    // Each stands where its first row's note stood: inches (Reach) before mm (Chainstay).
+    assert!(said[0].message.contains("inches") && said[1].message.contains("as mm"));
+    assert!(!c
+        .notes
+        .iter()
+        .any(|n| n.message.contains("degrees") || n.rows.iter().any(|r| r.contains("angle"))));
+    assert!(c.questions.is_empty(), "{:#?}", c.questions);
+    assert_row(&c, "reach_mm", &[444.5, 459.74]);
+    assert_row(&c, "stack_mm", &[609.6, 624.84]);
+    assert_row(&c, "chainstay_mm", &[435.0; 2]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.5]);
+}
+
+/// A row whose numbers fit two units, or no usual range, says why in a question of its own
+/// and is not named in the shared note, answered or not.
+#[test]
+fn rows_with_a_reason_of_their_own_keep_their_own_question() {
+    // Head tube 9/9.5 fits cm (90/95 mm) and inches (228.6/241.3 mm); BB drop 1.2 fits mm, cm
+    // and inches; seat tube 4000 fits no range in any unit. Reach, stack and wheelbase fit mm only.
+    let text = "Size\tS\tM\n\
+        Reach\t450\t475\n\
+        Head tube\t9\t9.5\n\
+        Stack\t620\t630\n\
+        BB drop\t1.2\t1.2\n\
+        Seat tube\t4000\t4000\n\
+        Wheelbase\t1180\t1205\n";
+    for answers in [
+        Answers::new(),
+        [("Head tube#unit".to_string(), "in".to_string())]
+            .into_iter()
+            .collect(),
+    ] {
+        let c = import_chart_with(text, &answers).unwrap();
+        assert_unit_note(&c, "mm", &["Reach", "Stack", "Wheelbase"]);
+        assert_eq!(unit_notes(&c).len(), 1, "{:#?}", c.notes);
+        let ask = |row: &str| {
+            c.questions
+                .iter()
+                .find(|q| q.row == row && q.id == format!("{row}#unit"))
+                .unwrap_or_else(|| panic!("{row}: {:#?}", c.questions))
+        };
+        let head = ask("Head tube");
+        assert!(head.message.starts_with(
+            "no unit given and the numbers of \"Head tube\" fit cm or inches; read as"
+        ));
+        let drop = ask("BB drop");
+        assert_eq!(
+            drop.message,
+            "no unit given and the numbers of \"BB drop\" fit mm or cm or inches; read as mm like the other rows"
+        );
+        let seat = ask("Seat tube");
+        assert!(seat.message.starts_with(
+            "the numbers of \"Seat tube\" fit no usual range for Seat tube length in mm, cm or inches"
+        ));
+        if answers.is_empty() {
+            assert_eq!(head.chosen, "cm");
+            assert_row(&c, "head_tube_mm", &[90.0, 95.0]);
+        } else {
+            assert_eq!(head.chosen, "in");
+            assert!(
+                head.message.ends_with("read as inches as chosen"),
+                "{}",
+                head.message
+            );
+            assert_row(&c, "head_tube_mm", &[228.6, 241.3]);
+        }
+        // Their values' own notes stay per row too.
+        assert!(has_note(&c, "Seat tube", "S: 4000 mm is outside"));
+    }
 }

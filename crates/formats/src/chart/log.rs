@@ -12,6 +12,8 @@ pub struct Log<'a> {
     pub questions: Vec<Question>,
     /// Labels of rows not read.
     pub unrecognised: Vec<String>,
+    /// The topic of each note said once for several rows, with its index in `notes`.
+    shared: Vec<(String, usize)>,
 }
 
 impl<'a> Log<'a> {
@@ -22,6 +24,7 @@ impl<'a> Log<'a> {
             notes: Vec::new(),
             questions: Vec::new(),
             unrecognised: Vec::new(),
+            shared: Vec::new(),
         }
     }
 
@@ -29,7 +32,34 @@ impl<'a> Log<'a> {
     pub fn note(&mut self, row: &str, message: String) {
         self.notes.push(Note {
             row: row.to_string(),
+            rows: Vec::new(),
             message,
+        });
+    }
+
+    /// Records `row` in the one note said for every row of `topic`, so a chart of twelve rows
+    /// read alike says it once. The note stands where its first row's note would have stood;
+    /// its `row` is empty, its `rows` lists the rows in the order given, and its message is
+    /// `message(rows)`, written again as each row joins.
+    pub fn note_rows(&mut self, topic: &str, row: &str, message: impl FnOnce(&[String]) -> String) {
+        let known = self
+            .shared
+            .iter()
+            .find(|(t, _)| t == topic)
+            .and_then(|(_, i)| self.notes.get_mut(*i));
+        if let Some(note) = known {
+            if !note.rows.iter().any(|r| r == row) {
+                note.rows.push(row.to_string());
+            }
+            note.message = message(&note.rows);
+            return;
+        }
+        let rows = vec![row.to_string()];
+        self.shared.push((topic.to_string(), self.notes.len()));
+        self.notes.push(Note {
+            row: String::new(),
+            message: message(&rows),
+            rows,
         });
     }
 

@@ -8,7 +8,9 @@
 //!   "unrecognised": [ "Stem length" ],
 //!   "questions": [ { "id": "Seat tube angle#meaning", "row": "Seat tube angle",
 //!                    "message": "…", "options": ["effective", "actual"], "chosen": "effective" } ],
-//!   "notes": [ { "row": "Reach", "message": "no unit given; read as mm from the size of the numbers" } ] }
+//!   "notes": [ { "row": "", "rows": [ "Reach", "Stack" ],
+//!                "message": "no unit given for Reach, Stack: read as mm from the size of the numbers" },
+//!              { "row": "Head angle", "message": "one value for every size; used it for all" } ] }
 //! ```
 //!
 //! Values are in the §5 units (mm, degrees), rounded to 0.01. Sizes may be columns or rows;
@@ -16,8 +18,9 @@
 //! (`Reach (mm)`), in a units column, in each cell (`470 mm`, `18.5"`, `65°`), in a title line
 //! (`All measurements in mm`), or absent: then each length row's unit is inferred from the size
 //! of its numbers against the catalogue's plausible range (reach 18.5 → in, 47.0 → cm, 470 → mm)
-//! and a note says so; a row that fits two units follows the other rows' unit or asks.
-//! Angles are always degrees. Also read: a header of labels that lost its cell borders (single
+//! and one note per unit says so, naming the rows; a row whose numbers fit two units, or none,
+//! gets a question of its own (the default follows the other rows' unit when it fits).
+//! Angles are always degrees (without a note: there is nothing to infer). Also read: a header of labels that lost its cell borders (single
 //! spaces; split to the data's width), a phone copy with one cell per line, drawing-reference
 //! or row-number columns, one value standing for every size, a row short of values (read from
 //! the left; asked when the cells lost their places), `470-475` ranges (midpoint),
@@ -90,11 +93,19 @@ pub struct Question {
     pub chosen: String,
 }
 
-/// Something the importer did, per row (or `""` for the whole chart).
+/// Something the importer did, about one row, several rows or the whole chart.
+///
+/// A note about one row names it in `row`; a note said once for several rows (the unit
+/// inferred from the size of the numbers) has an empty `row`, lists them in `rows` and names
+/// them in its message; a note about the whole chart has neither.
 #[derive(Debug, Clone, PartialEq, Eq, Serialize)]
 pub struct Note {
     /// The row label as written, or empty.
     pub row: String,
+    /// The row labels as written of a note about several rows, in the chart's order; else
+    /// empty (and left out of the JSON).
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub rows: Vec<String>,
     /// One sentence.
     pub message: String,
 }

@@ -20,6 +20,8 @@ pub(super) struct TableRow {
 
 /// A row that names a frame key, with its cells read.
 struct Keyed {
+    /// Its place among the table's rows.
+    place: usize,
     text: String,
     m: &'static Measurement,
     unit: Option<Mark>,
@@ -45,11 +47,11 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
     let global = read.global;
     let n = sizes.len();
     let mut keyed: Vec<Keyed> = Vec::new();
-    let mut ambiguous: Vec<(TableRow, Ambiguity)> = Vec::new();
-    for row in rows {
+    let mut ambiguous: Vec<(usize, TableRow, Ambiguity)> = Vec::new();
+    for (place, row) in rows.into_iter().enumerate() {
         match row.label.kind {
-            Kind::Key(k) => push_keyed(&mut keyed, row, k, n, &read, log),
-            Kind::Ambiguous(a) => ambiguous.push((row, a)),
+            Kind::Key(k) => push_keyed(&mut keyed, (place, row), k, n, &read, log),
+            Kind::Ambiguous(a) => ambiguous.push((place, row, a)),
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
             Kind::Size | Kind::Unknown => {
@@ -62,11 +64,14 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
             }
         }
     }
-    for (row, a) in ambiguous {
+    for (place, row, a) in ambiguous {
         if let Some(k) = resolve(&row, a, &keyed, log) {
-            push_keyed(&mut keyed, row, k, n, &read, log);
+            push_keyed(&mut keyed, (place, row), k, n, &read, log);
         }
     }
+    // Rows placed by `resolve` after the others go back to their places: the rows are written,
+    // and named in notes, in the chart's order.
+    keyed.sort_by_key(|k| k.place);
     let consensus = consensus(&keyed, global);
     for row in &keyed {
         write_row(sizes, row, global, consensus, log);
@@ -75,7 +80,7 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
 
 fn push_keyed(
     keyed: &mut Vec<Keyed>,
-    row: TableRow,
+    (place, row): (usize, TableRow),
     key: &'static str,
     n: usize,
     read: &Reading,
@@ -118,6 +123,7 @@ fn push_keyed(
         cells.truncate(n);
     }
     keyed.push(Keyed {
+        place,
         text: row.label.text,
         m,
         unit: row.unit,
@@ -350,13 +356,14 @@ fn length_unit(row: &Keyed, global: Option<Mark>, consensus: Option<Mark>, log: 
     match list.as_slice() {
         [one] => {
             let one = *one;
-            log.note(
-                text,
+            // One note per unit for all the rows read so: the rows' notes were alike.
+            log.note_rows(&format!("unit#{}", one.name()), text, |rows| {
                 format!(
-                    "no unit given; read as {} from the size of the numbers",
+                    "no unit given for {}: read as {} from the size of the numbers",
+                    rows.join(", "),
                     one.words()
-                ),
-            );
+                )
+            });
             one
         }
         [] => pick(log, text, &["mm", "cm", "in"], "mm", |c| {
