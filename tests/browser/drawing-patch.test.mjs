@@ -53,13 +53,13 @@ for (const [name, width, height] of SIZES) {
       reachText: window.marked.reach.textContent,
     }));
     // The reach label is in the hidden dimensions layer: its new words wait until it is shown.
-    assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 470 mm' });
+    assert.deepEqual(same, { svg: true, fork: true, reach: true, reachText: 'Reach 470' });
     assert.notEqual(await d(page, 'ridden-fork-leg'), fork);
     assert.notEqual(await ghostOf(page), ghost, 'the stock frame moved with its reach');
     // The bike still fits in the view box shown (its own fit is 50 mm less tall): it stays.
     assert.deepEqual(await viewBox(page), shownBox, 'the view box is kept');
     await page.locator('label.toggle:has(#show-dims)').click();
-    assert.equal(await page.evaluate(() => window.marked.reach.textContent), 'Reach 489 mm');
+    assert.equal(await page.evaluate(() => window.marked.reach.textContent), 'Reach 489');
     await page.locator('label.toggle:has(#show-dims)').click();
     await showEveryLayer(page);
     // Every layer shown once: the patched drawing is exactly what a fresh page draws for the

@@ -11,6 +11,17 @@ use framewise_kernel::Outline;
 /// How far a dimension line stands off the part it measures, mm of drawing.
 const OFF: f64 = 70.0;
 
+/// How far the wheelbase line lies below the ground, mm: below the trail line (half [`OFF`]),
+/// with room under it for the labels of both (see [`BELOW_LINE`]).
+const WHEELBASE_DROP: f64 = 60.0;
+
+/// The wheelbase and trail labels' baseline below the wheelbase line, mm: the ascenders of the
+/// largest type (0.76 × [`crate::LABEL_EM_MAX_MM`], 61 mm), the labels' halo
+/// (`stroke-width: 18` in web/style.css) and a gap, so that no halo cuts the line; the type's
+/// box, 0.2 em under the baseline, stays inside the view box (at least 160 mm below the ground,
+/// [`crate::view::fit`]).
+const BELOW_LINE: f64 = 80.0;
+
 /// The BB-to-grip label's baseline above the grip, mm (its start is 40 mm ahead of the grip).
 pub const GRIP_LABEL_RISE: f64 = 30.0;
 
@@ -24,15 +35,20 @@ struct Dim {
 }
 
 /// Where each label goes, chosen so that on the demo bike (and bikes like it) no label lies on a
-/// tyre or on another label (tested in `tests.rs`): reach above its line; stack beside its line,
-/// halfway between the head tube top and the front tyre; wheelbase and trail below the ground;
-/// BB height beside the foot of its line, low between the wheels; BB-to-grip beyond the grip.
+/// tyre or on another label in any type size the page uses, [`crate::LABEL_EM_MM`] to
+/// [`crate::LABEL_EM_MAX_MM`] (tested in `tests.rs` and tests/browser/labels.test.mjs): reach
+/// above its line; stack beside its line, halfway between the head tube top and the front tyre;
+/// wheelbase and trail below the ground, trail from the front contact forward (centred under its
+/// short line, it met the wheelbase label on a road bike); BB height low between the wheels,
+/// centred between the axles like the wheelbase, its line ending on it (the widest room between
+/// the tyres: beside the foot of its line, the largest type reached the front tyre); BB-to-grip
+/// beyond the grip.
 fn dims_of(o: &Outline) -> Vec<Dim> {
     let t = o.head_top;
     let gy = o.ground_y;
     let ry = t[1];
     let sx = t[0] + OFF * 2.0;
-    let wy = gy - OFF;
+    let wy = gy - WHEELBASE_DROP;
     let (r, f) = (o.rear_axle[0], o.front_axle[0]);
     let ty = gy - OFF / 2.0;
     let (c, s) = (o.front_contact[0], o.steer_ground[0]);
@@ -66,23 +82,17 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
             "wheelbase_mm",
             [r, wy],
             [f, wy],
-            [(r + f) / 2.0, wy - 50.0],
+            [(r + f) / 2.0, wy - BELOW_LINE],
             "middle",
         ),
         d(
             "bb_height_mm",
             [-OFF, gy],
             [-OFF, 0.0],
-            [-OFF + 12.0, gy + 22.0],
-            "start",
-        ),
-        d(
-            "trail_mm",
-            [c, ty],
-            [s, ty],
-            [(c + s) / 2.0, gy - OFF - 50.0],
+            [(r + f) / 2.0, gy + 22.0],
             "middle",
         ),
+        d("trail_mm", [c, ty], [s, ty], [c, wy - BELOW_LINE], "start"),
     ];
     if let Some(ck) = &o.cockpit {
         v.push(d(
@@ -101,10 +111,13 @@ const TYRE_HALF_STROKE: f64 = 15.0;
 /// From a label's baseline to the middle of its capitals: about 0.35 of the 64 mm type, mm.
 const LABEL_MID: f64 = 22.0;
 
-/// The words of a dimension label. BB-to-grip uses a shorter name than the glossary's ("BB to
-/// grip") so that the label fits beside the front wheel.
+/// The words of a dimension label: its name and number, a length without its unit (millimetres,
+/// as in a dimensioned drawing; the tables say the unit), so that the labels fit in the phone's
+/// larger type ([`crate::LABEL_EM_MAX_MM`]: "BB height 337 mm" was wider than the room between
+/// the tyres). BB-to-grip uses a shorter name than the glossary's ("BB to grip") so that the
+/// label fits beside the front wheel.
 fn words_of(key: &str, v: f64) -> String {
-    let unit = if key.ends_with("_deg") { "°" } else { " mm" };
+    let unit = if key.ends_with("_deg") { "°" } else { "" };
     let name = match key {
         "bb_to_grip_mm" => "BB to grip",
         _ => label(key).unwrap_or(key),

@@ -65,19 +65,16 @@ fn snap(p: Xy) -> Xy {
     p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
 }
 
-/// The labels' type size, mm (`.bike-drawing .label` in web/style.css: 64 px in mm units).
-const LABEL_EM_MM: f64 = 64.0;
-
 /// The braking label's baseline height: 30 mm above the centre of mass, but when the grip is
 /// known never lower than clear above the BB-to-grip dimension label (baseline
 /// [`crate::dims::GRIP_LABEL_RISE`] above the grip), whose line it would otherwise share on
-/// most bikes: that label's capitals (0.75 em) and this one's descenders (0.25 em) and a 16 mm
-/// gap, rounded up to the labels' grid (so [`snap`] keeps it). The same with the dimensions
-/// hidden, so showing them moves nothing.
+/// most bikes: that label's capitals (0.75 em) and this one's descenders (0.25 em) in the
+/// largest type ([`crate::LABEL_EM_MAX_MM`]) and a 16 mm gap, rounded up to the labels' grid
+/// (so [`snap`] keeps it). The same with the dimensions hidden, so showing them moves nothing.
 fn braking_label_y(c: Xy, o: &Outline) -> f64 {
     let own = c[1] + 30.0;
     let Some(ck) = &o.cockpit else { return own };
-    let clear = ck.grip[1] + crate::dims::GRIP_LABEL_RISE + LABEL_EM_MM + 16.0;
+    let clear = ck.grip[1] + crate::dims::GRIP_LABEL_RISE + crate::LABEL_EM_MAX_MM + 16.0;
     own.max((clear / LABEL_STEP_MM).ceil() * LABEL_STEP_MM)
 }
 

@@ -35,6 +35,15 @@ use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::{BikeReport, Outline};
 use shapes::PathData;
 
+/// The labels' type size on a desk, mm of drawing (`.bike-drawing .label` in web/style.css).
+pub const LABEL_EM_MM: f64 = 64.0;
+
+/// The largest type size the page sets the labels in, mm of drawing: on a small drawing the page
+/// makes them larger, so that they stay about 12 px on the screen (80 mm on a 360 px phone,
+/// web/style.css). Labels are placed so that they keep off each other at every size from
+/// [`LABEL_EM_MM`] to this one (tests.rs).
+pub const LABEL_EM_MAX_MM: f64 = 80.0;
+
 /// The handling limits written on the centre-of-mass lines, for one posture.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct Limits {

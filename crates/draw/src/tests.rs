@@ -154,7 +154,7 @@ fn every_part_is_drawn_when_present() {
         assert!(svg.contains(&format!("class=\"{part}\"")), "{part}");
     }
     assert!(svg.contains("braking limit 0.63 g") && svg.contains("climb 32°"));
-    assert!(svg.contains("Reach 470 mm"));
+    assert!(svg.contains(">Reach 470<"), "a length without its unit");
     assert_eq!(svg.matches("class=\"rider\"").count(), 2);
 }
 
@@ -510,10 +510,13 @@ fn numbers_are_tenths_never_nan_or_minus_zero() {
     );
 }
 
+/// The type sizes the page sets the labels in: the desk's and the largest (a phone's).
+const EMS: [f64; 2] = [LABEL_EM_MM, LABEL_EM_MAX_MM];
+
 /// A label's box in SVG axes `[x0, y0, x1, y1]`, estimated from its words: 0.6 em a character
 /// (a wide estimate for the page's sans-serif type), 0.75 em above the baseline and 0.25 em
-/// below, at the page's 64 mm type (`.bike-drawing .label` in web/style.css).
-fn label_box(node: &Node) -> Option<(String, [f64; 4])> {
+/// below, in type of `em` mm (`.bike-drawing .label` in web/style.css).
+fn label_box(node: &Node, em: f64) -> Option<(String, [f64; 4])> {
     let Node::Text {
         key,
         anchor,
@@ -526,7 +529,6 @@ fn label_box(node: &Node) -> Option<(String, [f64; 4])> {
         return None;
     };
     let (x, y): (f64, f64) = (x.parse().ok()?, y.parse().ok()?);
-    let em = 64.0;
     let w = words.chars().count() as f64 * 0.6 * em;
     let x0 = match *anchor {
         "middle" => x - w / 2.0,
@@ -567,35 +569,43 @@ fn box_meets_disc(b: [f64; 4], c: [f64; 2], r: f64) -> bool {
     (nx - c[0]).hypot(ny - c[1]) < r
 }
 
-/// With dimensions shown, every label is readable: none lies on a tyre (the disc out to the
-/// tyre's outer edge, stroke included), none on another label, and each is inside the view box.
+/// With dimensions shown, every label is readable in every type size the page uses: none lies
+/// on a tyre (the disc out to the tyre's outer edge, stroke included), none on another label
+/// (the handling labels included), and each is inside the view box.
 #[test]
-fn dimension_labels_keep_off_the_tyres_and_each_other() {
+fn labels_keep_off_the_tyres_and_each_other() {
     let n = numbers();
     let o = full();
     let d = drawing(&scene(&o, &n));
-    let labels: Vec<_> = texts(&d.nodes)
-        .into_iter()
-        .filter_map(label_box)
-        .filter(|(k, _)| k.starts_with("dim-"))
-        .collect();
-    assert_eq!(labels.len(), 6, "{labels:?}");
     let tyres = [
         ([o.rear_axle[0], -o.rear_axle[1]], o.rear_radius + 15.0),
         ([o.front_axle[0], -o.front_axle[1]], o.front_radius + 15.0),
     ];
     let vb = view_box(&d);
-    for (i, (key, b)) in labels.iter().enumerate() {
-        for (c, r) in tyres {
-            assert!(!box_meets_disc(*b, c, r), "{key} {b:?} lies on a tyre");
+    for em in EMS {
+        // The seated posture's labels with the dimensions (the standing one has no limits here).
+        let labels: Vec<_> = texts(&d.nodes)
+            .into_iter()
+            .filter_map(|t| label_box(t, em))
+            .collect();
+        assert_eq!(labels.len(), 9, "{labels:?}");
+        for (i, (key, b)) in labels.iter().enumerate() {
+            if key.starts_with("dim-") {
+                for (c, r) in tyres {
+                    assert!(
+                        !box_meets_disc(*b, c, r),
+                        "{em} mm: {key} {b:?} lies on a tyre"
+                    );
+                }
+            }
+            for (other, ob) in &labels[i + 1..] {
+                let apart = b[2] <= ob[0] || ob[2] <= b[0] || b[3] <= ob[1] || ob[3] <= b[1];
+                assert!(apart, "{em} mm: {key} {b:?} overlaps {other} {ob:?}");
+            }
+            let inside =
+                b[0] >= vb[0] && b[1] >= vb[1] && b[2] <= vb[0] + vb[2] && b[3] <= vb[1] + vb[3];
+            assert!(inside, "{em} mm: {key} {b:?} outside the view box {vb:?}");
         }
-        for (other, ob) in &labels[i + 1..] {
-            let apart = b[2] <= ob[0] || ob[2] <= b[0] || b[3] <= ob[1] || ob[3] <= b[1];
-            assert!(apart, "{key} {b:?} overlaps {other} {ob:?}");
-        }
-        let inside =
-            b[0] >= vb[0] && b[1] >= vb[1] && b[2] <= vb[0] + vb[2] && b[3] <= vb[1] + vb[3];
-        assert!(inside, "{key} {b:?} outside the view box {vb:?}");
     }
 }
 
@@ -656,14 +666,18 @@ fn the_braking_label_keeps_off_the_bb_to_grip_label() {
             let c = o.com_seated.unwrap();
             o.cockpit.as_mut().unwrap().grip = [c[0] + f64::from(dx), c[1] + f64::from(dy)];
             let d = drawing(&scene(&o, &n));
-            let boxes: std::collections::BTreeMap<String, [f64; 4]> =
-                texts(&d.nodes).into_iter().filter_map(label_box).collect();
-            let (b, g) = (boxes["seated-braking"], boxes["dim-bb_to_grip_mm"]);
-            let apart = b[2] <= g[0] || g[2] <= b[0] || b[3] <= g[1] || g[3] <= b[1];
-            assert!(
-                apart,
-                "grip at COM + ({dx}, {dy}): braking {b:?}, BB to grip {g:?}"
-            );
+            for em in EMS {
+                let boxes: std::collections::BTreeMap<String, [f64; 4]> = texts(&d.nodes)
+                    .into_iter()
+                    .filter_map(|t| label_box(t, em))
+                    .collect();
+                let (b, g) = (boxes["seated-braking"], boxes["dim-bb_to_grip_mm"]);
+                let apart = b[2] <= g[0] || g[2] <= b[0] || b[3] <= g[1] || g[3] <= b[1];
+                assert!(
+                    apart,
+                    "{em} mm, grip at COM + ({dx}, {dy}): braking {b:?}, BB to grip {g:?}"
+                );
+            }
         }
     }
     let mut o = full();
