@@ -8,7 +8,8 @@
 // at 1280×800.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { startAll, openPage, settled, shot, SHOTS } from './harness.mjs';
+import { readFileSync } from 'node:fs';
+import { startAll, openPage, settled, shot, SHOTS, ROOT } from './harness.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -94,6 +95,24 @@ test('desk 1280×800: labels no bigger than before (14.1 px type, 16 px box)', T
     assert.deepEqual(overlaps(shown), [], `${name}: labels overlap`);
     t.diagnostic(`1280 ${name}: type ${round(Math.max(...shown.map((l) => l.px)))} px, box ${round(shown[0].box[3] - shown[0].box[1])} px tall`);
     await shot(page, `${SHOTS}/labels-1280-${v.posture}-${v.dims ? 'dims' : 'no-dims'}.png`, {}, page.locator('#drawing'));
+  }
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('phone 360×740: a road bike with its grip far forward keeps every label inside the drawing', T, async () => {
+  // The drop-bar pair's first bike: its hoods put the grip far forward, and "BB to grip" ran off
+  // the drawing's edge until the view box reached past the label (crates/draw view::fit).
+  const hash = readFileSync(`${ROOT}tests/links/v1-drop-bar-pair.txt`, 'utf8').trim();
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740, hash });
+  for (const v of VIEWS.filter((x) => x.dims)) {
+    await view(page, v);
+    const { shown, drawing } = await labels(page);
+    assert.ok(shown.some((l) => l.key === 'dim-bb_to_grip_mm'), shown.map((l) => l.key).join());
+    const out = shown.filter(({ box: b }) => b[0] < drawing[0] || b[2] > drawing[2] || b[1] < drawing[1] || b[3] > drawing[3]);
+    assert.deepEqual(out.map((l) => `${l.key} [${l.box.map(round)}]`), [], `${v.posture}: outside the drawing [${drawing}]`);
+    assert.deepEqual(overlaps(shown), [], `${v.posture}: labels overlap`);
+    await shot(page, `${SHOTS}/labels-360-road-${v.posture}.png`, {}, page.locator('#drawing'));
   }
   assert.deepEqual(problems, []);
   await context.close();

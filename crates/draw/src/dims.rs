@@ -22,8 +22,18 @@ const WHEELBASE_DROP: f64 = 60.0;
 /// [`crate::view::fit`]).
 const BELOW_LINE: f64 = 80.0;
 
-/// The BB-to-grip label's baseline above the grip, mm (its start is 40 mm ahead of the grip).
+/// The BB-to-grip label's baseline above the grip, mm (its start is [`GRIP_LABEL_AHEAD`] ahead
+/// of the grip).
 pub const GRIP_LABEL_RISE: f64 = 30.0;
+
+/// The BB-to-grip label's start ahead of the grip, mm.
+pub const GRIP_LABEL_AHEAD: f64 = 40.0;
+
+/// The BB-to-grip label's width, estimated for the largest type, mm: "BB to grip 1000", 15
+/// characters at 0.6 em each (the estimate tests.rs uses) of [`crate::LABEL_EM_MAX_MM`]. The
+/// view box reaches past its end ([`crate::view::fit`]): on a bike whose grip is far forward (a
+/// road bike's hoods) the label would otherwise run off the drawing's edge.
+pub const GRIP_LABEL_WIDTH: f64 = 15.0 * 0.6 * crate::LABEL_EM_MAX_MM;
 
 /// One dimension: the line from `a` to `b` and the label at `at`.
 struct Dim {
@@ -99,7 +109,7 @@ fn dims_of(o: &Outline) -> Vec<Dim> {
             "bb_to_grip_mm",
             [0.0, 0.0],
             ck.grip,
-            [ck.grip[0] + 40.0, ck.grip[1] + GRIP_LABEL_RISE],
+            [ck.grip[0] + GRIP_LABEL_AHEAD, ck.grip[1] + GRIP_LABEL_RISE],
             "start",
         ));
     }

@@ -726,3 +726,22 @@ fn a_kept_view_box_changes_only_the_view_box_and_the_ground() {
     };
     assert_eq!(drawing_in(&scene(&o, &n), Some(too_loose)).view, fit);
 }
+
+/// The view box reaches past the BB-to-grip label's end, estimated for the largest type (15
+/// characters at 0.6 em of 80 mm, 40 mm ahead of the grip, and 30 mm for its halo): a road
+/// bike's hoods put the grip far forward, and its label ran off a phone's drawing. Where the
+/// label ends inside the usual padding (the demo's flat bar), the box is as before.
+#[test]
+fn the_view_box_holds_the_grip_label_of_a_grip_far_forward() {
+    let n = numbers();
+    let o = full();
+    // Tyre-based: the front tyre's front at 1172 mm, 80 mm of padding, up to a 50 mm step.
+    assert_eq!(crate::view::fit(&scene(&o, &n)).max_x(), 1300.0);
+    let mut forward = full();
+    if let Some(c) = forward.cockpit.as_mut() {
+        c.grip = [700.0, 705.0];
+    }
+    let end = 700.0 + 40.0 + 15.0 * 0.6 * 80.0 + 30.0;
+    let fit = crate::view::fit(&scene(&forward, &n));
+    assert!(fit.max_x() >= end && fit.max_x() < end + 50.0, "{fit:?}");
+}

@@ -61,7 +61,9 @@ impl ViewBox {
 
 /// The view box fitted to a scene: the extent of the ridden bike and the stock ghost (tyres,
 /// frame, cockpit, saddle, riders) with 80 mm at the sides, 144 mm above (room for the
-/// handling labels) and 160 mm below (the ground and the climb and descent lines), each edge
+/// handling labels) and 160 mm below (the ground and the climb and descent lines), and in front
+/// at least 30 mm past the BB-to-grip label's end (the label's halo and a gap; whether or not the
+/// dimensions are shown, so that showing them does not rescale the drawing), each edge
 /// moved outward to a whole [`VIEW_STEP_MM`] step, so that an edit that moves the bike a few
 /// millimetres usually gives the same box.
 pub fn fit(scene: &Scene) -> ViewBox {
@@ -73,7 +75,10 @@ pub fn fit(scene: &Scene) -> ViewBox {
         (if up { q.ceil() } else { q.floor() }) * VIEW_STEP_MM
     };
     let min_x = out(x0.min(gx0) - pad, false);
-    let max_x = out(x1.max(gx1) + pad, true);
+    let grip_label_end = scene.ridden.cockpit.as_ref().map_or(f64::MIN, |c| {
+        c.grip[0] + crate::dims::GRIP_LABEL_AHEAD + crate::dims::GRIP_LABEL_WIDTH + 30.0
+    });
+    let max_x = out((x1.max(gx1) + pad).max(grip_label_end), true);
     let top = out(y1.max(gy1) + pad * 1.8, true);
     let bottom = out(y0.min(gy0) - pad * 2.0, false);
     ViewBox {
