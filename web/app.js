@@ -36,6 +36,22 @@ const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.
 wireDefinitions(results, definitions);
 const showStrip = createStrip(document.getElementById('strip'), definitions, form); // key numbers on a phone
 
+// A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider:
+// its reasons (the kernel's "unreachable" warnings, which start with the posture) are said under
+// the drawing while that posture is shown, not only in the warnings list.
+const postureNote = document.getElementById('posture-note');
+let lastBike = null;
+function showPostureNote(bike = lastBike) {
+  lastBike = bike;
+  const posture = getView().posture;
+  const why = (bike?.warnings ?? [])
+    .filter((w) => w.code === 'unreachable' && w.message.startsWith(posture))
+    .map((w) => w.message.charAt(0).toUpperCase() + w.message.slice(1))
+    .join(' ');
+  if (postureNote.textContent !== why) postureNote.textContent = why;
+  postureNote.hidden = !why;
+}
+
 // The form's text: an input event updates its field; code that fills the form resets it.
 let typed = null;
 const formFields = () => (typed ??= readForm(form)); // share.fields() copies it
@@ -122,6 +138,7 @@ function update(event) {
   // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   showStrip(result.report.bikes[0]);
+  showPostureNote(result.report.bikes[0]);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page once typing pauses
 }
@@ -169,7 +186,10 @@ function rehearse(left) {
 }
 
 form.addEventListener('input', update);
-document.addEventListener('framewise:view', () => share.update());
+document.addEventListener('framewise:view', () => {
+  share.update();
+  showPostureNote();
+});
 update();
 registerOffline();
 document.documentElement.dataset.ready = 'true';

@@ -117,3 +117,25 @@ test('phone 360×740: a road bike with its grip far forward keeps every label in
   assert.deepEqual(problems, []);
   await context.close();
 });
+
+test('phone 360×740: a posture drawn without its rider says why under the drawing', T, async () => {
+  // The drop-bar pair's first bike: standing, its grips are out of the standing figure's reach.
+  const hash = readFileSync(`${ROOT}tests/links/v1-drop-bar-pair.txt`, 'utf8').trim();
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740, hash });
+  const note = page.locator('#posture-note');
+  await view(page, { posture: 'seated', dims: false });
+  assert.equal(await note.isHidden(), true, 'the seated rider is drawn: nothing to say');
+  await view(page, { posture: 'standing', dims: false });
+  assert.equal(await page.locator('#drawing svg .posture.standing .rider').count(), 0, 'no standing rider');
+  assert.match(await note.textContent(), /^Standing, the grips are \d+ mm beyond reach; the standing figure is left out\.$/);
+  await shot(page, `${SHOTS}/page-phone-posture-note.png`, { clip: { x: 0, y: 0, width: 360, height: 740 } });
+  // An edit that brings the grips within reach (a much shorter stem and reach) takes it away.
+  await page.fill('input[name="setup.stem_mm"]', '40');
+  await page.fill('input[name="frame.reach_mm"]', '300');
+  await settled(page);
+  assert.equal(await note.isHidden(), true, await note.textContent());
+  await view(page, { posture: 'seated', dims: false });
+  assert.equal(await note.isHidden(), true);
+  assert.deepEqual(problems, []);
+  await context.close();
+});

@@ -179,11 +179,10 @@ impl Figure {
 /// A reason a posture is out of reach, in words, e.g. "grips 42 mm beyond arm reach".
 pub fn describe(what: &str, r: Reach) -> String {
     match r {
-        Reach::TooFar(mm) => format!("{what} {} mm beyond reach", crate::error::fmt_num(mm)),
-        Reach::TooClose(mm) => format!(
-            "{what} {} mm too close: the limb would have to fold further than it can",
-            crate::error::fmt_num(mm)
-        ),
+        Reach::TooFar(mm) => format!("{what} {mm:.0} mm beyond reach"),
+        Reach::TooClose(mm) => {
+            format!("{what} {mm:.0} mm too close: the limb would have to fold further than it can")
+        }
     }
 }
 
