@@ -46,7 +46,7 @@ const EDITS = arg > 0 ? Number(process.argv[arg + 1]) : 200;
 const coresArg = process.argv.indexOf('--cores');
 const CORES = coresArg > 0 ? process.argv[coresArg + 1] : 'both';
 const onlyArg = process.argv.indexOf('--only');
-const ONLY = onlyArg > 0 ? process.argv[onlyArg + 1] : '';
+const ONLY = onlyArg > 0 ? process.argv[onlyArg + 1] ?? '' : '';
 const BY_EDIT = process.argv.includes('--by-edit');
 const TYPING = process.argv.includes('--typing');
 const pace = (i) => new Promise((ok) => setTimeout(ok, i % 3 === 2 ? 600 : 150));
@@ -196,7 +196,11 @@ const env = await startAll();
 try {
   const loaded = await bytes(env);
   const situations = {};
-  for (const s of SITUATIONS.filter((x) => x.name.startsWith(ONLY))) {
+  const chosen = SITUATIONS.filter((x) => x.name.startsWith(ONLY));
+  if (!chosen.length || (onlyArg > 0 && !ONLY)) {
+    throw new Error(`--only ${ONLY}: no situation's name starts so (${SITUATIONS.map((x) => x.name).join('; ')})`);
+  }
+  for (const s of chosen) {
     for (const cores of KINDS) situations[`${s.name}, ${cores === 'own' ? 'main thread on its own core' : 'shared cores'}`] = await measure(env, s, cores);
   }
   const gzTotal = [...loaded.values()].reduce((a, f) => a + f.gz, 0);

@@ -36,15 +36,18 @@ const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.
 wireDefinitions(results, definitions);
 const showStrip = createStrip(document.getElementById('strip'), definitions, form); // key numbers on a phone
 
-// A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider:
-// its reasons (the kernel's "unreachable" warnings, which start with the posture) are said under
-// the drawing while that posture is shown, not only in the warnings list.
+// A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider
+// (and without its centre of mass, so its handling numbers have none): its reasons (the kernel's
+// "unreachable" warnings, which start with the posture) are said under the drawing while that
+// posture is shown, not only in the warnings list. A figure drawn with some numbers left out (a
+// pedal out of reach at one crank angle) is said in the warnings list only.
 const postureNote = document.getElementById('posture-note');
 let lastBike = null;
 function showPostureNote(bike = lastBike) {
   lastBike = bike;
   const posture = getView().posture;
-  const why = (bike?.warnings ?? [])
+  const drawn = bike?.handling?.[posture]?.com_x_mm != null;
+  const why = (drawn ? [] : bike?.warnings ?? [])
     .filter((w) => w.code === 'unreachable' && w.message.startsWith(posture))
     .map((w) => w.message.charAt(0).toUpperCase() + w.message.slice(1))
     .join(' ');
@@ -186,10 +189,9 @@ function rehearse(left) {
 }
 
 form.addEventListener('input', update);
-document.addEventListener('framewise:view', () => {
-  share.update();
-  showPostureNote();
-});
+// A view choice evaluates the form again: its link is of the last form the page showed, with the
+// new view (a link made of the form as typed could hold a field in error).
+document.addEventListener('framewise:view', () => update());
 update();
 registerOffline();
 document.documentElement.dataset.ready = 'true';

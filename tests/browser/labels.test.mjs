@@ -136,6 +136,14 @@ test('phone 360×740: a posture drawn without its rider says why under the drawi
   assert.equal(await note.isHidden(), true, await note.textContent());
   await view(page, { posture: 'seated', dims: false });
   assert.equal(await note.isHidden(), true);
+  // A seated rider drawn with a pedal out of reach at one crank angle (a high saddle): the
+  // warnings list says it; the note does not, as the rider is there.
+  await page.fill('input[name="setup.saddle_height_mm"]', '820');
+  await settled(page);
+  const warnings = await page.locator('#warnings').textContent();
+  assert.match(warnings, /Seated, the pedal at bottom dead centre is \d+ mm beyond reach/);
+  assert.equal(await page.locator('#drawing svg .posture.seated .rider').count(), 1, 'the seated rider is drawn');
+  assert.equal(await note.isHidden(), true, await note.textContent());
   assert.deepEqual(problems, []);
   await context.close();
 });

@@ -142,6 +142,34 @@ test('quick edits write the address once typing pauses, and copy takes the newes
   await context.close();
 });
 
+test('an edit is kept through a reload within the pause, and a jump link within it keeps Back on the edit', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  const reach = () => page.locator('[name="frame.reach_mm"]').inputValue();
+  // Reload at once after an edit: the address had not followed yet.
+  await page.evaluate(() => {
+    const box = document.querySelector('[name="frame.reach_mm"]');
+    box.value = '481';
+    box.dispatchEvent(new Event('input', { bubbles: true }));
+  });
+  await page.reload();
+  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  assert.equal(await reach(), '481');
+  // An edit, then at once a jump link: the jump's history entry comes after the edit's address.
+  await page.evaluate(() => {
+    const box = document.querySelector('[name="frame.reach_mm"]');
+    box.value = '483';
+    box.dispatchEvent(new Event('input', { bubbles: true }));
+    document.querySelector('.jump a[href="#results-title"]').click();
+  });
+  await page.waitForTimeout(400);
+  await page.goBack();
+  await page.waitForTimeout(400);
+  assert.equal(await reach(), '483');
+  assert.doesNotMatch(await page.locator('#share-msg').textContent(), /Opened/);
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
 test('a jump link scrolls to its place and leaves the share link and its message alone', T, async () => {
   const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
   await page.fill('input[name="frame.reach_mm"]', '476');

@@ -12,6 +12,22 @@ const byId = (id) => document.getElementById(id);
 /** The pause in typing after which the address follows the page, ms. */
 export const ADDRESS_PAUSE_MS = 300;
 
+/** Session storage: the link the page had still to write when it went away (see pagehide). */
+const RELOAD_KEY = 'framewise-address-to-write';
+
+/** A reload within the pause: the address the page had still to write replaces the one loaded. */
+function keptForReload() {
+  try {
+    const kept = JSON.parse(sessionStorage.getItem(RELOAD_KEY) ?? 'null');
+    sessionStorage.removeItem(RELOAD_KEY);
+    if (kept?.from === location.hash && typeof kept.to === 'string' && kept.to.startsWith('#')) {
+      history.replaceState(history.state, '', kept.to);
+    }
+  } catch {
+    // Unreadable or refused storage: the address as loaded.
+  }
+}
+
 /**
  * Wires the share area. Call once after the wasm module is initialised and before the first
  * evaluation. Options:
@@ -201,8 +217,23 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
   });
 
   url.addEventListener('focus', addressNow);
-  window.addEventListener('pagehide', addressNow);
   document.addEventListener('visibilitychange', () => { if (document.hidden) addressNow(); });
+  // A jump link adds a history entry with the address as it is: the edit goes in first, or Back
+  // would return to the form before it.
+  document.addEventListener('click', (e) => { if (e.target.closest?.('a[href^="#"]')) addressNow(); }, { capture: true });
+  // A reload reloads the address the browser has: one written while the page goes away is not
+  // used. So the page going away keeps the link it still had to write, for this tab's next load
+  // of the same address (keptForReload, below).
+  window.addEventListener('pagehide', () => {
+    const from = location.hash;
+    addressNow();
+    if (location.hash === from) return;
+    try {
+      sessionStorage.setItem(RELOAD_KEY, JSON.stringify({ from, to: location.hash }));
+    } catch {
+      // No session storage (a private mode may refuse it): a reload in the pause loses the edit.
+    }
+  });
 
   // The first edit lets the address follow the page again.
   // A message about the link shown before ("Link copied.", "Opened the shared link.", a bad
@@ -224,6 +255,7 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     opened();
   });
 
+  keptForReload();
   open(location.hash, true);
   url.value = location.href;
   return { fields, view: currentView, update };

@@ -179,9 +179,13 @@ impl Figure {
 /// A reason a posture is out of reach, in words, e.g. "grips 42 mm beyond arm reach".
 pub fn describe(what: &str, r: Reach) -> String {
     match r {
-        Reach::TooFar(mm) => format!("{what} {mm:.0} mm beyond reach"),
+        // Whole millimetres up: a gap under 1 mm is still a gap ("1 mm", never "0 mm").
+        Reach::TooFar(mm) => format!("{what} {:.0} mm beyond reach", mm.ceil()),
         Reach::TooClose(mm) => {
-            format!("{what} {mm:.0} mm too close: the limb would have to fold further than it can")
+            format!(
+                "{what} {:.0} mm too close: the limb would have to fold further than it can",
+                mm.ceil()
+            )
         }
     }
 }
