@@ -42,17 +42,21 @@ const showStrip = createStrip(document.getElementById('strip'), definitions, for
 // posture is shown, not only in the warnings list. A figure drawn with some numbers left out (a
 // pedal out of reach at one crank angle) is said in the warnings list only.
 const postureNote = document.getElementById('posture-note');
+const standingBox = document.getElementById('posture-standing');
 let lastBike = null;
 function showPostureNote(bike = lastBike) {
   lastBike = bike;
-  const posture = getView().posture;
-  const drawn = bike?.handling?.[posture]?.com_x_mm != null;
-  const why = (drawn ? [] : bike?.warnings ?? [])
+  const posture = standingBox.checked ? 'standing' : 'seated';
+  if (bike?.handling?.[posture]?.com_x_mm != null) { // drawn: the usual case, nothing written
+    if (!postureNote.hidden) postureNote.hidden = true;
+    return;
+  }
+  const why = (bike?.warnings ?? [])
     .filter((w) => w.code === 'unreachable' && w.message.startsWith(posture))
     .map((w) => w.message.charAt(0).toUpperCase() + w.message.slice(1))
     .join(' ');
   if (postureNote.textContent !== why) postureNote.textContent = why;
-  postureNote.hidden = !why;
+  if (postureNote.hidden !== !why) postureNote.hidden = !why;
 }
 
 // The form's text: an input event updates its field; code that fills the form resets it.
