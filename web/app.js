@@ -194,8 +194,12 @@ function rehearse(left) {
 
 form.addEventListener('input', update);
 // A view choice evaluates the form again: its link is of the last form the page showed, with the
-// new view (a link made of the form as typed could hold a field in error).
-document.addEventListener('framewise:view', () => update());
+// new view (a link made of the form as typed could hold a field in error). The posture note
+// follows the posture shown even while a field is in error (the last good bike is drawn).
+document.addEventListener('framewise:view', () => {
+  update();
+  showPostureNote();
+});
 update();
 registerOffline();
 document.documentElement.dataset.ready = 'true';

@@ -129,6 +129,13 @@ test('phone 360×740: a posture drawn without its rider says why under the drawi
   assert.equal(await page.locator('#drawing svg .posture.standing .rider').count(), 0, 'no standing rider');
   assert.match(await note.textContent(), /^Standing, the grips are \d+ mm beyond reach; the standing figure is left out\.$/);
   await shot(page, `${SHOTS}/page-phone-posture-note.png`, { clip: { x: 0, y: 0, width: 360, height: 740 } });
+  // With a field in error the last good bike stays drawn, and the note follows the posture shown.
+  await page.fill('input[name="frame.reach_mm"]', 'abc');
+  await view(page, { posture: 'seated', dims: false });
+  assert.equal(await note.isHidden(), true, 'seated: its rider is drawn');
+  await view(page, { posture: 'standing', dims: false });
+  assert.match(await note.textContent(), /^Standing, the grips are/);
+  await page.fill('input[name="frame.reach_mm"]', '380');
   // An edit that brings the grips within reach (a much shorter stem and reach) takes it away.
   await page.fill('input[name="setup.stem_mm"]', '40');
   await page.fill('input[name="frame.reach_mm"]', '300');
