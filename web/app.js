@@ -2,7 +2,7 @@
 // Every number and every word about a number comes from Rust; this file only wires the DOM.
 import * as wasm from './pkg/framewise.js';
 import { buildForm, readForm, clearMessages, showErrors, showNotes, setField, showFilled } from './ui/form.js';
-import { renderResults, wireDefinitions } from './ui/results.js';
+import { renderResults, wireDefinitions, sentence } from './ui/results.js';
 import { attachZoom } from './ui/zoom.js';
 import { attachView, getView, applyView } from './ui/view.js';
 import { attachChart } from './ui/chart.js'; // its wasm module loads on the first paste
@@ -53,7 +53,7 @@ function showPostureNote(bike = lastBike) {
   }
   const why = (bike?.warnings ?? [])
     .filter((w) => w.code === 'unreachable' && w.message.startsWith(posture))
-    .map((w) => w.message.charAt(0).toUpperCase() + w.message.slice(1))
+    .map((w) => sentence(w.message))
     .join(' ');
   if (postureNote.textContent !== why) postureNote.textContent = why;
   if (postureNote.hidden !== !why) postureNote.hidden = !why;

@@ -56,6 +56,11 @@ function overlaps(shown) {
   return out;
 }
 
+/** Labels whose boxes reach outside the drawing's box. */
+function outside(shown, drawing) {
+  return shown.filter(({ box: b }) => b[0] < drawing[0] || b[2] > drawing[2] || b[1] < drawing[1] || b[3] > drawing[3]);
+}
+
 const VIEWS = [
   { posture: 'seated', dims: true },
   { posture: 'standing', dims: true },
@@ -73,7 +78,7 @@ test('phone 360×740: labels at least 11 px, inside the drawing, none on another
     const small = shown.filter((l) => l.px < 11).map((l) => `${l.key} ${round(l.px)} px`);
     assert.deepEqual(small, [], `${name}: type under 11 px`);
     assert.deepEqual(overlaps(shown), [], `${name}: labels overlap`);
-    const out = shown.filter(({ box: b }) => b[0] < drawing[0] || b[2] > drawing[2] || b[1] < drawing[1] || b[3] > drawing[3]);
+    const out = outside(shown, drawing);
     assert.deepEqual(out.map((l) => `${l.key} [${l.box.map(round)}]`), [], `${name}: outside the drawing [${drawing}]`);
     t.diagnostic(`360 ${name}: type ${round(Math.min(...shown.map((l) => l.px)))} px, box ${round(shown[0].box[3] - shown[0].box[1])} px tall`);
     await shot(page, `${SHOTS}/labels-360-${v.posture}-${v.dims ? 'dims' : 'no-dims'}.png`, {}, page.locator('#drawing'));
@@ -109,7 +114,7 @@ test('phone 360×740: a road bike with its grip far forward keeps every label in
     await view(page, v);
     const { shown, drawing } = await labels(page);
     assert.ok(shown.some((l) => l.key === 'dim-bb_to_grip_mm'), shown.map((l) => l.key).join());
-    const out = shown.filter(({ box: b }) => b[0] < drawing[0] || b[2] > drawing[2] || b[1] < drawing[1] || b[3] > drawing[3]);
+    const out = outside(shown, drawing);
     assert.deepEqual(out.map((l) => `${l.key} [${l.box.map(round)}]`), [], `${v.posture}: outside the drawing [${drawing}]`);
     assert.deepEqual(overlaps(shown), [], `${v.posture}: labels overlap`);
     await shot(page, `${SHOTS}/labels-360-road-${v.posture}.png`, {}, page.locator('#drawing'));

@@ -4,6 +4,7 @@
 // The importer lives in the on-demand module (ui/extras.js), loaded on the first paste or
 // "Read the chart".
 import { loadExtras } from './extras.js';
+import { sentence } from './results.js';
 
 function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);
@@ -16,8 +17,6 @@ function el(tag, props = {}, ...children) {
   return node;
 }
 
-/** A message as a sentence: its first letter in capitals. */
-const sentence = (t) => (t ? t.charAt(0).toUpperCase() + t.slice(1) : t);
 
 function list(title, items, cls) {
   if (!items?.length) return null;

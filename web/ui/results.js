@@ -16,8 +16,8 @@ export function format(key, v) {
   return v.toFixed(unitOf(key)[2]).replace('-', '−');
 }
 
-/** A message as a sentence: its first letter in capitals. */
-const sentence = (t) => (t ? t.charAt(0).toUpperCase() + t.slice(1) : t);
+/** A message as a sentence: its first letter in capitals (also ui/chart.js, app.js). */
+export const sentence = (t) => (t ? t.charAt(0).toUpperCase() + t.slice(1) : t);
 
 function el(tag, props = {}, ...children) {
   const node = document.createElement(tag);
@@ -87,9 +87,8 @@ function postureBlock(caption, block) {
   const cols = Object.keys(block ?? {}).filter((c) => block[c] && typeof block[c] === 'object');
   const keys = [...new Set(cols.flatMap((c) => numberKeys(block[c])))];
   if (!keys.length) return null;
-  const title = (c) => c.charAt(0).toUpperCase() + c.slice(1);
   return {
-    type: 'table', caption, cols: ['Measure', ...cols.map(title)],
+    type: 'table', caption, cols: ['Measure', ...cols.map(sentence)],
     rows: keys.map((key) => ({ key, cls: '', get cells() { return cols.map((c) => [c, format(key, block[c][key])]); } })),
   };
 }

@@ -439,8 +439,8 @@ pub mod framewise_web_core {
     /// The share link fragment of the last good form: that of the last [`evaluate_form_page_json`]
     /// or [`crate::edit::evaluate_field_page_json`] call whose fields and view all read and whose
     /// bike the kernel drew (any other call leaves it), or empty text before any or when the link
-    /// cannot hold a value. So the page may make the link any time after an edit (it waits for a pause in
-    /// typing): a later edit that does not read cannot take the last good link away.
+    /// cannot hold a value. So the page may make the link any time after an edit (it waits for a
+    /// pause in typing): a later edit that does not read cannot take the last good link away.
     pub fn last_link() -> String {
         LINKABLE.with(|l| l.borrow().as_ref().and_then(link_of).unwrap_or_default())
     }
