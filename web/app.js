@@ -34,7 +34,7 @@ attachView(drawing);
 const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
-const showStrip = createStrip(document.getElementById('strip'), definitions, form); // key numbers on a phone
+const showStrip = createStrip(document.getElementById('strip'), definitions, new Map(words.short_labels), form); // key numbers on a phone
 
 // A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider
 // (and without its centre of mass, so its handling numbers have none): its reasons (the kernel's

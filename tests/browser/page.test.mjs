@@ -173,6 +173,9 @@ for (const [name, width, height] of SIZES) {
       assert.ok(box.height <= 96, `a short strip: ${box.height} px`);
       // The same numbers as the tables, whole mm.
       assert.equal(await strip.locator('div[title="Reach"] dd').textContent(), '490 mm');
+      // Narrow cells take the glossary's short names (Rust); the full name is the title.
+      assert.equal(await strip.locator('div[title="BB-to-grip distance"] dt').textContent(), 'BB to grip');
+      assert.equal(await strip.locator('div[title="Head tube angle"] dt').textContent(), 'Head angle');
       const wheelbase = Math.round(await cell(page, 'wheelbase_mm'));
       assert.equal(await strip.locator('div[title="Wheelbase"] dd').textContent(), `${wheelbase} mm`);
       // A longer stem moves the grip away from the BB.

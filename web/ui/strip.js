@@ -1,23 +1,21 @@
 // The strip of key numbers on a phone: while a person types in the form, the drawing and the
 // tables are far above, so a bar at the top of the screen shows the ridden bike's key numbers and
 // the count of cautions, written by every edit (style.css shows it only on a narrow screen with
-// the focus in the form: <html class="form-focus">). Labels come from the catalogue and glossary
-// (Rust).
+// the focus in the form: <html class="form-focus">). Names come from the glossary's short names,
+// the catalogue and the glossary (Rust).
 
 /** The ridden numbers shown, in order. */
 const KEYS = ['reach_mm', 'stack_mm', 'head_angle_deg', 'trail_mm', 'wheelbase_mm', 'bb_to_grip_mm'];
-
-/** Short names for the strip's narrow cells; the full name is the cell's title. */
-const SHORT = { head_angle_deg: 'Head angle', bb_to_grip_mm: 'BB to grip' };
 
 /** Whole millimetres and tenths of a degree: the strip is narrow (the tables show more). */
 const text = (key, v) => (key.endsWith('_deg') ? `${v.toFixed(1)}°` : `${Math.round(v)} mm`);
 
 /**
- * strip: the strip's element; words: key → catalogue entry; form: the inputs. Returns
- * show(bike): writes the numbers of one evaluated bike.
+ * strip: the strip's element; words: key → catalogue entry or term; short: key → a shorter name
+ * for the narrow cells (the full name is the cell's title); form: the inputs. Returns show(bike):
+ * writes the numbers of one evaluated bike.
  */
-export function createStrip(strip, words, form) {
+export function createStrip(strip, words, short, form) {
   // Whether the form has the focus, as a class on <html> (style.css shows the strip with it).
   const root = document.documentElement;
   form.addEventListener('focusin', () => root.classList.add('form-focus'));
@@ -31,7 +29,7 @@ export function createStrip(strip, words, form) {
     const item = document.createElement('div');
     const name = document.createElement('dt');
     const value = document.createElement('dd');
-    name.textContent = SHORT[key] ?? words.get(key)?.label ?? key;
+    name.textContent = short.get(key) ?? words.get(key)?.label ?? key;
     item.title = words.get(key)?.label ?? key;
     value.textContent = '–';
     item.append(name, value);

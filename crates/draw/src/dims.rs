@@ -4,7 +4,7 @@
 
 use crate::model::Node;
 use crate::shapes::{join, num, text, PathData};
-use framewise_kernel::glossary::label;
+use framewise_kernel::glossary::short_label;
 use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::Outline;
 
@@ -124,14 +124,11 @@ const LABEL_MID: f64 = 22.0;
 /// The words of a dimension label: its name and number, a length without its unit (millimetres,
 /// as in a dimensioned drawing; the tables say the unit), so that the labels fit in the phone's
 /// larger type ([`crate::LABEL_EM_MAX_MM`]: "BB height 337 mm" was wider than the room between
-/// the tyres). BB-to-grip uses a shorter name than the glossary's ("BB to grip") so that the
-/// label fits beside the front wheel.
+/// the tyres). Names are the glossary's short ones ("BB to grip",
+/// [`framewise_kernel::glossary::SHORT_LABELS`]) so that the label fits beside the front wheel.
 fn words_of(key: &str, v: f64) -> String {
     let unit = if key.ends_with("_deg") { "°" } else { "" };
-    let name = match key {
-        "bb_to_grip_mm" => "BB to grip",
-        _ => label(key).unwrap_or(key),
-    };
+    let name = short_label(key).unwrap_or(key);
     format!("{name} {}{unit}", num(v, 0))
 }
 

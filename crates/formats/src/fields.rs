@@ -261,6 +261,9 @@ pub struct PageWords {
     pub fields: Vec<Field>,
     /// Definitions of non-frame report numbers.
     pub terms: &'static [Term],
+    /// Shorter names for narrow places, `[key, name]` pairs
+    /// ([`framewise_kernel::glossary::SHORT_LABELS`]).
+    pub short_labels: &'static [(&'static str, &'static str)],
 }
 
 /// The page's words (see [`PageWords`]).
@@ -269,6 +272,7 @@ pub fn page_words() -> PageWords {
         groups: GROUPS,
         fields: fields(),
         terms: TERMS,
+        short_labels: framewise_kernel::glossary::SHORT_LABELS,
     }
 }
 

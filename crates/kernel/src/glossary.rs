@@ -95,6 +95,23 @@ pub fn label(key: &str) -> Option<&'static str> {
         .or_else(|| term(key).map(|t| t.label))
 }
 
+/// Shorter names for narrow places (the drawing's dimension labels, the phone's strip of key
+/// numbers), where the label would not fit; the label stays the full name (a title or a table).
+#[rustfmt::skip]
+pub static SHORT_LABELS: &[(&str, &str)] = &[
+    ("head_angle_deg", "Head angle"),
+    ("bb_to_grip_mm", "BB to grip"),
+];
+
+/// The name of a report key for a narrow place: its short name, else its label.
+pub fn short_label(key: &str) -> Option<&'static str> {
+    SHORT_LABELS
+        .iter()
+        .find(|(k, _)| *k == key)
+        .map(|(_, short)| *short)
+        .or_else(|| label(key))
+}
+
 /// The term with this key.
 pub fn term(key: &str) -> Option<&'static Term> {
     TERMS.iter().find(|t| t.key == key)
@@ -122,5 +139,17 @@ mod tests {
         assert_eq!(label("reach_mm"), Some("Reach"));
         assert_eq!(label("bb_to_grip_mm"), Some("BB-to-grip distance"));
         assert_eq!(label("nonsense"), None);
+    }
+
+    #[test]
+    fn short_labels_are_shorter_names_of_known_keys() {
+        for (key, short) in SHORT_LABELS {
+            let full = label(key).unwrap_or_default();
+            assert!(!full.is_empty() && short.len() < full.len(), "{key}: {short} / {full}");
+        }
+        assert_eq!(short_label("bb_to_grip_mm"), Some("BB to grip"));
+        assert_eq!(short_label("head_angle_deg"), Some("Head angle"));
+        assert_eq!(short_label("reach_mm"), Some("Reach"));
+        assert_eq!(short_label("nonsense"), None);
     }
 }
