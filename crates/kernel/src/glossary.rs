@@ -145,7 +145,10 @@ mod tests {
     fn short_labels_are_shorter_names_of_known_keys() {
         for (key, short) in SHORT_LABELS {
             let full = label(key).unwrap_or_default();
-            assert!(!full.is_empty() && short.len() < full.len(), "{key}: {short} / {full}");
+            assert!(
+                !full.is_empty() && short.len() < full.len(),
+                "{key}: {short} / {full}"
+            );
         }
         assert_eq!(short_label("bb_to_grip_mm"), Some("BB to grip"));
         assert_eq!(short_label("head_angle_deg"), Some("Head angle"));
