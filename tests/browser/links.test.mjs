@@ -5,7 +5,7 @@ import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
 import { startAll, openPage, settled, linkOf, ROOT, SHOTS } from './harness.mjs';
-import { showEveryLayer } from './page-helpers.mjs';
+import { showEveryLayer, cell } from './page-helpers.mjs';
 
 let env;
 before(async () => { env = await startAll(); });
@@ -95,6 +95,29 @@ test('a link pasted into the address of an edited page shows its numbers at once
   await page.fill('input[name="setup.stem_mm"]', '42');
   await settled(page);
   assert.equal(Number(await given('stack_mm')), link.stack_mm);
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('the link the address still shows, pasted into it within the pause after an edit, is opened', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 360, height: 740 });
+  await settled(page);
+  const before = await page.evaluate(() => location.href);
+  const reach = () => page.locator('[name="frame.reach_mm"]').inputValue();
+  const shown = await reach();
+  // An edit, then at once the address as shown (the link from before the edit) is entered again:
+  // a navigation to the same address (as from the address bar), which fires no hashchange.
+  await page.evaluate(() => {
+    const box = document.querySelector('[name="frame.reach_mm"]');
+    box.value = '491';
+    box.dispatchEvent(new Event('input', { bubbles: true }));
+  });
+  await page.goto(before);
+  await page.waitForFunction(() => /Opened the shared link/.test(document.getElementById('share-msg').textContent), null, { timeout: 5000 });
+  await page.waitForTimeout(600); // past the pause: nothing is left to write over the link
+  assert.equal(await reach(), shown);
+  assert.equal(await page.evaluate(() => location.href), before);
+  assert.equal(Number(await cell(page, 'reach_mm')), Number(shown));
   assert.deepEqual(problems, []);
   await context.close();
 });

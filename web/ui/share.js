@@ -254,6 +254,21 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     open(location.hash, false);
     opened();
   });
+  // The same link pasted into the address as the address still shows, within the pause after an
+  // edit (the link from before the edit): no hashchange, since the address does not change, so
+  // the edit waiting to be written would replace the pasted link. The Navigation API's event
+  // (Chromium; where there is none, the edit wins) says a person asked for it: the link is opened
+  // and the waiting edit dropped. The page's own writes are not asked by a person.
+  globalThis.navigation?.addEventListener('navigate', (e) => {
+    if (!timer || !e.userInitiated || !['push', 'replace'].includes(e.navigationType)) return;
+    const to = new URL(e.destination.url);
+    if (to.href !== location.href || isPlace(to.hash)) return;
+    clearTimeout(timer);
+    timer = 0;
+    pending = null;
+    open(to.hash, false);
+    opened();
+  });
 
   keptForReload();
   open(location.hash, true);
