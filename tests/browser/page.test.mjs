@@ -23,6 +23,13 @@ for (const [name, width, height] of SIZES) {
     assert.equal(await page.locator('#drawing svg .ridden .fork-leg').count(), 1);
     assert.equal(await page.locator('#drawing svg .ghost .tyre').count(), 2);
     assert.ok(await page.locator('#results tr[data-key]').count() >= 20);
+    // The handling table has a column per case with numbers: seated and standing (no point load
+    // was given, so no column of dashes for one).
+    const handlingCols = await page.$$eval('#results table', (tables) => {
+      const t = tables.find((x) => x.caption?.textContent.trim() === 'Handling');
+      return t ? [...t.querySelectorAll('thead th')].map((th) => th.textContent.trim()) : null;
+    });
+    assert.deepEqual(handlingCols, ['Measure', 'Seated', 'Standing']);
     // Every input is labelled and shows its unit.
     const unlabelled = await page.$$eval('#bike-form input, #bike-form select',
       (els) => els.filter((e) => !e.labels?.length).map((e) => e.name));

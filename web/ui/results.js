@@ -84,7 +84,9 @@ function simpleBlock(caption, obj) {
 }
 
 function postureBlock(caption, block) {
-  const cols = Object.keys(block ?? {}).filter((c) => block[c] && typeof block[c] === 'object');
+  // A column only for a case with numbers: the report's point-load case is empty unless a load
+  // was given (the page has no input for one).
+  const cols = Object.keys(block ?? {}).filter((c) => block[c] && typeof block[c] === 'object' && numberKeys(block[c]).length);
   const keys = [...new Set(cols.flatMap((c) => numberKeys(block[c])))];
   if (!keys.length) return null;
   return {
