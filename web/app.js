@@ -104,6 +104,17 @@ form.addEventListener('focusout', () => {
   sayProblems?.();
 });
 
+// A problem in a sentence that names its field (its label, unless the message has it).
+const labels = new Map(words.fields.map((f) => [f.name, f.label]));
+function named(problem) {
+  if (!problem) return '';
+  const label = labels.get(problem.field);
+  const text = sentence(problem.message);
+  return label && !text.toLowerCase().includes(label.toLowerCase()) ? `${label}: ${text}` : text;
+}
+
+// Returns what the page now shows: { shown: true } when the edit was drawn, else
+// { shown: false, problem } with the first problem in a sentence (the chart box says it).
 function update(event) {
   const typedIn = event?.target;
   const oneField = typed && typedIn?.name && typedIn.form === form;
@@ -139,7 +150,7 @@ function update(event) {
       sayProblems = show;
       problemsLater = setTimeout(show, TYPING_PAUSE_MS);
     } else show();
-    return;
+    return { shown: false, problem: named((errors.length ? errors : result.report.errors ?? [])[0]) };
   }
   if (status.textContent) status.textContent = '';
   // The tables, then the drawing (made when written); neither reads a place from the page.
@@ -148,6 +159,7 @@ function update(event) {
   showPostureNote(result.report.bikes[0]);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page once typing pauses
+  return { shown: true };
 }
 
 function applySize(size) {
@@ -163,7 +175,8 @@ function applySize(size) {
   }
   if (size.label) setField(form, 'label', `Chart size ${size.label}`);
   showFilled(form);
-  update();
+  const field = (name) => form.elements.namedItem(name)?.value ?? '';
+  return { ...update(), wheels: [field('wheels.front'), field('wheels.rear')] };
 }
 
 attachChart(document.getElementById('chart'), applySize);

@@ -36,6 +36,9 @@ for (const [name, width, height] of SIZES) {
     assert.equal(await page.inputValue('[name="frame.wheelbase_mm"]'), '1232');
     assert.equal(await page.inputValue('[name="frame.head_tube_mm"]'), '');
     assert.equal(await page.inputValue('[name="label"]'), 'Chart size L');
+    // The box says what the pick did.
+    assert.equal(await page.locator('#chart-out .chart-picked').textContent(),
+      'Size L: 8 frame numbers filled in. The drawing and the numbers show it.');
     // The table shows them as published (values from the chart text above).
     await waitCell(page, 'reach_mm', 475, 0.05, 'given');
     await waitCell(page, 'stack_mm', 628, 0.05, 'given');
@@ -51,6 +54,27 @@ for (const [name, width, height] of SIZES) {
     assert.match(await page.locator('#results .missing').textContent(), /Fork axle-to-crown/);
     await page.locator('#chart').scrollIntoViewIfNeeded();
     await shot(page, `${SHOTS}/page-${name}-chart.png`);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
+  test(`${name}: a size that cannot be drawn says so beside the sizes, and one that can says it is shown`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    // Size M's reach is mistyped in the chart (4750): refused by the form's range.
+    // The chart has no wheel row.
+    await page.fill('#chart-text', 'Size\tS\tM\nReach (mm)\t450\t4750\nStack (mm)\t620\t630\nHead tube angle (°)\t65\t65\n');
+    await page.click('#chart-read');
+    await firstRead(page);
+    await page.click('#chart-out button.size[data-size="M"]');
+    const said = page.locator('#chart-out .chart-picked');
+    // (The reader leaves out a reach of 4750 mm, so the form's reach is blank.)
+    assert.match(await said.textContent(), /^Size M: 2 frame numbers filled in\. It could not be drawn: Reach: .+\. The marked field in the form says what to check\.$/);
+    assert.equal(await said.evaluate((p) => p.classList.contains('chart-error')), true);
+    await page.click('#chart-out button.size[data-size="S"]');
+    // No wheel row: the form's wheels are kept, and said.
+    const wheels = await page.inputValue('[name="wheels.front"]');
+    assert.equal(await said.textContent(), `Size S: 3 frame numbers filled in. The chart gives no wheel size, so the wheels in the form (${wheels}) are kept; change them under Wheels and fork if this bike has others.`);
+    await waitCell(page, 'reach_mm', 450, 0.05, 'given');
     assert.deepEqual(problems, []);
     await context.close();
   });

@@ -37,8 +37,27 @@ function questionList(questions, answers, reread) {
 }
 
 /**
- * Wires the paste box. `apply(size)` fills the form from `{label, frame, wheels}` and
- * recomputes. The importer (`import_chart_with_answers(text, answersJson) → JSON text`) is
+ * What picking a size did, in a sentence: `outcome` is apply()'s answer ({ shown, problem,
+ * wheels: [front, rear] as now in the form }). A chart without wheel sizes keeps the form's.
+ */
+function pickedText(size, name, outcome) {
+  const count = Object.keys(size.frame ?? {}).length;
+  const filled = `Size ${name}: ${count} frame number${count === 1 ? '' : 's'} filled in.`;
+  if (!outcome?.shown) {
+    const problem = (outcome?.problem || 'a value is refused').trim().replace(/(?<![.!?])$/, '.');
+    return `${filled} It could not be drawn: ${problem} The marked field in the form says what to check.`;
+  }
+  const [front, rear] = outcome.wheels ?? [];
+  const given = typeof size.wheels?.front === 'string' || typeof size.wheels?.rear === 'string';
+  const kept = front === rear ? front : `${front} front, ${rear} rear`;
+  return given || !front
+    ? `${filled} The drawing and the numbers show it.`
+    : `${filled} The chart gives no wheel size, so the wheels in the form (${kept}) are kept; change them under Wheels and fork if this bike has others.`;
+}
+
+/**
+ * Wires the paste box. `apply(size)` fills the form from `{label, frame, wheels}`,
+ * recomputes and says what the page shows (see pickedText). The importer (`import_chart_with_answers(text, answersJson) → JSON text`) is
  * loaded on the first paste or press of "Read the chart".
  */
 export function attachChart(section, apply) {
@@ -71,18 +90,24 @@ export function attachChart(section, apply) {
     if (run.error) parts.push(el('p', { class: 'chart-error', role: 'alert' }, run.error.message));
     if (sizes.length) {
       const group = el('div', { class: 'sizes', role: 'group', 'aria-label': 'Sizes in the chart' });
+      const said = el('p', { class: 'chart-picked', role: 'status' });
+      const pick = (s, i) => {
+        const outcome = apply(s);
+        said.textContent = pickedText(s, s.label || String(i + 1), outcome);
+        said.classList.toggle('chart-error', !outcome?.shown);
+      };
       sizes.forEach((s, i) => {
         const b = el('button', { type: 'button', class: 'size', 'aria-pressed': String(s.label === picked), 'data-size': s.label }, s.label || `Size ${i + 1}`);
         b.addEventListener('click', () => {
           picked = s.label;
           for (const o of group.children) o.setAttribute('aria-pressed', String(o === b));
-          apply(s);
+          pick(s, i);
         });
         group.append(b);
       });
-      parts.push(el('p', { class: 'chart-count' }, `${sizes.length} size${sizes.length > 1 ? 's' : ''} read; pick one to fill in the frame numbers.`), group);
-      const again = sizes.find((s) => s.label === picked);
-      if (again) apply(again);
+      parts.push(el('p', { class: 'chart-count' }, `${sizes.length} size${sizes.length > 1 ? 's' : ''} read; pick one to fill in the frame numbers.`), group, said);
+      const again = sizes.findIndex((s) => s.label === picked);
+      if (again >= 0) pick(sizes[again], again);
     } else if (!run.error) {
       parts.push(el('p', { class: 'chart-none' }, 'No sizes could be read from this text.'));
     }
