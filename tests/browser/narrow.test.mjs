@@ -32,3 +32,29 @@ for (const width of [320, 345, 360]) {
     assert.deepEqual(problems, []);
   });
 }
+
+// A phone held sideways: the whole drawing is in sight on first view, below a one-row masthead
+// and the toolbar, and the targets stay ≥ 44 px.
+for (const [width, height] of [[640, 360], [740, 360], [915, 412]]) {
+  test(`${width}×${height} (a phone held sideways): the drawing fits the screen on first view`, { timeout: 60000 }, async () => {
+    const { page, problems } = await openPage(env, { width, height });
+    const m = await page.evaluate(() => {
+      const r = (sel) => document.querySelector(sel).getBoundingClientRect();
+      const sizes = [...document.querySelectorAll('.toolbar label, .toolbar .toggle, #fit-view, .jump a')]
+        .map((e) => { const b = e.getBoundingClientRect(); return Math.min(b.width, b.height); });
+      return {
+        box: r('#drawing').toJSON(), bike: r('#drawing svg .ridden').toJSON(),
+        masthead: [...document.querySelectorAll('.masthead h1, .jump a')].map((e) => { const b = e.getBoundingClientRect(); return (b.top + b.bottom) / 2; }),
+        sideways: document.documentElement.scrollWidth - window.innerWidth, smallest: Math.min(...sizes),
+      };
+    });
+    assert.ok(m.box.top >= 0 && m.box.bottom <= height, `drawing box ${JSON.stringify(m.box)} within ${height} px`);
+    assert.ok(m.bike.top >= m.box.top && m.bike.bottom <= m.box.bottom, `bike ${JSON.stringify(m.bike)} inside its box`);
+    assert.ok(m.box.height >= 0.6 * height, `the drawing takes most of the height: ${m.box.height}`);
+    assert.ok(Math.max(...m.masthead) - Math.min(...m.masthead) < 12, `masthead on one row: middles ${m.masthead}`);
+    assert.equal(m.sideways, 0, 'nothing scrolls sideways');
+    assert.ok(m.smallest >= 44, `touch targets at least 44 px, smallest ${m.smallest}`);
+    await page.screenshot({ path: `${SHOTS}/landscape-${width}x${height}.png` });
+    assert.deepEqual(problems, []);
+  });
+}
