@@ -11,6 +11,7 @@ import { registerOffline } from './ui/offline.js'; // offline use (issue 6)
 import { createPainter } from './ui/onscreen.js';
 import { createDrawingWriter } from './ui/drawing.js';
 import { createStrip } from './ui/strip.js';
+import { explainLabels } from './ui/labels.js';
 
 // The module's path from this file: the built site bundles this file with the glue (scripts/site.mjs).
 await wasm.default({ module_or_path: new URL('./pkg/framewise_bg.wasm', import.meta.url) });
@@ -34,6 +35,7 @@ attachView(drawing);
 const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
+explainLabels(drawing, document.getElementById('drawing-def'), definitions); // the drawing's numbers
 const showStrip = createStrip(document.getElementById('strip'), definitions, new Map(words.short_labels), form); // key numbers on a phone
 
 // A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider

@@ -183,6 +183,11 @@ for (const [name, width, height] of SIZES) {
       // Narrow cells take the glossary's short names (Rust); the full name is the title.
       assert.equal(await strip.locator('div[title="BB-to-grip distance"] dt').textContent(), 'BB to grip');
       assert.equal(await strip.locator('div[title="Head tube angle"] dt').textContent(), 'Head angle');
+      // A tap on a number says what it is (the catalogue's words), and the focus stays in the form.
+      await strip.locator('div[title="Head tube angle"]').click();
+      assert.match(await strip.locator('.strip-def').textContent(), /^Head tube angle \S.+\.$/);
+      assert.equal(await page.evaluate(() => document.activeElement.name), 'frame.reach_mm');
+      assert.ok(await strip.isVisible(), 'the strip stays');
       const wheelbase = Math.round(await cell(page, 'wheelbase_mm'));
       assert.equal(await strip.locator('div[title="Wheelbase"] dd').textContent(), `${wheelbase} mm`);
       // A longer stem moves the grip away from the BB.

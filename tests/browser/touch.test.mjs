@@ -87,3 +87,50 @@ test('desk: a plain wheel over the drawing scrolls, Ctrl and wheel zooms', T, as
   assert.deepEqual(problems, []);
   await context.close();
 });
+
+test('phone: a tap on a number in the drawing says what it is under the drawing; a drag does not', T, async () => {
+  const context = await env.browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
+  const page = await context.newPage();
+  const problems = [];
+  page.on('pageerror', (e) => problems.push(e.message));
+  await page.goto(env.base);
+  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  await page.locator('label.toggle:has(#show-dims)').tap();
+  const def = page.locator('#drawing-def');
+  const centre = async (k) => {
+    const b = await page.locator(`#drawing svg text[data-k="${k}"]`).boundingBox();
+    return [b.x + b.width / 2, b.y + b.height / 2];
+  };
+  assert.equal(await def.isVisible(), false);
+  // The catalogue's words for reach (crates/kernel catalogue.rs), as the tables say them.
+  await page.touchscreen.tap(...(await centre('dim-reach_mm')));
+  await page.waitForFunction(() => !document.getElementById('drawing-def').hidden, null, { timeout: 3000 });
+  assert.equal(await def.textContent(), 'Reach Horizontal distance from the bottom bracket centre to the centre of the top of the head tube.');
+  assert.equal(await def.locator('strong').textContent(), 'Reach');
+  // A limit on the centre-of-mass lines names its posture (the glossary's braking limit).
+  await page.touchscreen.tap(...(await centre('seated-braking')));
+  await page.waitForFunction(() => /^Braking limit, seated Braking on level ground/.test(document.getElementById('drawing-def').textContent), null, { timeout: 3000 });
+  // The same label again takes it away.
+  await page.touchscreen.tap(...(await centre('seated-braking')));
+  await page.waitForFunction(() => document.getElementById('drawing-def').hidden, null, { timeout: 3000 });
+  // A drag that starts on a label is not a tap (the one finger scrolls the page).
+  const cdp = await context.newCDPSession(page);
+  const [x, y] = await centre('dim-stack_mm');
+  await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [{ x, y, id: 0 }] });
+  for (let i = 1; i <= 5; i += 1) {
+    await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: [{ x, y: y - 12 * i, id: 0 }] });
+  }
+  await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
+  await page.waitForTimeout(300);
+  assert.equal(await def.isVisible(), false);
+  assert.deepEqual(problems, []);
+  await context.close();
+});
+
+test('desk: hovering a number in the drawing says what it is', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
+  await page.locator('#drawing svg text[data-k="seated-climb"]').hover();
+  await page.waitForFunction(() => /^Steepest static climb, seated Steepest uphill slope/.test(document.getElementById('drawing-def').textContent), null, { timeout: 3000 });
+  assert.deepEqual(problems, []);
+  await context.close();
+});

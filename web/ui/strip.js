@@ -31,6 +31,7 @@ export function createStrip(strip, words, short, form) {
     const value = document.createElement('dd');
     name.textContent = short.get(key) ?? words.get(key)?.label ?? key;
     item.title = words.get(key)?.label ?? key;
+    item.dataset.key = key;
     value.textContent = '–';
     item.append(name, value);
     list.append(item);
@@ -39,7 +40,29 @@ export function createStrip(strip, words, short, form) {
   const cautions = document.createElement('a');
   cautions.href = '#results-title';
   cautions.className = 'strip-cautions';
-  strip.append(list, cautions);
+  // A tap on a number says what it is, in the strip. The press keeps the focus in the form (the
+  // strip shows only while the form has it, and a phone's keyboard would close).
+  const def = document.createElement('p');
+  def.className = 'strip-def';
+  def.setAttribute('role', 'status');
+  def.hidden = true;
+  for (const type of ['pointerdown', 'mousedown']) list.addEventListener(type, (e) => e.preventDefault());
+  list.addEventListener('click', (e) => {
+    const key = e.target.closest('[data-key]')?.dataset.key;
+    const t = key && words.get(key);
+    if (!t || (!def.hidden && def.dataset.key === key)) {
+      def.hidden = true;
+      return;
+    }
+    const name = document.createElement('strong');
+    name.textContent = t.label;
+    def.replaceChildren(name, ` ${t.definition}`);
+    def.dataset.key = key;
+    def.hidden = false;
+  });
+  // Typing goes on: the sentence goes (the strip is short again, clear of the field).
+  form.addEventListener('input', () => { if (!def.hidden) def.hidden = true; });
+  strip.append(list, cautions, def);
 
   return function show(bike) {
     for (const [key, cell] of cells) {
