@@ -248,7 +248,7 @@ fn bike_com(s: &SetupValues, g: &Geometry, r: &mut BikeReport) -> (f64, Point2<f
     if s.bike_mass.is_none() || s.bike_com_x.is_none() || s.bike_com_y.is_none() {
         warn(r, "assumed", format!(
             "bike mass and centre of mass partly not given: used {} kg at {} mm ahead of and {} mm above the BB (stated defaults: 14 kg, midway between the axles, 150 mm above the BB).",
-            fmt_num(mass), fmt_num(x), fmt_num(y)));
+            fmt_num(mass), fmt_num(x.round()), fmt_num(y.round())));
     }
     (mass, Point2::new(x, y))
 }
@@ -295,7 +295,7 @@ fn rider_on_bike(
     if toe < 0.0 {
         warn(r, "caution_toe_overlap", format!(
             "The shoe overlaps the front tyre by {} mm in side view: the toe can touch the tyre when turning at low speed. Take care, or ask a qualified fitter about shorter cranks or a different shoe position.",
-            fmt_num(-toe)));
+            fmt_num((-toe).ceil())));
     }
     let block = |p: &Posture| {
         let com = combine(&[(body.mass, p.com?), (bike_mass, bike_point)])?;

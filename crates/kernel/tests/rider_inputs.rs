@@ -263,3 +263,45 @@ fn a_saddle_setback_not_given_is_an_assumption_said() {
     let r = run(json!({ "version": 1, "bikes": [bike(setup())] }));
     assert_eq!(r.bikes[0].ridden["saddle_setback_mm"], 0.0);
 }
+
+/// The number in a message, after `before` (e.g. "by ").
+fn number_after(message: &str, before: &str) -> f64 {
+    let at = message.find(before).unwrap() + before.len();
+    let digits: String = message[at..]
+        .chars()
+        .take_while(|c| c.is_ascii_digit() || *c == '.')
+        .collect();
+    digits.parse().unwrap()
+}
+
+#[test]
+fn toe_overlap_and_the_assumed_bike_centre_are_said_in_whole_mm() {
+    // A short frame with a steep head angle and long cranks: the shoe reaches the front tyre.
+    let mut b = bike(json!({ "stem_mm": 45, "crank_mm": 175, "saddle_height_mm": 735 }));
+    b["frame"]["reach_mm"] = json!(360);
+    b["frame"]["head_angle_deg"] = json!(73.0);
+    b["frame"]["fork_a2c_mm"] = json!(400);
+    let r = run(json!({ "rider": { "height_mm": 1900 }, "bikes": [b] }));
+    let bike = &r.bikes[0];
+    let overlap = bike.ridden["toe_overlap_mm"];
+    assert!(overlap > 0.0, "the example overlaps: {overlap}");
+    let toe = bike
+        .warnings
+        .iter()
+        .find(|w| w.code == "caution_toe_overlap")
+        .unwrap();
+    // Whole mm, rounded up: an overlap is never said smaller than it is.
+    assert_eq!(
+        number_after(&toe.message, "by "),
+        overlap.ceil(),
+        "{}",
+        toe.message
+    );
+    let assumed = bike
+        .warnings
+        .iter()
+        .find(|w| w.message.contains("bike mass and centre of mass"))
+        .unwrap();
+    let ahead = number_after(&assumed.message, "kg at ");
+    assert_eq!(ahead, ahead.round(), "{}", assumed.message);
+}
