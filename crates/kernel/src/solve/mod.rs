@@ -17,14 +17,15 @@
 //! direction the published numbers cannot see, so it does not move the determined ones.
 //! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`.
 
+mod blame;
 mod diagnose;
 mod fit;
 mod model;
 mod plan;
 mod unknowns;
 
-use crate::catalogue::lookup;
-use crate::error::{fmt_measure, fmt_num, in_sentence, FieldError, Warning};
+use crate::catalogue::{lookup, Unit};
+use crate::error::{fmt_measure, in_sentence, FieldError, Warning};
 use crate::geometry::{measured_index, FrameParams, Radii, MEASURED_KEYS};
 use fit::{fit, Fitted};
 use model::{Model, Row};
@@ -121,7 +122,7 @@ pub fn solve(
     let best =
         best_fit(&model, &rows, &plan.free, &x0, &typical).ok_or_else(|| no_solution(prefix))?;
     let params = to_params(&best.x, input.radii);
-    postcheck(given, &best.x, &params, prefix)?;
+    postcheck(given, (&model, &best.x, &rows, &plan.free), &params, prefix)?;
     let predicted = model.predict(&best.x).ok_or_else(|| no_solution(prefix))?;
     let mut warnings = assumption_warnings(&plan, &x0, front);
     let mut residuals = BTreeMap::new();
@@ -250,7 +251,7 @@ fn no_solution(prefix: &str) -> FieldError {
     FieldError::new(
         "no_solution",
         prefix,
-        "the published numbers could not be fitted to one frame from any start; check them for typing errors",
+        "The published numbers could not be fitted to one frame from any start; check them for typing errors.",
     )
 }
 
@@ -272,9 +273,9 @@ fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldEr
                 "impossible",
                 format!("{prefix}.rear_centre_mm"),
                 format!(
-                    "rear centre {} mm is longer than the chainstay {} mm; the horizontal distance can be at most the straight one",
-                    fmt_num(rc),
-                    fmt_num(cs)
+                    "Rear centre {} is longer than the chainstay {}; the horizontal distance can be at most the straight one.",
+                    fmt_measure(rc, Unit::Mm),
+                    fmt_measure(cs, Unit::Mm)
                 ),
             ));
         }
@@ -287,10 +288,10 @@ fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldEr
                         "impossible",
                         format!("{prefix}.wheelbase_mm"),
                         format!(
-                            "wheelbase {} mm is not longer than the {} of {} mm; it must be longer (wheelbase = front centre + rear centre)",
-                            fmt_num(wb),
-                            lookup(part).map_or(part, |m| m.label).to_ascii_lowercase(),
-                            fmt_num(p)
+                            "Wheelbase {} is not longer than the {} of {}; it must be longer (wheelbase = front centre + rear centre).",
+                            fmt_measure(wb, Unit::Mm),
+                            lookup(part).map_or(part.to_string(), |m| in_sentence(m.label)),
+                            fmt_measure(p, Unit::Mm)
                         ),
                     ));
                 }
@@ -305,18 +306,19 @@ fn short_chainstay(prefix: &str, cs: f64, drop: f64) -> FieldError {
         "impossible",
         format!("{prefix}.chainstay_mm"),
         format!(
-            "chainstay {} mm is not longer than the {} mm between the BB and rear axle heights (BB drop); it must be longer",
-            fmt_num(cs),
-            fmt_num(drop.abs())
+            "Chainstay {} is not longer than the {} between the BB and rear axle heights (BB drop); it must be longer.",
+            fmt_measure(cs, Unit::Mm),
+            fmt_measure(drop.abs(), Unit::Mm)
         ),
     )
 }
 
 /// Impossible frames found after solving: a chainstay no longer than the solved BB drop, and
-/// solved parameters outside the catalogue's hard ranges.
+/// solved parameters outside the catalogue's hard ranges (attached to the published value that
+/// moved them most, [`blame::out_of_range`]).
 fn postcheck(
     given: &BTreeMap<String, Given>,
-    x: &X,
+    fit: (&Model, &X, &[Row], &[usize]),
     params: &FrameParams,
     prefix: &str,
 ) -> Result<(), FieldError> {
@@ -325,28 +327,23 @@ fn postcheck(
             return Err(short_chainstay(prefix, cs, params.bb_drop));
         }
     }
-    let checks = UNKNOWNS
-        .iter()
-        .zip(x.iter())
-        .map(|(u, v)| (u.key, *v))
-        .chain([("bb_drop_mm", params.bb_drop)]);
-    for (key, v) in checks {
-        let Some(m) = lookup(key) else { continue };
-        if !inside_hard(m, v) {
-            return Err(FieldError::new(
-                "impossible",
-                format!("{prefix}.{key}"),
-                format!(
-                    "together the published numbers put the {} at {} {}, which no frame can have (allowed {} to {} {}); check the values",
-                    m.label.to_ascii_lowercase(),
-                    fmt_num(v),
-                    m.unit.symbol(),
-                    fmt_num(m.hard.0),
-                    fmt_num(m.hard.1),
-                    m.unit.symbol()
-                ),
-            ));
+    let (model, x, _, _) = fit;
+    for (k, u) in UNKNOWNS.iter().enumerate() {
+        let v = x.get(k).copied().unwrap_or(f64::NAN);
+        if lookup(u.key).is_some_and(|m| !inside_hard(m, v)) {
+            let q = |x: &X| x.get(k).copied().unwrap_or(f64::NAN);
+            return Err(blame::out_of_range(fit, u.key, v, q, prefix));
         }
+    }
+    let drop = |x: &X| to_params(x, model.radii).bb_drop;
+    if lookup("bb_drop_mm").is_some_and(|m| !inside_hard(m, params.bb_drop)) {
+        return Err(blame::out_of_range(
+            fit,
+            "bb_drop_mm",
+            params.bb_drop,
+            drop,
+            prefix,
+        ));
     }
     Ok(())
 }
