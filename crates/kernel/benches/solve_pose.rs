@@ -49,6 +49,7 @@ fn bench(c: &mut Criterion) {
     };
     let input = SolveInput {
         radii,
+        front_tyre_width_mm: Some(60.96),
         seat_ref: None,
         field_prefix: "bikes[0].frame",
     };

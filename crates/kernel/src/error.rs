@@ -126,6 +126,36 @@ pub fn fmt_disagreement(given: f64, solved: f64, degrees: bool) -> [String; 3] {
     [n(given), n(solved), n((solved - given).abs())]
 }
 
+/// A measured value for a message, as the page writes it: whole millimetres ("183 mm") or
+/// tenths of a degree ("45.0°"); "-0" is written "0".
+pub fn fmt_measure(v: f64, unit: crate::catalogue::Unit) -> String {
+    let s = match unit {
+        crate::catalogue::Unit::Mm => format!("{v:.0} mm"),
+        crate::catalogue::Unit::Deg => format!("{v:.1}°"),
+    };
+    match s.strip_prefix('-') {
+        Some(rest) if rest.bytes().all(|b| !b.is_ascii_digit() || b == b'0') => rest.to_string(),
+        _ => s,
+    }
+}
+
+/// A catalogue label inside a sentence: its first letter in lower case unless the label starts
+/// with an abbreviation ("Head tube angle" → "head tube angle", "BB drop" stays).
+pub fn in_sentence(label: &str) -> String {
+    let mut chars = label.chars();
+    let (Some(first), second) = (chars.next(), chars.next()) else {
+        return label.to_string();
+    };
+    if second.is_some_and(|c| c.is_ascii_uppercase()) {
+        return label.to_string();
+    }
+    format!(
+        "{}{}",
+        first.to_ascii_lowercase(),
+        label.get(first.len_utf8()..).unwrap_or("")
+    )
+}
+
 /// Formats a number for a message: at most two decimals, no trailing zeros.
 pub fn fmt_num(v: f64) -> String {
     if !v.is_finite() {
@@ -183,6 +213,24 @@ mod tests {
             fmt_disagreement(440.0, 439.42, false),
             ["440.0 mm", "439.4 mm", "0.6 mm"]
         );
+    }
+
+    #[test]
+    fn measures_are_whole_mm_or_tenths_of_a_degree() {
+        use crate::catalogue::Unit;
+        assert_eq!(fmt_measure(183.16, Unit::Mm), "183 mm");
+        assert_eq!(fmt_measure(-0.4, Unit::Mm), "0 mm");
+        assert_eq!(fmt_measure(-12.6, Unit::Mm), "-13 mm");
+        assert_eq!(fmt_measure(45.0, Unit::Deg), "45.0°");
+        assert_eq!(fmt_measure(64.96, Unit::Deg), "65.0°");
+    }
+
+    #[test]
+    fn labels_in_a_sentence_keep_their_abbreviations() {
+        assert_eq!(in_sentence("Head tube angle"), "head tube angle");
+        assert_eq!(in_sentence("BB drop"), "BB drop");
+        assert_eq!(in_sentence("Fork axle-to-crown"), "fork axle-to-crown");
+        assert_eq!(in_sentence(""), "");
     }
 
     #[test]

@@ -297,6 +297,8 @@ fn evaluate_bike(
     let frame_field = format!("{prefix}.frame");
     let input = SolveInput {
         radii: stock_radii,
+        // 0 when only the outer diameter was given (`Wheel::width_mm`).
+        front_tyre_width_mm: (sf.width_mm > 0.0).then_some(sf.width_mm),
         seat_ref,
         field_prefix: &frame_field,
     };

@@ -5,7 +5,7 @@
 //! to [`evaluate_with`](crate::evaluate::evaluate_with).
 //!
 //! **Invariant:** a memo changes only the time an evaluation takes, never its report: the solve
-//! is a pure function of the published values, their tolerances, the stock tyre radii, the seat
+//! is a pure function of the published values, their tolerances, the stock tyre radii, the front tyre's width, the seat
 //! angle reference height and the field path, and the key holds all of them compared bit for bit.
 
 use crate::error::FieldError;
@@ -20,6 +20,7 @@ pub const MEMO_SOLVES: usize = 4;
 struct Key {
     given: Vec<(String, u64, u64)>,
     radii: (u64, u64),
+    front_width: Option<u64>,
     seat_ref: Option<u64>,
     prefix: String,
 }
@@ -32,6 +33,7 @@ impl Key {
                 .map(|(k, g)| (k.clone(), g.value.to_bits(), g.tolerance.to_bits()))
                 .collect(),
             radii: (input.radii.front.to_bits(), input.radii.rear.to_bits()),
+            front_width: input.front_tyre_width_mm.map(f64::to_bits),
             seat_ref: input.seat_ref.map(f64::to_bits),
             prefix: input.field_prefix.to_string(),
         }

@@ -121,6 +121,50 @@ fn impossible_combinations() {
 }
 
 #[test]
+fn a_solved_value_no_frame_can_have_is_said_beside_the_published_value_that_moved_it() {
+    // A head angle of 45° (inside its own 45–85° range) with the other numbers puts the BB
+    // drop far below the axles. Equal wheels, so the axles are level (DESIGN.md §8a):
+    // drop = stack − (head_tube + lower_stack + a2c)·sin h + offset·cos h, lower stack 0 (its
+    // stated prior).
+    let r = with("head_angle_deg", 45.0);
+    let (code, field, msg) = only_error(&r);
+    let h = 45f64.to_radians();
+    let drop = 620.0 - (110.0 + 560.0) * h.sin() + 44.0 * h.cos();
+    assert!((170.0..180.0).contains(&drop), "{drop}");
+    // Beside the head angle the person typed, not on the blank BB drop; the values in play,
+    // largest share first (head angle 203 mm, stack 45 mm, head tube 32 mm of the excess over
+    // a typical bike's, see solve/blame.rs), in whole mm and tenths of a degree.
+    assert_eq!(
+        (code, field),
+        ("impossible", "bikes[0].frame.head_angle_deg")
+    );
+    assert_eq!(
+        msg,
+        format!(
+            "The published head tube angle 45.0°, stack 620 mm and head tube length 110 mm \
+             together put the BB drop at {drop:.0} mm, which no frame can have (allowed -150 to \
+             150 mm); check the head tube angle first: of these it moves the BB drop most."
+        )
+    );
+    // A wheelbase far longer than reach and fork allow: the rear centre (a solved unknown,
+    // wheelbase − front centre) goes past 600 mm; only the wheelbase pushes it there.
+    let mut s = base();
+    s.bikes[0].frame.remove("chainstay_mm");
+    s.bikes[0]
+        .frame
+        .insert("wheelbase_mm".into(), Published::Value(1700.0));
+    let r = evaluate(&s);
+    let (code, field, msg) = only_error(&r);
+    assert_eq!((code, field), ("impossible", "bikes[0].frame.wheelbase_mm"));
+    assert!(
+        msg.starts_with(
+            "With the other published numbers, the wheelbase 1700 mm puts the rear centre at "
+        ) && msg.ends_with("which no frame can have (allowed 200 to 600 mm); check the wheelbase."),
+        "{msg}"
+    );
+}
+
+#[test]
 fn a_report_never_holds_a_non_finite_number() {
     for v in [0.0, 1e300, -1e300, f64::MIN_POSITIVE, f64::NAN] {
         for key in [

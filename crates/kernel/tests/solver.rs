@@ -17,6 +17,7 @@ fn run(frame: &Frame, given: &BTreeMap<String, Given>) -> Solution {
             front: frame.r_front,
             rear: frame.r_rear,
         },
+        front_tyre_width_mm: None,
         seat_ref: None,
         field_prefix: "bikes[0].frame",
     };

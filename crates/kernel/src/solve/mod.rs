@@ -17,20 +17,21 @@
 //! direction the published numbers cannot see, so it does not move the determined ones.
 //! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`.
 
+mod blame;
 mod diagnose;
 mod fit;
 mod model;
 mod plan;
 mod unknowns;
 
-use crate::catalogue::lookup;
-use crate::error::{fmt_num, FieldError, Warning};
+use crate::catalogue::{lookup, Unit};
+use crate::error::{fmt_measure, in_sentence, FieldError, Warning};
 use crate::geometry::{measured_index, FrameParams, Radii, MEASURED_KEYS};
 use fit::{fit, Fitted};
 use model::{Model, Row};
 use serde::Serialize;
 use std::collections::BTreeMap;
-use unknowns::{ix, to_params, typical, UNKNOWNS, X};
+use unknowns::{fork_stand_in, ix, to_params, typical, FrontTyre, UNKNOWNS, X};
 
 /// One published value, validated: value and tolerance in catalogue units (mm or degrees).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -75,6 +76,9 @@ pub const INCONSISTENT_FACTOR: f64 = 2.5;
 pub struct SolveInput<'a> {
     /// Tyre outer radii of the stock wheels, mm.
     pub radii: Radii,
+    /// Section width of the stock front tyre, mm (`None` when only its diameter is known): with
+    /// the radius it chooses the stand-in axle-to-crown when nothing published fixes it.
+    pub front_tyre_width_mm: Option<f64>,
     /// Height above the BB at which the effective seat angle is read (`None` = stack), mm.
     pub seat_ref: Option<f64>,
     /// Field path of the frame block for errors, e.g. `bikes[0].frame`.
@@ -108,13 +112,19 @@ pub fn solve(
             })
         })
         .collect();
-    let mut x0 = first_guess(given, input.radii);
-    let plan = plan::plan(&model, &rows, &mut x0).ok_or_else(|| no_solution(prefix))?;
-    let best = best_fit(&model, &rows, &plan.free, &x0).ok_or_else(|| no_solution(prefix))?;
+    let front = FrontTyre {
+        radius_mm: input.radii.front,
+        width_mm: input.front_tyre_width_mm,
+    };
+    let typical = typical(front);
+    let mut x0 = first_guess(given, input.radii, &typical);
+    let plan = plan::plan(&model, &rows, &mut x0, &typical).ok_or_else(|| no_solution(prefix))?;
+    let best =
+        best_fit(&model, &rows, &plan.free, &x0, &typical).ok_or_else(|| no_solution(prefix))?;
     let params = to_params(&best.x, input.radii);
-    postcheck(given, &best.x, &params, prefix)?;
+    postcheck(given, (&model, &best.x, &rows, &plan.free), &params, prefix)?;
     let predicted = model.predict(&best.x).ok_or_else(|| no_solution(prefix))?;
-    let mut warnings = assumption_warnings(&plan);
+    let mut warnings = assumption_warnings(&plan, &x0, front);
     let mut residuals = BTreeMap::new();
     let mut bad = Vec::new();
     let flags = diagnose::consistency(&model, &best.x, &rows, &plan.free)
@@ -151,8 +161,8 @@ pub fn solve(
 /// The first guess: typical values, overwritten by every value published directly; without a
 /// published axle-to-crown, the one that puts the BB at the published (or, from chainstay and rear
 /// centre, the positive) BB drop, so the search starts on the usual side of the axles.
-fn first_guess(given: &BTreeMap<String, Given>, radii: Radii) -> X {
-    let mut x = typical();
+fn first_guess(given: &BTreeMap<String, Given>, radii: Radii, typical: &X) -> X {
+    let mut x = *typical;
     for (slot, u) in x.iter_mut().zip(UNKNOWNS.iter()) {
         if let Some(g) = given.get(u.key) {
             *slot = g.value;
@@ -191,7 +201,7 @@ fn first_guess(given: &BTreeMap<String, Given>, radii: Radii) -> X {
 
 /// Fits from the first guess; when that fails or leaves values inconsistent, tries other starts
 /// and keeps the converged fit with the lowest cost.
-fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X) -> Option<Fitted> {
+fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X, typical: &X) -> Option<Fitted> {
     let good = |f: &Fitted| {
         within_hard_ranges(model, &f.x) && diagnose::all_consistent(model, &f.x, rows, free)
     };
@@ -212,7 +222,7 @@ fn best_fit(model: &Model, rows: &[Row], free: &[usize], x0: &X) -> Option<Fitte
         return first;
     }
     let mut best = first;
-    let mut others = [typical(), *x0, *x0];
+    let mut others = [*typical, *x0, *x0];
     others[1][ix::HEAD_ANGLE] = 70.0;
     others[1][ix::SEAT_ANGLE] = 73.0;
     others[2][ix::REAR_CENTRE] = 400.0;
@@ -241,7 +251,7 @@ fn no_solution(prefix: &str) -> FieldError {
     FieldError::new(
         "no_solution",
         prefix,
-        "the published numbers could not be fitted to one frame from any start; check them for typing errors",
+        "The published numbers could not be fitted to one frame from any start; check them for typing errors.",
     )
 }
 
@@ -263,9 +273,9 @@ fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldEr
                 "impossible",
                 format!("{prefix}.rear_centre_mm"),
                 format!(
-                    "rear centre {} mm is longer than the chainstay {} mm; the horizontal distance can be at most the straight one",
-                    fmt_num(rc),
-                    fmt_num(cs)
+                    "Rear centre {} is longer than the chainstay {}; the horizontal distance can be at most the straight one.",
+                    fmt_measure(rc, Unit::Mm),
+                    fmt_measure(cs, Unit::Mm)
                 ),
             ));
         }
@@ -278,10 +288,10 @@ fn precheck(given: &BTreeMap<String, Given>, prefix: &str) -> Result<(), FieldEr
                         "impossible",
                         format!("{prefix}.wheelbase_mm"),
                         format!(
-                            "wheelbase {} mm is not longer than the {} of {} mm; it must be longer (wheelbase = front centre + rear centre)",
-                            fmt_num(wb),
-                            lookup(part).map_or(part, |m| m.label).to_ascii_lowercase(),
-                            fmt_num(p)
+                            "Wheelbase {} is not longer than the {} of {}; it must be longer (wheelbase = front centre + rear centre).",
+                            fmt_measure(wb, Unit::Mm),
+                            lookup(part).map_or(part.to_string(), |m| in_sentence(m.label)),
+                            fmt_measure(p, Unit::Mm)
                         ),
                     ));
                 }
@@ -296,18 +306,19 @@ fn short_chainstay(prefix: &str, cs: f64, drop: f64) -> FieldError {
         "impossible",
         format!("{prefix}.chainstay_mm"),
         format!(
-            "chainstay {} mm is not longer than the {} mm between the BB and rear axle heights (BB drop); it must be longer",
-            fmt_num(cs),
-            fmt_num(drop.abs())
+            "Chainstay {} is not longer than the {} between the BB and rear axle heights (BB drop); it must be longer.",
+            fmt_measure(cs, Unit::Mm),
+            fmt_measure(drop.abs(), Unit::Mm)
         ),
     )
 }
 
 /// Impossible frames found after solving: a chainstay no longer than the solved BB drop, and
-/// solved parameters outside the catalogue's hard ranges.
+/// solved parameters outside the catalogue's hard ranges (attached to the published value that
+/// moved them most, [`blame::out_of_range`]).
 fn postcheck(
     given: &BTreeMap<String, Given>,
-    x: &X,
+    fit: (&Model, &X, &[Row], &[usize]),
     params: &FrameParams,
     prefix: &str,
 ) -> Result<(), FieldError> {
@@ -316,28 +327,23 @@ fn postcheck(
             return Err(short_chainstay(prefix, cs, params.bb_drop));
         }
     }
-    let checks = UNKNOWNS
-        .iter()
-        .zip(x.iter())
-        .map(|(u, v)| (u.key, *v))
-        .chain([("bb_drop_mm", params.bb_drop)]);
-    for (key, v) in checks {
-        let Some(m) = lookup(key) else { continue };
-        if !inside_hard(m, v) {
-            return Err(FieldError::new(
-                "impossible",
-                format!("{prefix}.{key}"),
-                format!(
-                    "together the published numbers put the {} at {} {}, which no frame can have (allowed {} to {} {}); check the values",
-                    m.label.to_ascii_lowercase(),
-                    fmt_num(v),
-                    m.unit.symbol(),
-                    fmt_num(m.hard.0),
-                    fmt_num(m.hard.1),
-                    m.unit.symbol()
-                ),
-            ));
+    let (model, x, _, _) = fit;
+    for (k, u) in UNKNOWNS.iter().enumerate() {
+        let v = x.get(k).copied().unwrap_or(f64::NAN);
+        if lookup(u.key).is_some_and(|m| !inside_hard(m, v)) {
+            let q = |x: &X| x.get(k).copied().unwrap_or(f64::NAN);
+            return Err(blame::out_of_range(fit, u.key, v, q, prefix));
         }
+    }
+    let drop = |x: &X| to_params(x, model.radii).bb_drop;
+    if lookup("bb_drop_mm").is_some_and(|m| !inside_hard(m, params.bb_drop)) {
+        return Err(blame::out_of_range(
+            fit,
+            "bb_drop_mm",
+            params.bb_drop,
+            drop,
+            prefix,
+        ));
     }
     Ok(())
 }
@@ -362,26 +368,22 @@ fn within_hard_ranges(model: &Model, x: &X) -> bool {
         .all(|(k, v)| lookup(k).is_none_or(|m| inside_hard(m, v)))
 }
 
-/// Warnings for the unknowns the published numbers leave free.
-fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
+/// Warnings for the unknowns the published numbers leave free, with the values `x` they were
+/// given (a prior: `assumed`; a typical value: `underdetermined`, the axle-to-crown with the
+/// fork it stands for, see [`fork_stand_in`]).
+fn assumption_warnings(plan: &plan::Plan, x: &X, front: FrontTyre) -> Vec<Warning> {
     let mut out = Vec::new();
     let describe = |u: usize| {
-        UNKNOWNS.get(u).map(|u| {
-            let m = lookup(u.key);
-            let label = m.map_or(u.key, |m| m.label);
-            let unit = m.map_or("", |m| m.unit.symbol());
-            (label, u.prior.unwrap_or(u.typical), unit)
-        })
+        let unknown = UNKNOWNS.get(u)?;
+        let m = lookup(unknown.key)?;
+        Some((m.label, fmt_measure(x.get(u).copied()?, m.unit)))
     };
-    for d in plan.priors.iter().filter_map(|&u| describe(u)) {
+    for (label, value) in plan.priors.iter().filter_map(|&u| describe(u)) {
         out.push(Warning::new(
             "assumed",
             format!(
-                "{} is not fixed by the published numbers: assumed {} {} (enter the published \
-                 value to replace it).",
-                d.0,
-                fmt_num(d.1),
-                d.2
+                "{label} is not fixed by the published numbers: assumed {value} (enter the \
+                 published value to replace it)."
             ),
         ));
     }
@@ -389,8 +391,15 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
         let list: Vec<String> = plan
             .pinned
             .iter()
-            .filter_map(|&u| describe(u))
-            .map(|d| format!("{} {} {}", d.0.to_ascii_lowercase(), fmt_num(d.1), d.2))
+            .filter_map(|&u| {
+                let (label, value) = describe(u)?;
+                let why = if u == ix::A2C {
+                    fork_reason(front)
+                } else {
+                    String::new()
+                };
+                Some(format!("{} {value}{why}", in_sentence(label)))
+            })
             .collect();
         out.push(Warning::new(
             "underdetermined",
@@ -406,4 +415,19 @@ fn assumption_warnings(plan: &plan::Plan) -> Vec<Warning> {
         ));
     }
     out
+}
+
+/// Why the stand-in axle-to-crown has its length, in brackets after it: the fork it stands for
+/// and the tyre that chose it (common practice, see [`fork_stand_in`]).
+fn fork_reason(front: FrontTyre) -> String {
+    let fork = fork_stand_in(front);
+    let kind = if fork.suspension {
+        "a suspension fork of about 150 mm travel"
+    } else {
+        "a rigid fork"
+    };
+    match front.width_mm {
+        Some(w) => format!(" ({kind}, as common for a {w:.0} mm front tyre)"),
+        None => format!(" ({kind}; the front tyre's width is not known)"),
+    }
 }

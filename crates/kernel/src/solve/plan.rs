@@ -45,8 +45,8 @@ const SUGGEST: [&str; 19] = [
 
 /// Analyses the Jacobian of `rows` at `x` and fixes every unknown nothing determines: first the
 /// ones with a prior, then the others in [`PIN_ORDER`], until the rest are fully determined.
-/// Writes the prior or typical value into `x` for each fixed unknown.
-pub fn plan(model: &Model, rows: &[Row], x: &mut X) -> Option<Plan> {
+/// Writes the prior or the `typical` value into `x` for each fixed unknown.
+pub fn plan(model: &Model, rows: &[Row], x: &mut X, typical: &X) -> Option<Plan> {
     let idx: Vec<usize> = rows.iter().map(|r| r.index).collect();
     let tol: Vec<f64> = rows.iter().map(|r| r.tolerance).collect();
     let mut p = Plan {
@@ -86,7 +86,7 @@ pub fn plan(model: &Model, rows: &[Row], x: &mut X) -> Option<Plan> {
             }
             None => {
                 p.pinned.push(u);
-                unknown.typical
+                typical.get(u).copied().unwrap_or(unknown.typical)
             }
         };
         if let Some(e) = x.get_mut(u) {

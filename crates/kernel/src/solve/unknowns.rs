@@ -45,7 +45,8 @@ pub mod ix {
 }
 
 /// The unknowns in vector order. Typical values describe a mid-size trail bike [practice]; they
-/// are only a start for the search and a stated stand-in for a parameter nothing fixes.
+/// are only a start for the search and a stated stand-in for a parameter nothing fixes. The
+/// axle-to-crown's is replaced by one that fits the front wheel ([`fork_stand_in`]).
 /// Priors: lower headset stack 0 mm (internal cups) and seat axis offset 0 mm (straight seat
 /// tube through the BB) [practice].
 pub const UNKNOWNS: [Unknown; N_UNKNOWNS] = [
@@ -71,12 +72,16 @@ const fn u(key: &'static str, typical: f64, prior: Option<f64>) -> Unknown {
 }
 
 /// The order in which free parameters without a prior are pinned to their typical value: the
-/// rarely published fork first.
+/// rarely published fork first, and of the fork the offset before the axle-to-crown. When one
+/// equation links the two (a BB drop or BB height, a wheelbase or a front centre, as on a road
+/// chart without fork numbers), pinning the offset and solving the a2c is far less wrong: offsets
+/// vary little across bikes (about 40 to 55 mm), axle-to-crown lengths a lot (about 360 to
+/// 600 mm, with wheel size and suspension travel) [practice].
 pub const PIN_ORDER: [usize; N_UNKNOWNS] = [
     ix::HEADSET_LOWER,
     ix::SEAT_OFFSET,
-    ix::A2C,
     ix::OFFSET,
+    ix::A2C,
     ix::HEAD_TUBE,
     ix::SEAT_TUBE,
     ix::REAR_CENTRE,
@@ -115,7 +120,62 @@ pub fn to_params_ungrounded(x: &X) -> FrameParams {
     }
 }
 
-/// The typical frame.
-pub fn typical() -> X {
-    UNKNOWNS.map(|u| u.typical)
+/// The typical frame for these wheels: [`UNKNOWNS`]' typical values with the axle-to-crown of
+/// [`fork_stand_in`].
+pub fn typical(front: FrontTyre) -> X {
+    let mut x = UNKNOWNS.map(|u| u.typical);
+    x[ix::A2C] = fork_stand_in(front).a2c_mm;
+    x
+}
+
+/// The front tyre, as far as the solver's stand-in fork needs it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FrontTyre {
+    /// Outer radius, mm.
+    pub radius_mm: f64,
+    /// Section width, mm; `None` when only the outer diameter was given.
+    pub width_mm: Option<f64>,
+}
+
+/// Tyres at least this wide (mm; about 2.1 in) are taken as a mountain bike's, on a suspension
+/// fork; narrower ones (road, gravel, touring) on a rigid fork [practice].
+pub const SUSPENSION_TYRE_MIN_MM: f64 = 53.0;
+
+/// A rigid fork's axle-to-crown over the front tyre's outer radius, mm: tyre clearance and the
+/// crown below the crown race [practice; from memory, road forks for 25–28 mm tyres measure
+/// about 365–375 mm].
+pub const RIGID_A2C_OVER_RADIUS_MM: f64 = 35.0;
+
+/// A suspension fork's axle-to-crown over the front tyre's outer radius, mm: about 150 mm of
+/// travel plus the clearance at full compression [practice; from memory, 150 mm forks measure
+/// about 545 mm for 27.5 in and 560 mm for 29 in wheels].
+pub const SUSPENSION_A2C_OVER_RADIUS_MM: f64 = 190.0;
+
+/// The axle-to-crown the solver stands in when nothing published fixes it, and which kind of fork
+/// it assumes.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ForkStandIn {
+    /// Axle-to-crown, mm.
+    pub a2c_mm: f64,
+    /// `true` for a suspension fork, `false` for a rigid one.
+    pub suspension: bool,
+}
+
+/// The stand-in fork for a front tyre (a simple rule, common practice):
+///
+/// - tyre narrower than [`SUSPENSION_TYRE_MIN_MM`]: a rigid fork,
+///   `a2c = r + RIGID_A2C_OVER_RADIUS_MM` (700x28c, r = 339 mm → 374 mm);
+/// - as wide or wider, or of unknown width (only a diameter given): a suspension fork of about
+///   150 mm travel, `a2c = r + SUSPENSION_A2C_OVER_RADIUS_MM` (29x2.4, r = 371.96 mm → 562 mm).
+pub fn fork_stand_in(front: FrontTyre) -> ForkStandIn {
+    let suspension = front.width_mm.is_none_or(|w| w >= SUSPENSION_TYRE_MIN_MM);
+    let over = if suspension {
+        SUSPENSION_A2C_OVER_RADIUS_MM
+    } else {
+        RIGID_A2C_OVER_RADIUS_MM
+    };
+    ForkStandIn {
+        a2c_mm: front.radius_mm + over,
+        suspension,
+    }
 }
