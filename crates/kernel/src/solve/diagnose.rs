@@ -7,55 +7,66 @@ use super::fit::fit;
 use super::model::{leverages, rank, Model, Row};
 use super::unknowns::X;
 use super::INCONSISTENT_FACTOR;
-use crate::catalogue::lookup;
-use crate::error::{fmt_disagreement, Warning};
-use crate::geometry::MEASURED_KEYS;
 
-fn key(index: usize) -> &'static str {
-    MEASURED_KEYS.get(index).copied().unwrap_or("?")
+/// What the diagnosis finds for one given value.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Check {
+    /// Whether the value agrees with the others (see [`checks`]).
+    pub consistent: bool,
+    /// What the *other* values alone predict for it, in its own unit (mm or degrees): the
+    /// leave-one-out prediction `given + (solved − given) / (1 − h)` (first order, `h` the row's
+    /// leverage; Cook & Weisberg, *Residuals and Influence in Regression*, 1982, §2.2). `None`
+    /// when nothing else checks the value (`1 − h < 10⁻³`).
+    pub from_others: Option<f64>,
 }
 
-/// The measurement's name as the page and the charts say it (its catalogue label), not its key.
-fn label(index: usize) -> String {
-    let k = key(index);
-    lookup(k).map_or(k, |m| m.label).to_string()
-}
+/// Below this `1 − h` a value counts as checked by nothing else.
+const UNCHECKED: f64 = 1e-3;
 
-/// Per row, whether it is consistent. A value is inconsistent when its residual exceeds
-/// `INCONSISTENT_FACTOR ×` its tolerance, or when it disagrees with what the *other* values alone
-/// predict: the leave-one-out discrepancy `d = r / (1 − h)` (first order, `h` the row's leverage,
-/// in tolerance units) exceeds both `INCONSISTENT_FACTOR` and four standard deviations of what
-/// rounding alone can cause, `4 / √(12 (1 − h))` (rounding errors uniform within ± half a step,
-/// variance 1/12 per value). A value nothing else checks (`1 − h < 10⁻³`) is judged by its
-/// residual alone. Without the second test, a wrong value that the fit mostly absorbs (high
-/// leverage) would pass unnoticed.
-pub fn consistency(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Vec<bool>> {
+/// Per row, whether it is consistent and what the other values predict for it. A value is
+/// inconsistent when its residual exceeds `INCONSISTENT_FACTOR ×` its tolerance, or when it
+/// disagrees with what the *other* values alone predict: the leave-one-out discrepancy
+/// `d = r / (1 − h)` (first order, `h` the row's leverage, in tolerance units) exceeds both
+/// `INCONSISTENT_FACTOR` and four standard deviations of what rounding alone can cause,
+/// `4 / √(12 (1 − h))` (rounding errors uniform within ± half a step, the step being the
+/// tolerance: variance 1/12 per value). A value nothing else checks (`1 − h < 10⁻³`) is judged
+/// by its residual alone. Without the second test, a wrong value that the fit mostly absorbs
+/// (high leverage) would pass unnoticed.
+pub fn checks(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Vec<Check>> {
     let r = model.residuals(x, rows)?;
     let idx: Vec<usize> = rows.iter().map(|r| r.index).collect();
     let tol: Vec<f64> = rows.iter().map(|r| r.tolerance).collect();
     let h = leverages(&model.jacobian(x, &idx, &tol, free)?);
-    let limit = INCONSISTENT_FACTOR * (1.0 + 1e-9);
     Some(
-        r.iter()
+        rows.iter()
+            .zip(r)
             .zip(h)
-            .map(|(&r, h)| {
-                let checked = 1.0 - h;
-                if r.abs() > limit {
-                    return false;
-                }
-                if checked < 1e-3 {
-                    return true;
-                }
-                let rounding = 4.0 / (12.0 * checked).sqrt();
-                (r / checked).abs() <= limit.max(rounding)
-            })
+            .map(|((row, r), h)| check(row, r, 1.0 - h))
             .collect(),
     )
 }
 
-/// True when every row is consistent (see [`consistency`]).
+/// One row's [`Check`] from its weighted residual `r` and `checked = 1 − h`.
+fn check(row: &Row, r: f64, checked: f64) -> Check {
+    let limit = INCONSISTENT_FACTOR * (1.0 + 1e-9);
+    if checked < UNCHECKED {
+        return Check {
+            consistent: r.abs() <= limit,
+            from_others: None,
+        };
+    }
+    let d = r / checked;
+    let rounding = 4.0 / (12.0 * checked).sqrt();
+    let from_others = row.value + d * row.tolerance;
+    Check {
+        consistent: r.abs() <= limit && d.abs() <= limit.max(rounding),
+        from_others: from_others.is_finite().then_some(from_others),
+    }
+}
+
+/// True when every row is consistent (see [`checks`]).
 pub fn all_consistent(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> bool {
-    consistency(model, x, rows, free).is_some_and(|c| c.iter().all(|&ok| ok))
+    checks(model, x, rows, free).is_some_and(|c| c.iter().all(|c| c.consistent))
 }
 
 /// The rows whose removal lets the rest agree (with the frame still determined).
@@ -83,34 +94,4 @@ pub fn suspects(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<usize
         }
     }
     out
-}
-
-/// The warning for inconsistent values: each one with its given and solved value, then the
-/// value(s) most likely wrong, in plain sentences.
-pub fn warning(bad: &[(usize, f64, f64)], suspects: &[usize]) -> Warning {
-    let list: Vec<String> = bad
-        .iter()
-        .map(|(i, given, solved)| {
-            let [given, solved, _] = fmt_disagreement(*given, *solved, key(*i).ends_with("_deg"));
-            format!(
-                "{} is published as {given} but the other numbers give {solved}",
-                label(*i)
-            )
-        })
-        .collect();
-    let mut msg = format!("The published numbers disagree: {}.", list.join("; "));
-    let names: Vec<String> = suspects.iter().map(|&i| label(i)).collect();
-    match names.as_slice() {
-        [] => msg.push_str(
-            " No single value explains it; more than one may be wrong, or they were measured differently.",
-        ),
-        [one] => msg.push_str(&format!(
-            " Most likely wrong: {one}; without it the rest agree."
-        )),
-        many => msg.push_str(&format!(
-            " Most likely wrong: one of {}; without any one of these the rest agree.",
-            many.join(", ")
-        )),
-    }
-    Warning::new("inconsistent", msg)
 }
