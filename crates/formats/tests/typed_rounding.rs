@@ -133,3 +133,25 @@ fn a_value_typed_in_whole_centimetres_may_be_3_mm_off_but_not_in_millimetres() {
     assert!(!r.consistent, "{r:?}");
     assert!((r.from_others.unwrap() - height).abs() < 0.3, "{r:?}");
 }
+
+#[test]
+fn a_link_keeps_the_rounding_as_typed() {
+    use framewise_formats::{decode_link, encode_link, form_view};
+    let typed = [
+        ("frame.wheelbase_mm", "123 cm"),
+        ("frame.trail_mm", "5 in"),
+        ("frame.front_centre_mm", "31.5 in"),
+        ("frame.seat_angle_effective_deg", "77"),
+    ];
+    let (s, e) = scenario_from_form(&demo_form(&typed));
+    assert!(e.is_empty(), "{e:?}");
+    let opened = form_view(&decode_link(&encode_link(&s).unwrap()).unwrap());
+    assert!(opened.omitted.is_empty(), "{:?}", opened.omitted);
+    for (name, text) in typed {
+        assert_eq!(opened.fields[name], text, "{name}");
+    }
+    // Demo values come back as typed ("65" to the degree, "76.5" to a tenth).
+    assert_eq!(opened.fields["frame.head_angle_deg"], "65");
+    assert_eq!(opened.fields["frame.seat_angle_actual_deg"], "76.5");
+    assert_eq!(opened.fields["frame.reach_mm"], "470");
+}
