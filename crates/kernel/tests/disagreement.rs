@@ -109,19 +109,18 @@ fn a_wheelbase_off_the_loop_is_said_once_with_what_the_others_give() {
     for (a, b) in pairs {
         assert_ne!(a, b, "{msg}");
     }
-    // Each value's prediction is that value with the frame solved without it, to first order
-    // (within a tenth of the gap).
+    // Each value's prediction is that value with the frame solved without it.
     for key in [
         "reach_mm",
+        "stack_mm",
         "head_angle_deg",
         "fork_offset_mm",
         "chainstay_mm",
     ] {
         let r = b.residuals[key];
         let exact = without(&extra, key).stock[key];
-        let gap = (exact - r.given).abs();
         assert!(
-            (r.from_others.unwrap() - exact).abs() <= 0.1 * gap,
+            (r.from_others.unwrap() - exact).abs() <= 0.01,
             "{key}: {r:?}, exact {exact}"
         );
     }

@@ -1,7 +1,9 @@
 //! Which published values disagree, and which single value most likely explains it.
 //!
-//! Leave-one-out: for each given value whose removal still leaves the frame determined, refit
-//! without it; if every remaining value is then consistent, it is a suspect.
+//! Leave-one-out: to first order from the leverages for every value ([`checks`]); when some value
+//! disagrees, for each given value whose removal still leaves the frame determined, refit without
+//! it ([`leave_each_out`]): what the refit gives for it is what the others predict, and if every
+//! remaining value is then consistent, it is a suspect.
 
 use super::fit::fit;
 use super::model::{leverages, rank, Model, Row};
@@ -69,8 +71,21 @@ pub fn all_consistent(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> boo
     checks(model, x, rows, free).is_some_and(|c| c.iter().all(|c| c.consistent))
 }
 
-/// The rows whose removal lets the rest agree (with the frame still determined).
-pub fn suspects(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<usize> {
+/// One given value left out and the rest refitted.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LeftOut {
+    /// Index into [`crate::geometry::MEASURED_KEYS`].
+    pub index: usize,
+    /// What the refitted frame gives for the value left out: the exact leave-one-out prediction
+    /// (the first-order one of [`Check::from_others`] drifts when the value is far off).
+    pub predicted: Option<f64>,
+    /// Whether every remaining value then agrees: the value is a suspect.
+    pub rest_agree: bool,
+}
+
+/// Each row left out in turn, the rest refitted, for the rows whose removal leaves the frame
+/// determined (a row nothing else checks is skipped).
+pub fn leave_each_out(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<LeftOut> {
     let mut out = Vec::new();
     for (k, row) in rows.iter().enumerate() {
         let rest: Vec<Row> = rows
@@ -88,9 +103,15 @@ pub fn suspects(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<usize
             continue;
         }
         if let Some(f) = fit(model, &rest, free, x) {
-            if all_consistent(model, &f.x, &rest, free) {
-                out.push(row.index);
-            }
+            let predicted = model
+                .predict(&f.x)
+                .and_then(|p| p.get(row.index).copied())
+                .filter(|v| v.is_finite());
+            out.push(LeftOut {
+                index: row.index,
+                predicted,
+                rest_agree: all_consistent(model, &f.x, &rest, free),
+            });
         }
     }
     out

@@ -1,8 +1,8 @@
 //! The `inconsistent` warning in plain words: what the other numbers predict for each value that
 //! disagrees, and which value (or which one of several) would explain it.
 //!
-//! Three cases, from the suspects of [`super::diagnose::suspects`] (the values whose removal lets
-//! the rest agree):
+//! Three cases, from the suspects of [`super::diagnose::leave_each_out`] (the values whose removal
+//! lets the rest agree):
 //! - one suspect: it is named, with what the other numbers give for it;
 //! - several: the values form one loop that does not close (say reach, head angle, fork and
 //!   chainstay against a published wheelbase). Any one of them would close it, so they are named
@@ -10,8 +10,10 @@
 //!   which;
 //! - none: every value that disagrees is listed; more than one may be wrong.
 //!
-//! Every figure quoted is the leave-one-out prediction ([`super::diagnose::Check::from_others`]),
-//! never the best fit, which includes the published value itself.
+//! Every figure quoted is the leave-one-out prediction (the frame refitted without the value,
+//! [`super::diagnose::LeftOut::predicted`], or to first order
+//! [`super::diagnose::Check::from_others`]), never the best fit, which includes the published
+//! value itself.
 
 use crate::catalogue::lookup;
 use crate::error::{fmt_disagreement, Warning};

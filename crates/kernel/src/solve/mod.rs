@@ -57,8 +57,8 @@ pub struct Residual {
     /// or what the other values alone predict for it (`from_others`) is further from it than
     /// 2.5 × its tolerance and than rounding explains (`diagnose::checks`).
     pub consistent: bool,
-    /// What the *other* given values alone predict for this one (leave-one-out, first order),
-    /// in its unit; `None` (left out of the JSON, which has no nulls) when no other value
+    /// What the *other* given values alone predict for this one, in its unit: when some value
+    /// disagrees, the frame refitted without it; else the first-order leave-one-out estimate; `None` (left out of the JSON, which has no nulls) when no other value
     /// checks it.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub from_others: Option<f64>,
@@ -128,7 +128,7 @@ pub fn solve(
     let mut residuals = BTreeMap::new();
     let checks =
         diagnose::checks(&model, &best.x, &rows, &plan.free).ok_or_else(|| no_solution(prefix))?;
-    let findings: Vec<explain::Finding> = rows
+    let mut findings: Vec<explain::Finding> = rows
         .iter()
         .zip(&checks)
         .map(|(row, c)| explain::Finding {
@@ -140,6 +140,21 @@ pub fn solve(
             consistent: c.consistent,
         })
         .collect();
+    let mut suspects = Vec::new();
+    if findings.iter().any(|f| !f.consistent) {
+        let left_out = diagnose::leave_each_out(&model, &best.x, &rows, &plan.free);
+        for f in &mut findings {
+            let refit = left_out.iter().find(|l| l.index == f.index);
+            if let Some(p) = refit.and_then(|l| l.predicted) {
+                f.from_others = Some(p);
+            }
+        }
+        suspects = left_out
+            .iter()
+            .filter(|l| l.rest_agree)
+            .map(|l| l.index)
+            .collect();
+    }
     for f in &findings {
         let key = MEASURED_KEYS.get(f.index).copied().unwrap_or("?");
         residuals.insert(
@@ -154,7 +169,6 @@ pub fn solve(
         );
     }
     if findings.iter().any(|f| !f.consistent) {
-        let suspects = diagnose::suspects(&model, &best.x, &rows, &plan.free);
         warnings.push(explain::warning(&findings, &suspects));
     }
     Ok(Solution {
