@@ -128,7 +128,7 @@ fn wheels(out: &mut FormView, prefix: &str, w: &WheelsInput) {
 /// a grid step of both is taken when none is exact (469.9 mm typed as `18.5 in` comes back from
 /// a link as 470 mm to 2.5 mm: `18.5 in`). `None` when no text of mm, cm or inches with up to
 /// three decimals gives that tolerance.
-fn published_text(key: &str, value: f64, tolerance: Option<f64>) -> Option<String> {
+pub(crate) fn published_text(key: &str, value: f64, tolerance: Option<f64>) -> Option<String> {
     let m = framewise_kernel::lookup(key)?;
     let default = m.default_tolerance();
     let tolerance = tolerance.unwrap_or(default);

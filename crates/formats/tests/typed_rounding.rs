@@ -155,3 +155,40 @@ fn a_link_keeps_the_rounding_as_typed() {
     assert_eq!(opened.fields["frame.seat_angle_actual_deg"], "76.5");
     assert_eq!(opened.fields["frame.reach_mm"], "470");
 }
+
+#[test]
+fn a_chart_keeps_its_rounding_into_the_form() {
+    use framewise_formats::chart::import_chart;
+    // An invented chart: wheelbase in whole centimetres, head angle in whole degrees, reach in
+    // mm, seat angle to a tenth.
+    let chart = "Size\tA\tB\nReach (mm)\t470\t495\nWheelbase (cm)\t123\t125.5\n\
+                 Head tube angle (°)\t65\t64.5\nSeat tube angle (effective) (°)\t76.5\t77\n";
+    let run = import_chart(chart).unwrap();
+    let a = &run.sizes[0];
+    assert_eq!(a.frame["wheelbase_mm"], 1230.0);
+    assert_eq!(a.tolerances["wheelbase_mm"], 10.0);
+    assert_eq!(a.tolerances["head_angle_deg"], 1.0);
+    assert!(!a.tolerances.contains_key("reach_mm"));
+    assert_eq!(a.text["wheelbase_mm"], "123 cm");
+    assert_eq!(a.text["head_angle_deg"], "65");
+    assert_eq!(a.text["seat_angle_effective_deg"], "76.5");
+    let b = &run.sizes[1];
+    // 125.5 cm is good to the millimetre, 77° (written without a tenth) to the degree.
+    assert!(!b.tolerances.contains_key("wheelbase_mm"));
+    assert_eq!(b.text["wheelbase_mm"], "1255");
+    assert_eq!(b.tolerances["seat_angle_effective_deg"], 1.0);
+    assert_eq!(b.text["seat_angle_effective_deg"], "77");
+    // The form reads each text back with the chart's value and rounding.
+    for size in &run.sizes {
+        let form: BTreeMap<String, String> = size
+            .text
+            .iter()
+            .map(|(k, t)| (format!("frame.{k}"), t.clone()))
+            .collect();
+        let (s, _) = scenario_from_form(&form);
+        for (k, p) in &s.bikes[0].frame {
+            assert_eq!(p.value(), size.frame[k], "{k}");
+            assert_eq!(p.tolerance(), size.tolerances.get(k).copied(), "{k}");
+        }
+    }
+}
