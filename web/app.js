@@ -169,7 +169,8 @@ function applySize(size) {
   heldForm = 0;
   for (const f of words.fields) {
     const key = f.name.startsWith('frame.') ? f.name.slice(6) : null;
-    if (key) setField(form, f.name, size.frame?.[key] != null ? String(size.frame[key]) : '');
+    // The importer's text keeps each value's rounding ("99 cm", "65"); the number is a fallback.
+    if (key) setField(form, f.name, size.text?.[key] ?? (size.frame?.[key] != null ? String(size.frame[key]) : ''));
   }
   for (const end of ['front', 'rear']) {
     const w = size.wheels?.[end];

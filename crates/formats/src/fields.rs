@@ -277,24 +277,37 @@ pub fn page_words() -> PageWords {
 }
 
 /// One sentence per published value that disagrees with the others (`consistent == false`):
-/// what was published, what the rest of the numbers make it, and what that means.
+/// what was published, what the *other* published numbers alone make it (the report's
+/// `from_others`, not the best fit, which includes the value itself) and the gap, and what that
+/// means. A value no other number checks says so instead of quoting a prediction.
 pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, String> {
     bike.residuals
         .iter()
         .filter(|(_, r)| !r.consistent)
-        .map(|(key, r)| {
-            let (label, degrees) = match lookup(key) {
-                Some(m) => (m.label, m.unit.symbol() == "°"),
-                None => (key.as_str(), false),
-            };
-            let [given, solved, away] =
-                framewise_kernel::error::fmt_disagreement(r.given, r.solved, degrees);
-            let note = format!(
-                "{label} is published as {given} but the other published numbers make it {solved}, {away} away, more than rounding explains: one of them is probably a misprint or measured another way."
-            );
-            (key.clone(), note)
-        })
+        .map(|(key, r)| (key.clone(), residual_note(key, r)))
         .collect()
+}
+
+fn residual_note(key: &str, r: &framewise_kernel::Residual) -> String {
+    let (label, degrees) = match lookup(key) {
+        Some(m) => (m.label, m.unit.symbol() == "°"),
+        None => (key, false),
+    };
+    let fmt = framewise_kernel::error::fmt_disagreement;
+    match r.from_others {
+        Some(other) => {
+            let [given, other, away] = fmt(r.given, other, degrees);
+            format!(
+                "{label} is published as {given} but the other published numbers make it {other}, {away} away, more than rounding explains: this value or one it is checked against is probably a misprint or measured another way."
+            )
+        }
+        None => {
+            let [given, solved, _] = fmt(r.given, r.solved, degrees);
+            format!(
+                "{label} is published as {given}, which no other published number checks, yet the fitted frame makes it {solved}: check it for a typing error."
+            )
+        }
+    }
 }
 
 #[cfg(test)]

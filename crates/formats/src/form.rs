@@ -66,13 +66,16 @@ pub fn scenario_from_form_with(
             }
             continue;
         }
+        if group == "frame" {
+            if let Some(p) = published(name, key, text, &mut errors) {
+                bike.frame.insert(key.to_string(), p);
+            }
+            continue;
+        }
         let Some(v) = number(name, key, text, &mut errors) else {
             continue;
         };
         match group {
-            "frame" => {
-                bike.frame.insert(key.to_string(), Published::Value(v));
-            }
             "setup" => {
                 setup.insert(key.to_string(), v.into());
             }
@@ -155,6 +158,35 @@ fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Op
     parse_quantity(text, q)
         .map_err(|e| errors.push(FieldError::new("bad_number", name, e.to_string())))
         .ok()
+}
+
+/// A published frame value with the rounding its typed text shows: the tolerance is one unit of
+/// the last typed digit ([`crate::units::parse_quantity_step`]: `99 cm` → 10 mm, `65` → 1°), but
+/// never finer than the catalogue's default (1 mm, 0.1°).
+///
+/// Why the floor: a value typed finer than the rest of a listing (`470.5` among whole
+/// millimetres) is not known better than the numbers it is checked against were rounded, and a
+/// listing's numbers come from one drawing rounded for print; a 0.1 mm tolerance would call an
+/// ordinary 1 mm rounding of another value a disagreement. A value at the default stays a plain
+/// [`Published::Value`] (a link then carries no tolerance for it).
+fn published(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<Published> {
+    let q = Quantity::from_key(key).filter(|q| matches!(q, Quantity::Length | Quantity::Angle));
+    let Some(q) = q else {
+        errors.push(unknown(name));
+        return None;
+    };
+    let (value, step) = crate::units::parse_quantity_step(text, q)
+        .map_err(|e| errors.push(FieldError::new("bad_number", name, e.to_string())))
+        .ok()?;
+    // A key outside the catalogue is the kernel's to refuse; it keeps the plain value.
+    let floor = framewise_kernel::lookup(key).map_or(f64::INFINITY, |m| m.default_tolerance());
+    Some(match step {
+        Some(step) if step > floor * (1.0 + 1e-9) => Published::WithTolerance {
+            value,
+            tolerance: step,
+        },
+        _ => Published::Value(value),
+    })
 }
 
 fn unknown(name: &str) -> FieldError {

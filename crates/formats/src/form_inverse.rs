@@ -52,10 +52,15 @@ fn first_bike(out: &mut FormView, bike: &BikeInput) {
             .insert("label".into(), bike.label.trim().to_string());
     }
     for (key, p) in &bike.frame {
-        out.fields
-            .insert(format!("frame.{key}"), number_text(p.value()));
-        if p.tolerance().is_some() {
-            out.omitted.push(format!("bikes[0].frame.{key}.tolerance"));
+        let name = format!("frame.{key}");
+        match published_text(key, p.value(), p.tolerance()) {
+            Some(text) => {
+                out.fields.insert(name, text);
+            }
+            None => {
+                out.fields.insert(name, number_text(p.value()));
+                out.omitted.push(format!("bikes[0].frame.{key}.tolerance"));
+            }
         }
     }
     wheels(out, "wheels", &bike.wheels);
@@ -116,6 +121,50 @@ fn wheels(out: &mut FormView, prefix: &str, w: &WheelsInput) {
     }
 }
 
+/// Text for a published frame value that the form reads back with the same tolerance
+/// (`crate::form`: one unit of the last typed digit, at least the catalogue default): 990 mm to
+/// 10 mm → `99 cm`, 65° to 1° → `65`, 65° at the default 0.1° → `65.0`, 470 mm → `470`. A value
+/// and tolerance read from a link are on the link's grid (0.5 mm, 0.05°), so a text within half
+/// a grid step of both is taken when none is exact (469.9 mm typed as `18.5 in` comes back from
+/// a link as 470 mm to 2.5 mm: `18.5 in`). `None` when no text of mm, cm or inches with up to
+/// three decimals gives that tolerance.
+pub(crate) fn published_text(key: &str, value: f64, tolerance: Option<f64>) -> Option<String> {
+    let m = framewise_kernel::lookup(key)?;
+    let default = m.default_tolerance();
+    let tolerance = tolerance.unwrap_or(default);
+    let angle = key.ends_with("_deg");
+    let (q, units, half_grid) = if angle {
+        (Quantity::Angle, &[("", 1.0)][..], 0.025)
+    } else {
+        (
+            Quantity::Length,
+            &[("", 1.0), (" cm", 10.0), (" in", 25.4)][..],
+            0.25,
+        )
+    };
+    let mut texts = vec![number_text(value)];
+    for (unit, factor) in units {
+        for d in 0..=3 {
+            texts.push(format!("{:.d$}{unit}", value / factor));
+        }
+    }
+    let read = |t: &String| {
+        let (v, step) = crate::units::parse_quantity_step(t, q).ok()?;
+        Some((v, step.map_or(default, |s| s.max(default))))
+    };
+    let off = |t: &String| read(t).map(|(v, tol)| ((v - value).abs(), (tol - tolerance).abs()));
+    let exact = texts
+        .iter()
+        .find(|t| off(t).is_some_and(|(dv, dt)| dv == 0.0 && dt < 1e-9));
+    exact
+        .or_else(|| {
+            texts
+                .iter()
+                .find(|t| off(t).is_some_and(|(dv, dt)| dv <= half_grid && dt <= half_grid))
+        })
+        .cloned()
+}
+
 /// The shortest decimal text that reads back as the same number (`470`, `64.55`, `-1.5`).
 pub fn number_text(x: f64) -> String {
     format!("{x}")
@@ -125,6 +174,7 @@ pub fn number_text(x: f64) -> String {
 mod tests {
     use super::*;
     use crate::form::scenario_from_form;
+    use framewise_kernel::Published;
 
     fn demo() -> Scenario {
         serde_json::from_value(serde_json::json!({
@@ -167,6 +217,50 @@ mod tests {
         let (back, errors) = scenario_from_form(&v.fields);
         assert!(errors.is_empty(), "{errors:?}");
         assert_eq!(back, s);
+    }
+
+    /// Source: the form's reading of typed rounding (crate::form `published`): the text written
+    /// for a published value reads back with the same value and tolerance.
+    #[test]
+    fn a_published_value_keeps_its_rounding_through_the_form() {
+        let mut s = demo();
+        let frame = &mut s.bikes[0].frame;
+        frame.insert(
+            "wheelbase_mm".into(),
+            Published::WithTolerance {
+                value: 1230.0,
+                tolerance: 10.0,
+            },
+        );
+        frame.insert(
+            "seat_angle_effective_deg".into(),
+            Published::WithTolerance {
+                value: 77.0,
+                tolerance: 1.0,
+            },
+        );
+        frame.insert("chainstay_mm".into(), Published::Value(435.0));
+        frame.insert("head_angle_deg".into(), Published::Value(65.0));
+        let v = form_view(&s);
+        assert_eq!(v.fields["frame.wheelbase_mm"], "123 cm");
+        assert_eq!(v.fields["frame.seat_angle_effective_deg"], "77");
+        assert_eq!(v.fields["frame.chainstay_mm"], "435");
+        assert_eq!(v.fields["frame.head_angle_deg"], "65.0");
+        assert!(v.omitted.is_empty(), "{:?}", v.omitted);
+        let (back, errors) = scenario_from_form(&v.fields);
+        assert!(errors.is_empty(), "{errors:?}");
+        assert_eq!(back, s);
+        // A tolerance no typed text gives is listed, not lost silently.
+        s.bikes[0].frame.insert(
+            "stack_mm".into(),
+            Published::WithTolerance {
+                value: 635.0,
+                tolerance: 3.0,
+            },
+        );
+        let v = form_view(&s);
+        assert_eq!(v.fields["frame.stack_mm"], "635");
+        assert_eq!(v.omitted, ["bikes[0].frame.stack_mm.tolerance"]);
     }
 
     #[test]

@@ -21,4 +21,4 @@ pub use form::scenario_from_form;
 pub use form_inverse::{form_from_scenario, form_view, FormView};
 pub use json::{report_to_json, scenario_from_json};
 pub use link::{decode_link, encode_link, LinkError, LINK_VERSION};
-pub use units::{parse_quantity, Quantity, UnitError};
+pub use units::{parse_quantity, parse_quantity_step, Quantity, UnitError};

@@ -108,6 +108,29 @@ pub fn parse_quantity(text: &str, q: Quantity) -> Result<f64, UnitError> {
     parse_number(num).map(|v| v * factor).ok_or_else(bad)
 }
 
+/// Parses a typed value like [`parse_quantity`] and also returns its rounding step in the result
+/// unit: one unit of its last typed digit times the unit's factor. `99 cm` → (990, 10 mm),
+/// `99.5 cm` → (995, 1 mm), `470` → (470, 1 mm), `470.5` → (470.5, 0.1 mm), `18.5 in` →
+/// (469.9, 2.54 mm), `65°` → (65, 1°), `64.5` → (64.5, 0.1°). A number in exponent notation has
+/// no step (`None`): its digits do not say how it was rounded.
+///
+/// # Errors
+/// As [`parse_quantity`].
+pub fn parse_quantity_step(text: &str, q: Quantity) -> Result<(f64, Option<f64>), UnitError> {
+    let value = parse_quantity(text, q)?;
+    let lower = text.trim().to_ascii_lowercase();
+    let step = split_unit(&lower, q).and_then(|(num, factor)| {
+        let num = num.replace(',', ".");
+        if num.contains(['e', 'E']) {
+            return None;
+        }
+        let decimals = num.split_once('.').map_or(0, |(_, frac)| frac.len());
+        let decimals = i32::try_from(decimals).ok()?;
+        Some(factor * 10f64.powi(-decimals))
+    });
+    Ok((value, step))
+}
+
 fn split_unit(t: &str, q: Quantity) -> Option<(&str, f64)> {
     let units: &[(&str, f64)] = match q {
         Quantity::Length => &[
@@ -155,6 +178,22 @@ mod tests {
         assert_eq!(len("18,5\""), Some(469.9));
         assert_eq!(len("abc"), None);
         assert_eq!(len("4 70"), None);
+    }
+
+    #[test]
+    fn the_step_is_one_unit_of_the_last_typed_digit() {
+        let step = |t: &str, q| parse_quantity_step(t, q).ok().and_then(|(_, s)| s);
+        let close = |a: Option<f64>, b: f64| a.is_some_and(|a| (a - b).abs() < 1e-9);
+        assert!(close(step("99 cm", Quantity::Length), 10.0));
+        assert!(close(step("99,5 cm", Quantity::Length), 1.0));
+        assert!(close(step("470", Quantity::Length), 1.0));
+        assert!(close(step("470.5 mm", Quantity::Length), 0.1));
+        assert!(close(step("18.5\"", Quantity::Length), 2.54));
+        assert!(close(step("65°", Quantity::Angle), 1.0));
+        assert!(close(step("64.5", Quantity::Angle), 0.1));
+        assert!(close(step("64.50", Quantity::Angle), 0.01));
+        assert_eq!(step("4.7e2", Quantity::Length), None);
+        assert!(parse_quantity_step("long", Quantity::Length).is_err());
     }
 
     #[test]

@@ -75,7 +75,17 @@ mod tests {
         let link = link_from_form(FORM, r#"{"units":"in","dimensions":true}"#).unwrap();
         assert!(link.starts_with('#'));
         let v: serde_json::Value = serde_json::from_str(&form_from_link(&link).unwrap()).unwrap();
-        assert_eq!(v["fields"]["frame.reach_mm"], "470");
+        // "47 cm" is good to the centimetre: the link keeps that rounding, so the form shows it
+        // as typed (a "470" would read as good to the millimetre).
+        assert_eq!(v["fields"]["frame.reach_mm"], "47 cm");
+        assert_eq!(v["fields"]["frame.stack_mm"], "635");
+        assert_eq!(v["omitted"], serde_json::json!([]));
+        // The same form gives the same link again.
+        let form = serde_json::to_string(&v["fields"]).unwrap();
+        assert_eq!(
+            link_from_form(&form, r#"{"units":"in","dimensions":true}"#).unwrap(),
+            link
+        );
         assert_eq!(v["fields"]["frame.head_angle_deg"], "64.5");
         assert_eq!(v["fields"]["label"], "Trail M");
         assert_eq!(v["fields"]["rider.height_mm"], "1780");

@@ -464,6 +464,8 @@ fn size_labels(cells: &[String], n: usize) -> Vec<ChartSize> {
         out.push(ChartSize {
             label,
             frame: BTreeMap::new(),
+            tolerances: BTreeMap::new(),
+            text: BTreeMap::new(),
             wheels: Default::default(),
         });
     }

@@ -81,6 +81,9 @@ pub struct Num {
     pub mark: Option<Mark>,
     /// Single value, range or pair.
     pub spread: Spread,
+    /// How it was rounded, in the written unit: one unit of the last written digit (`99` → 1,
+    /// `64.5` → 0.1), the fraction's step (`17½` → 0.5), for a range its width (`64–65` → 1).
+    pub step: f64,
 }
 
 /// What a cell holds.
@@ -181,6 +184,7 @@ fn parse_spread(s: &str, thousands_dot: bool) -> Option<Num> {
                 value: (lo + hi) / 2.0,
                 mark: b.mark.or(a.mark),
                 spread: Spread::Range(lo, hi),
+                step: a.step.max(b.step).max(hi - lo),
             });
         }
     }
@@ -193,6 +197,7 @@ fn parse_spread(s: &str, thousands_dot: bool) -> Option<Num> {
         value: a.value,
         mark: a.mark.or(b.mark),
         spread: Spread::Pair(a.value, b.value),
+        step: a.step.max(b.step),
     })
 }
 
@@ -223,11 +228,34 @@ fn parse_marked(s: &str, thousands_dot: bool) -> Option<Num> {
         Some(Mark::from_word(unit)?)
     };
     let value = parse_plain(num, thousands_dot)? + frac;
+    let step = if frac > 0.0 {
+        fraction_step(frac)
+    } else {
+        plain_step(num, thousands_dot)
+    };
     Some(Num {
         value,
         mark,
         spread: Spread::Single,
+        step,
     })
+}
+
+/// The step of a vulgar fraction: ½ → 0.5, ¾ → 0.25, ⅜ → 0.125 (up to 1/32).
+fn fraction_step(frac: f64) -> f64 {
+    [2.0, 4.0, 8.0, 16.0, 32.0]
+        .into_iter()
+        .find(|b| (frac * b - (frac * b).round()).abs() < 1e-9)
+        .map_or(1.0 / 32.0, |b| 1.0 / b)
+}
+
+/// One unit of the last written digit of a plain number (`470` → 1, `1.180,5` → 0.1); 1 when
+/// the text does not read.
+pub fn plain_step(text: &str, thousands_dot: bool) -> f64 {
+    let decimals = normalise(text, thousands_dot)
+        .and_then(|n| n.split_once('.').map(|(_, f)| f.len()))
+        .unwrap_or(0);
+    i32::try_from(decimals).map_or(1.0, |d| 10f64.powi(-d))
 }
 
 /// Splits a trailing vulgar fraction: `17½`, `17 1/2` (the `/2` arrives in `unit`).
@@ -262,6 +290,13 @@ fn split_fraction<'a>(num: &'a str, unit: &'a str) -> (&'a str, &'a str, f64) {
 
 /// A plain decimal number: decimal point or comma, thousands separators, a sign.
 pub fn parse_plain(text: &str, thousands_dot: bool) -> Option<f64> {
+    let normal = normalise(text, thousands_dot)?;
+    let v: f64 = normal.parse().ok()?;
+    v.is_finite().then_some(v)
+}
+
+/// The number as Rust reads it (`1.180,5` → `1180.5`), or `None` when it is not one.
+fn normalise(text: &str, thousands_dot: bool) -> Option<String> {
     let t = text.trim().replace('−', "-");
     let t = collapse_spaced_thousands(&t)?;
     let has_comma = t.contains(',');
@@ -288,11 +323,7 @@ pub fn parse_plain(text: &str, thousands_dot: bool) -> Option<f64> {
     let ok = !digits.is_empty()
         && digits.chars().any(|c| c.is_ascii_digit())
         && digits.chars().all(|c| c.is_ascii_digit() || c == '.');
-    if !ok {
-        return None;
-    }
-    let v: f64 = normal.parse().ok()?;
-    v.is_finite().then_some(v)
+    ok.then_some(normal)
 }
 
 /// `1 180` → `1180` (a space before exactly three digits); any other inner space fails.

@@ -518,7 +518,16 @@ fn write_row(
             );
             continue;
         }
-        size.frame.insert(row.m.key.to_string(), value);
+        let key = row.m.key;
+        let tolerance = num.step * unit.factor();
+        let coarse = tolerance > row.m.default_tolerance() * (1.0 + 1e-9);
+        if coarse {
+            size.tolerances.insert(key.to_string(), tolerance);
+        }
+        let text = crate::form_inverse::published_text(key, value, coarse.then_some(tolerance))
+            .unwrap_or_else(|| crate::form_inverse::number_text(value));
+        size.frame.insert(key.to_string(), value);
+        size.text.insert(key.to_string(), text);
     }
 }
 

@@ -15,10 +15,13 @@
 //! headset stack 0 mm, seat axis offset 0 mm) take it, the others a typical value, each with a
 //! warning, and `missing` names measurements that would fix them. A fixed unknown lies along a
 //! direction the published numbers cannot see, so it does not move the determined ones.
-//! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`.
+//! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`, or when what the
+//! other values alone predict for it is further off than that and than rounding explains
+//! (`diagnose`); the warning quotes those predictions (`explain`).
 
 mod blame;
 mod diagnose;
+mod explain;
 mod fit;
 mod model;
 mod plan;
@@ -51,8 +54,15 @@ pub struct Residual {
     pub solved: f64,
     /// `solved − given`.
     pub residual: f64,
-    /// `|residual| ≤ 2.5 × tolerance`.
+    /// False when the value disagrees with the rest: its residual exceeds 2.5 × its tolerance,
+    /// or what the other values alone predict for it (`from_others`) is further from it than
+    /// 2.5 × its tolerance and than rounding explains (`diagnose::checks`).
     pub consistent: bool,
+    /// What the *other* given values alone predict for this one, in its unit: when some value
+    /// disagrees, the frame refitted without it; else the first-order leave-one-out estimate; `None` (left out of the JSON, which has no nulls) when no other value
+    /// checks it.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub from_others: Option<f64>,
 }
 
 /// The solved frame with its diagnostics.
@@ -126,29 +136,50 @@ pub fn solve(
     let predicted = model.predict(&best.x).ok_or_else(|| no_solution(prefix))?;
     let mut warnings = assumption_warnings(&plan, &x0, front);
     let mut residuals = BTreeMap::new();
-    let mut bad = Vec::new();
-    let flags = diagnose::consistency(&model, &best.x, &rows, &plan.free)
-        .ok_or_else(|| no_solution(prefix))?;
-    for (row, &consistent) in rows.iter().zip(&flags) {
-        let solved = predicted.get(row.index).copied().unwrap_or(row.value);
-        let residual = solved - row.value;
-        if !consistent {
-            bad.push((row.index, row.value, solved));
+    let checks =
+        diagnose::checks(&model, &best.x, &rows, &plan.free).ok_or_else(|| no_solution(prefix))?;
+    let mut findings: Vec<explain::Finding> = rows
+        .iter()
+        .zip(&checks)
+        .map(|(row, c)| explain::Finding {
+            index: row.index,
+            given: row.value,
+            solved: predicted.get(row.index).copied().unwrap_or(row.value),
+            tolerance: row.tolerance,
+            from_others: c.from_others,
+            consistent: c.consistent,
+        })
+        .collect();
+    let mut suspects = Vec::new();
+    if findings.iter().any(|f| !f.consistent) {
+        let left_out = diagnose::leave_each_out(&model, &best.x, &rows, &plan.free);
+        for f in &mut findings {
+            let refit = left_out.iter().find(|l| l.index == f.index);
+            if let Some(p) = refit.and_then(|l| l.predicted) {
+                f.from_others = Some(p);
+            }
         }
-        let key = MEASURED_KEYS.get(row.index).copied().unwrap_or("?");
+        suspects = left_out
+            .iter()
+            .filter(|l| l.rest_agree)
+            .map(|l| l.index)
+            .collect();
+    }
+    for f in &findings {
+        let key = MEASURED_KEYS.get(f.index).copied().unwrap_or("?");
         residuals.insert(
             key.to_string(),
             Residual {
-                given: row.value,
-                solved,
-                residual,
-                consistent,
+                given: f.given,
+                solved: f.solved,
+                residual: f.solved - f.given,
+                consistent: f.consistent,
+                from_others: f.from_others,
             },
         );
     }
-    if !bad.is_empty() {
-        let suspects = diagnose::suspects(&model, &best.x, &rows, &plan.free);
-        warnings.push(diagnose::warning(&bad, &suspects));
+    if findings.iter().any(|f| !f.consistent) {
+        warnings.push(explain::warning(&findings, &suspects));
     }
     Ok(Solution {
         params,

@@ -1,0 +1,154 @@
+//! The `inconsistent` warning in plain words: what the other numbers predict for each value that
+//! disagrees, and which value (or which one of several) would explain it.
+//!
+//! Three cases, from the suspects of [`super::diagnose::leave_each_out`] (the values whose removal
+//! lets the rest agree):
+//! - one suspect: it is named, with what the other numbers give for it;
+//! - several: the values form one loop that does not close (say reach, head angle, fork and
+//!   chainstay against a published wheelbase). Any one of them would close it, so they are named
+//!   once, each with the change that would do it, and the sentence says the numbers cannot tell
+//!   which;
+//! - none: every value that disagrees is listed; more than one may be wrong.
+//!
+//! Every figure quoted is the leave-one-out prediction (the frame refitted without the value,
+//! [`super::diagnose::LeftOut::predicted`], or to first order
+//! [`super::diagnose::Check::from_others`]), never the best fit, which includes the published
+//! value itself.
+
+use crate::catalogue::lookup;
+use crate::error::{fmt_disagreement, Warning};
+use crate::geometry::MEASURED_KEYS;
+
+/// One given value as the explanation needs it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Finding {
+    /// Index into [`MEASURED_KEYS`].
+    pub index: usize,
+    /// As published.
+    pub given: f64,
+    /// As the solved frame has it.
+    pub solved: f64,
+    /// Its tolerance (rounding step), same unit.
+    pub tolerance: f64,
+    /// What the other values alone predict (`None`: nothing else checks it).
+    pub from_others: Option<f64>,
+    /// Whether it agrees with the rest.
+    pub consistent: bool,
+}
+
+fn key(index: usize) -> &'static str {
+    MEASURED_KEYS.get(index).copied().unwrap_or("?")
+}
+
+/// The measurement's name as the page and the charts say it (its catalogue label), not its key.
+fn label(index: usize) -> &'static str {
+    let k = key(index);
+    lookup(k).map_or(k, |m| m.label)
+}
+
+/// `[given, predicted, gap]` as text (whole mm or tenths of a degree, see [`fmt_disagreement`]);
+/// `None` when nothing else checks the value or the two read alike.
+fn quoted(f: &Finding) -> Option<[String; 3]> {
+    let p = f.from_others?;
+    let t = fmt_disagreement(f.given, p, key(f.index).ends_with("_deg"));
+    (t[0] != t[1]).then_some(t)
+}
+
+/// "Reach is published as 490 mm but the other numbers give 470 mm, 20 mm away", or for a value
+/// nothing else checks, what the solved frame makes of it.
+fn disagreement(f: &Finding) -> String {
+    let name = label(f.index);
+    match quoted(f) {
+        Some([given, other, gap]) => {
+            format!("{name} is published as {given} but the other numbers give {other}, {gap} away")
+        }
+        None => {
+            let [given, solved, _] =
+                fmt_disagreement(f.given, f.solved, key(f.index).ends_with("_deg"));
+            format!("{name} is published as {given}, which no other number checks, but the fit makes it {solved}")
+        }
+    }
+}
+
+/// The warning for inconsistent values (see the module documentation).
+pub fn warning(findings: &[Finding], suspects: &[usize]) -> Warning {
+    let of = |i: usize| findings.iter().find(|f| f.index == i);
+    let named: Vec<&Finding> = suspects.iter().filter_map(|&i| of(i)).collect();
+    let msg = match named.as_slice() {
+        [one] => one_suspect(findings, one),
+        [] => no_suspect(findings),
+        many => one_loop(many),
+    };
+    Warning::new("inconsistent", msg)
+}
+
+fn one_suspect(findings: &[Finding], suspect: &Finding) -> String {
+    let mut msg = format!(
+        "The published numbers disagree: {}. Most likely wrong: {}; without it the rest agree.",
+        disagreement(suspect),
+        label(suspect.index)
+    );
+    let others: Vec<&str> = findings
+        .iter()
+        .filter(|f| !f.consistent && f.index != suspect.index)
+        .map(|f| label(f.index))
+        .collect();
+    if !others.is_empty() {
+        msg.push_str(&format!(
+            " The other marked values ({}) are off only through it.",
+            others.join(", ")
+        ));
+    }
+    msg
+}
+
+fn no_suspect(findings: &[Finding]) -> String {
+    let list: Vec<String> = findings
+        .iter()
+        .filter(|f| !f.consistent)
+        .map(disagreement)
+        .collect();
+    format!(
+        "The published numbers disagree: {}. No single value explains it; more than one may be wrong, or they were measured differently.",
+        list.join("; ")
+    )
+}
+
+/// Several suspects: one loop of values that does not close, said once, the values needing the
+/// fewest rounding steps of change first (the likelier misprints).
+fn one_loop(members: &[&Finding]) -> String {
+    let mut members = members.to_vec();
+    members.sort_by(|a, b| steps_off(a).total_cmp(&steps_off(b)));
+    let names: Vec<&str> = members.iter().map(|f| label(f.index)).collect();
+    let changes: Vec<String> = members
+        .iter()
+        .filter_map(|f| {
+            let [given, other, gap] = quoted(f)?;
+            Some(format!(
+                "{} by {gap} ({given} published, {other} from the others)",
+                label(f.index)
+            ))
+        })
+        .collect();
+    format!(
+        "The published numbers disagree: {} do not fit one frame together. Any one of them being off by about this much would explain it: {}. The numbers alone cannot tell which one it is.",
+        join_and(&names),
+        changes.join("; ")
+    )
+}
+
+/// How many of its own rounding steps a value is from what the others give (infinite when nothing
+/// else checks it).
+fn steps_off(f: &Finding) -> f64 {
+    f.from_others
+        .map_or(f64::INFINITY, |p| ((p - f.given) / f.tolerance).abs())
+}
+
+/// "A, B and C".
+fn join_and(names: &[&str]) -> String {
+    match names {
+        [] => String::new(),
+        [one] => (*one).to_string(),
+        [rest @ .., last] => format!("{} and {last}", rest.join(", ")),
+    }
+}
