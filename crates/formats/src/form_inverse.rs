@@ -232,20 +232,13 @@ mod tests {
                 tolerance: 10.0,
             },
         );
-        frame.insert(
-            "seat_angle_effective_deg".into(),
-            Published::WithTolerance {
-                value: 77.0,
-                tolerance: 1.0,
-            },
-        );
         frame.insert("chainstay_mm".into(), Published::Value(435.0));
         frame.insert("head_angle_deg".into(), Published::Value(65.0));
         let v = form_view(&s);
         assert_eq!(v.fields["frame.wheelbase_mm"], "123 cm");
-        assert_eq!(v.fields["frame.seat_angle_effective_deg"], "77");
         assert_eq!(v.fields["frame.chainstay_mm"], "435");
-        assert_eq!(v.fields["frame.head_angle_deg"], "65.0");
+        // Angles keep the default rounding however they are typed (units::parse_quantity_step).
+        assert_eq!(v.fields["frame.head_angle_deg"], "65");
         assert!(v.omitted.is_empty(), "{:?}", v.omitted);
         let (back, errors) = scenario_from_form(&v.fields);
         assert!(errors.is_empty(), "{errors:?}");
@@ -258,9 +251,23 @@ mod tests {
                 tolerance: 3.0,
             },
         );
+        s.bikes[0].frame.insert(
+            "seat_angle_effective_deg".into(),
+            Published::WithTolerance {
+                value: 77.0,
+                tolerance: 1.0,
+            },
+        );
         let v = form_view(&s);
         assert_eq!(v.fields["frame.stack_mm"], "635");
-        assert_eq!(v.omitted, ["bikes[0].frame.stack_mm.tolerance"]);
+        assert_eq!(v.fields["frame.seat_angle_effective_deg"], "77");
+        assert_eq!(
+            v.omitted,
+            [
+                "bikes[0].frame.seat_angle_effective_deg.tolerance",
+                "bikes[0].frame.stack_mm.tolerance"
+            ]
+        );
     }
 
     #[test]

@@ -111,14 +111,22 @@ pub fn parse_quantity(text: &str, q: Quantity) -> Result<f64, UnitError> {
 /// Parses a typed value like [`parse_quantity`] and also returns its rounding step in the result
 /// unit: one unit of its last typed digit times the unit's factor. `99 cm` → (990, 10 mm),
 /// `99.5 cm` → (995, 1 mm), `470` → (470, 1 mm), `470.5` → (470.5, 0.1 mm), `18.5 in` →
-/// (469.9, 2.54 mm), `65°` → (65, 1°), `64.5` → (64.5, 0.1°). A number in exponent notation has
-/// no step (`None`): its digits do not say how it was rounded.
+/// (469.9, 2.54 mm). A number in exponent notation has no step (`None`): its digits do not say
+/// how it was rounded.
+///
+/// An angle has no step either (`65°` → (65, `None`)): charts print angles in whole or half
+/// degrees as design values, not as measurements rounded to the degree, and a degree of play
+/// would let one wrong length turn the solved head angle by degrees (a wheelbase 40 mm long made
+/// it 61° for a published 65°). Angles keep the solver's default rounding (0.1°).
 ///
 /// # Errors
 /// As [`parse_quantity`].
 pub fn parse_quantity_step(text: &str, q: Quantity) -> Result<(f64, Option<f64>), UnitError> {
     let value = parse_quantity(text, q)?;
     let lower = text.trim().to_ascii_lowercase();
+    if q == Quantity::Angle {
+        return Ok((value, None));
+    }
     let step = split_unit(&lower, q).and_then(|(num, factor)| {
         let num = num.replace(',', ".");
         if num.contains(['e', 'E']) {
@@ -189,9 +197,9 @@ mod tests {
         assert!(close(step("470", Quantity::Length), 1.0));
         assert!(close(step("470.5 mm", Quantity::Length), 0.1));
         assert!(close(step("18.5\"", Quantity::Length), 2.54));
-        assert!(close(step("65°", Quantity::Angle), 1.0));
-        assert!(close(step("64.5", Quantity::Angle), 0.1));
-        assert!(close(step("64.50", Quantity::Angle), 0.01));
+        // Angles keep the default rounding (see the function's doc).
+        assert_eq!(step("65°", Quantity::Angle), None);
+        assert_eq!(step("64.5", Quantity::Angle), None);
         assert_eq!(step("4.7e2", Quantity::Length), None);
         assert!(parse_quantity_step("long", Quantity::Length).is_err());
     }

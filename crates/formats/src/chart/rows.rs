@@ -520,7 +520,9 @@ fn write_row(
         }
         let key = row.m.key;
         let tolerance = num.step * unit.factor();
-        let coarse = tolerance > row.m.default_tolerance() * (1.0 + 1e-9);
+        // Angles keep the default rounding ([`crate::units::parse_quantity_step`]).
+        let angle = row.m.unit.symbol() == "°";
+        let coarse = !angle && tolerance > row.m.default_tolerance() * (1.0 + 1e-9);
         if coarse {
             size.tolerances.insert(key.to_string(), tolerance);
         }
