@@ -39,6 +39,9 @@ pub enum Kind {
     Wheels(WheelSlot),
     /// The size row ("Size", "Frame size", or a blank corner cell).
     Size,
+    /// A part the page has an input for but that is no frame number ("Stem length", "Crank
+    /// length", "Bar width"): the page form field's name (`setup.stem_mm`).
+    Part(&'static str),
     /// A column of row numbers ("#", "No.").
     RowNumber,
     /// Anything else.
@@ -98,6 +101,18 @@ const BLOCKERS: &[&str] = &[
     "color",
     "bottle",
     "width",
+];
+
+/// Parts the page has an input for, by the whole of their label's words (after fillers such
+/// as "length" are dropped): the page form field's name.
+const PARTS: &[(&[&str], &str)] = &[
+    (&["stem"], "setup.stem_mm"),
+    (&["crank"], "setup.crank_mm"),
+    (&["cranks"], "setup.crank_mm"),
+    (&["crank", "arm"], "setup.crank_mm"),
+    (&["bar", "width"], "setup.bar_width_mm"),
+    (&["handlebar", "width"], "setup.bar_width_mm"),
+    (&["handlebars", "width"], "setup.bar_width_mm"),
 ];
 
 /// Words with no meaning for the match.
@@ -316,6 +331,9 @@ fn key_words(key: &str) -> &'static [&'static str] {
 fn match_words(words: &[String]) -> Kind {
     let has = |w: &str| words.iter().any(|x| x == w);
     let only = |allowed: &[&str]| words.iter().all(|x| allowed.contains(&x.as_str()));
+    if let Some((_, field)) = PARTS.iter().find(|(p, _)| p.iter().eq(words.iter())) {
+        return Kind::Part(field);
+    }
     if words.iter().any(|w| BLOCKERS.contains(&w.as_str())) {
         return Kind::Unknown;
     }
@@ -480,14 +498,20 @@ mod tests {
         assert_eq!(key("3) Stack"), Kind::Key("stack_mm"));
         assert!(is_tight("Seat tube angle (eff.)") && is_tight("Fork offset"));
         assert!(!is_tight("Stack Head angle") && !is_tight("Top tube (eff.) BB"));
+        assert_eq!(key("Stem length"), Kind::Part("setup.stem_mm"));
+        assert_eq!(key("Stem (mm)"), Kind::Part("setup.stem_mm"));
+        assert_eq!(key("Crank Length"), Kind::Part("setup.crank_mm"));
+        assert_eq!(key("Crank arm length"), Kind::Part("setup.crank_mm"));
+        assert_eq!(key("Bar Width"), Kind::Part("setup.bar_width_mm"));
+        assert_eq!(key("Handlebar width"), Kind::Part("setup.bar_width_mm"));
         for other in [
-            "Stem length",
+            "Stem angle",
+            "Bar rise",
             "Stack/reach ratio",
             "Rider height",
             "Fork travel",
             "Max. seatpost insertion",
             "Mechanical trail",
-            "Crank length",
             "Saddle height",
         ] {
             assert_eq!(key(other), Kind::Unknown, "{other}");

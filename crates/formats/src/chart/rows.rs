@@ -54,6 +54,7 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
             Kind::Ambiguous(a) => ambiguous.push((place, row, a)),
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
+            Kind::Part(field) => log.note(&row.label.text, part_note(field)),
             Kind::Size | Kind::Unknown => {
                 let name = if row.label.text.is_empty() {
                     "(a row without a label)".to_string()
@@ -76,6 +77,23 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
     for row in &keyed {
         write_row(sizes, row, global, consensus, log);
     }
+}
+
+/// What a row naming a part the page has an input for says: it is read as that part, is no
+/// frame number, and where the page's input is ("recognised as the stem length, not a frame
+/// number: set it under Cockpit").
+fn part_note(field: &str) -> String {
+    let Some(f) = crate::fields::field(field) else {
+        return "not a frame number, so not read".into();
+    };
+    let group = crate::fields::GROUPS
+        .iter()
+        .find(|g| g.id == f.group)
+        .map_or("the page's inputs", |g| g.title);
+    format!(
+        "recognised as the {}, not a frame number: set it under {group}",
+        f.label.to_ascii_lowercase()
+    )
 }
 
 fn push_keyed(
