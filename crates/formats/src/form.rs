@@ -202,7 +202,13 @@ fn example(f: Option<&Field>) -> Option<f64> {
         .strip_prefix("frame.")
         .and_then(framewise_kernel::lookup)?;
     let step = if f.kind == Kind::Deg { 0.5 } else { 5.0 };
-    Some(((m.plausible.0 + m.plausible.1) / 2.0 / step).round() * step)
+    Some(nearest((m.plausible.0 + m.plausible.1) / 2.0 / step) as f64 * step)
+}
+
+/// The whole number nearest a positive `v` (an integer cast: `f64::round` is a library call in
+/// wasm).
+fn nearest(v: f64) -> i64 {
+    (v + 0.5) as i64
 }
 
 /// What a field of quantity `q` takes, with `example` written in the units it accepts:
@@ -221,19 +227,15 @@ fn wanted(example: Option<f64>, q: Quantity) -> String {
             Quantity::Mass => "a mass in kg, or add lb after the number".into(),
         };
     };
-    let inches = (v / MM_PER_IN * 10.0).round() / 10.0;
+    let inches = nearest(v / MM_PER_IN * 10.0) as f64 / 10.0;
     let (mm, cm, inch) = (fmt_num(v), fmt_num(v / 10.0), fmt_num(inches));
     match q {
         Quantity::Length if v > 0.0 => format!("a length such as {mm} mm, {cm} cm or {inch} in"),
         Quantity::Length => format!("a length in mm such as {mm}"),
         Quantity::BodyLength => {
-            let whole = (v / MM_PER_IN).round();
-            let (feet, rest) = ((whole / 12.0).floor(), whole % 12.0);
-            format!(
-                "a length such as {mm} mm, {cm} cm or {}'{}\"",
-                fmt_num(feet),
-                fmt_num(rest)
-            )
+            let whole = nearest(v / MM_PER_IN);
+            let (feet, rest) = (whole / 12, whole % 12);
+            format!("a length such as {mm} mm, {cm} cm or {feet}'{rest}\"")
         }
         Quantity::Angle => format!("an angle in degrees such as {}°", fmt_num(v)),
         Quantity::Percent => format!("a percentage such as {} %", fmt_num(v)),

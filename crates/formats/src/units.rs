@@ -156,9 +156,12 @@ fn unbracket(t: &str) -> String {
 /// under 12 with or without an inch mark ([`INCH_MARKS`], `in`). `None` when the text is not
 /// written so (`5.5'` is not read: it could mean 5'5" or 5'6").
 fn feet_and_inches(t: &str) -> Option<f64> {
-    let (feet, rest) = FOOT_MARKS.iter().find_map(|m| {
-        let at = t.find(m)?;
-        Some((t.get(..at)?, t.get(at + m.len()..)?))
+    // The first foot mark after the digits (a plain scan: no substring searcher in the page's
+    // module).
+    let (feet, rest) = t.char_indices().find_map(|(at, _)| {
+        let tail = t.get(at..)?;
+        let mark = FOOT_MARKS.iter().find(|m| tail.starts_with(**m))?;
+        Some((t.get(..at)?, tail.get(mark.len()..)?))
     })?;
     let feet = feet.trim();
     if feet.is_empty() || !feet.chars().all(|c| c.is_ascii_digit()) {
