@@ -85,6 +85,8 @@ impl fmt::Display for UnitError {
 impl std::error::Error for UnitError {}
 
 /// Parses a decimal number, accepting a decimal comma and a leading `+` or `−`.
+// Called from several places: one copy keeps the page's module small.
+#[inline(never)]
 pub fn parse_number(text: &str) -> Option<f64> {
     let t = text.trim().replace('\u{2212}', "-").replace(',', ".");
     if t.is_empty()
@@ -133,9 +135,9 @@ pub const MM_PER_FT: f64 = 12.0 * MM_PER_IN;
 
 /// Marks written after a number of inches: straight and curly double quotes, the double prime,
 /// two apostrophes or two primes (a keyboard without `"`).
-const INCH_MARKS: &[&str] = &["\"", "″", "”", "“", "''", "’’", "′′"];
+static INCH_MARKS: &[&str] = &["\"", "″", "”", "“", "''", "’’", "′′"];
 /// Marks written after a number of feet: apostrophe, curly apostrophe, prime, `ft`.
-const FOOT_MARKS: &[&str] = &["feet", "foot", "ft", "'", "’", "′"];
+static FOOT_MARKS: &[&str] = &["feet", "foot", "ft", "'", "’", "′"];
 
 /// A unit in brackets after the number (`470 (mm)`, `47 [cm]`, `65 (°)`) without them.
 fn unbracket(t: &str) -> String {
@@ -145,16 +147,19 @@ fn unbracket(t: &str) -> String {
         .or_else(|| t.strip_suffix(']').and_then(|r| r.rsplit_once('[')));
     match inner {
         Some((num, unit)) if !unit.trim().is_empty() => {
-            format!("{}{}", num.trim_end(), unit.trim())
+            let mut joined = num.trim_end().to_string();
+            joined.push_str(unit.trim());
+            joined
         }
         _ => t.to_string(),
     }
 }
 
-/// Feet and inches: `5'10"` = 5 × 304.8 + 10 × 25.4 = 1778 mm. The feet are a whole number
+/// Feet and inches: `5'10"` = 5 × 304.8 + 10 × 25.4 = 1778 mm. The feet are one digit
 /// followed by a foot mark ([`FOOT_MARKS`]); the inches after it, if any, are a number from 0 to
 /// under 12 with or without an inch mark ([`INCH_MARKS`], `in`). `None` when the text is not
 /// written so (`5.5'` is not read: it could mean 5'5" or 5'6").
+#[inline(never)]
 fn feet_and_inches(t: &str) -> Option<f64> {
     // The first foot mark after the digits (a plain scan: no substring searcher in the page's
     // module).
@@ -163,15 +168,15 @@ fn feet_and_inches(t: &str) -> Option<f64> {
         let mark = FOOT_MARKS.iter().find(|m| tail.starts_with(**m))?;
         Some((t.get(..at)?, tail.get(mark.len()..)?))
     })?;
-    let feet = feet.trim();
-    if feet.is_empty() || !feet.chars().all(|c| c.is_ascii_digit()) {
+    // One digit: a person is 1 to 9 feet tall.
+    let [digit @ b'0'..=b'9'] = feet.trim().as_bytes() else {
         return None;
-    }
-    let feet: f64 = feet.parse().ok()?;
+    };
+    let feet = f64::from(digit - b'0');
     let rest = rest.trim();
     let rest = INCH_MARKS
         .iter()
-        .chain(&["inches", "inch", "in"])
+        .chain(["inches", "inch", "in"].iter())
         .find_map(|m| rest.strip_suffix(m))
         .unwrap_or(rest)
         .trim();
@@ -183,33 +188,43 @@ fn feet_and_inches(t: &str) -> Option<f64> {
     Some(feet * MM_PER_FT + inches * MM_PER_IN)
 }
 
+/// Length units after a number, with millimetres per unit.
+static LENGTH_UNITS: &[(&str, f64)] = &[
+    ("mm", 1.0),
+    ("cm", 10.0),
+    ("inches", MM_PER_IN),
+    ("inch", MM_PER_IN),
+    ("in", MM_PER_IN),
+    ("\"", MM_PER_IN),
+    ("″", MM_PER_IN),
+    ("”", MM_PER_IN),
+    ("“", MM_PER_IN),
+    ("''", MM_PER_IN),
+    ("’’", MM_PER_IN),
+    ("′′", MM_PER_IN),
+    ("m", 1000.0),
+];
+/// Angle units after a number (degrees).
+static ANGLE_UNITS: &[(&str, f64)] = &[
+    ("degrees", 1.0),
+    ("degree", 1.0),
+    ("deg", 1.0),
+    ("°", 1.0),
+    ("º", 1.0),
+    ("˚", 1.0),
+];
+/// Percent marks after a number.
+static PERCENT_UNITS: &[(&str, f64)] = &[("%", 1.0), ("pct", 1.0)];
+/// Kilograms per pound, exactly (the same 1959 agreement).
+static MASS_UNITS: &[(&str, f64)] = &[("kg", 1.0), ("lb", 0.453_592_37), ("lbs", 0.453_592_37)];
+
+#[inline(never)]
 fn split_unit(t: &str, q: Quantity) -> Option<(&str, f64)> {
-    let units: &[(&str, f64)] = match q {
-        Quantity::Length | Quantity::BodyLength => &[
-            ("mm", 1.0),
-            ("cm", 10.0),
-            ("inches", MM_PER_IN),
-            ("inch", MM_PER_IN),
-            ("in", MM_PER_IN),
-            ("\"", MM_PER_IN),
-            ("″", MM_PER_IN),
-            ("”", MM_PER_IN),
-            ("“", MM_PER_IN),
-            ("''", MM_PER_IN),
-            ("’’", MM_PER_IN),
-            ("′′", MM_PER_IN),
-            ("m", 1000.0),
-        ],
-        Quantity::Angle => &[
-            ("degrees", 1.0),
-            ("degree", 1.0),
-            ("deg", 1.0),
-            ("°", 1.0),
-            ("º", 1.0),
-            ("˚", 1.0),
-        ],
-        Quantity::Percent => &[("%", 1.0), ("pct", 1.0)],
-        Quantity::Mass => &[("kg", 1.0), ("lb", 0.453_592_37), ("lbs", 0.453_592_37)],
+    let units = match q {
+        Quantity::Length | Quantity::BodyLength => LENGTH_UNITS,
+        Quantity::Angle => ANGLE_UNITS,
+        Quantity::Percent => PERCENT_UNITS,
+        Quantity::Mass => MASS_UNITS,
     };
     for (u, f) in units {
         if let Some(n) = t.strip_suffix(u) {
