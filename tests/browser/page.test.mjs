@@ -82,14 +82,14 @@ for (const [name, width, height] of SIZES) {
     const good = await page.locator('#drawing svg').innerHTML();
     const table = await page.locator('#results').innerHTML();
     const cases = [
-      ['frame.head_angle_deg', 'steep', /"steep" is not a number/],
-      ['frame.head_angle_deg', '', /^Required: enter an angle/],
+      ['frame.head_angle_deg', 'steep', /^Head tube angle "steep" is not a number; enter an angle in degrees such as 65°\.$/],
+      ['frame.head_angle_deg', '', /^Head tube angle is required: enter an angle/],
       ['frame.head_angle_deg', '95', /Head tube angle must be between 45 and 85°, got 95/],
       // Inside its own range, but with the other numbers no frame: said beside the head angle the
       // person typed, not on the blank BB drop (crates/kernel/src/solve/blame.rs).
       ['frame.head_angle_deg', '45', /^The published head tube angle 45\.0°, stack 635 mm and head tube length 110 mm together put the BB drop at 183 mm, which no frame can have \(allowed -150 to 150 mm\); check the head tube angle first/],
       ['wheels.front', '31x9', /not recognised/],
-      ['rider.height_mm', 'tall', /"tall" is not a number/],
+      ['rider.height_mm', 'tall', /^Height "tall" is not a number; enter a length such as 1780 mm, 178 cm or 5'10"\.$/],
     ];
     for (const [field, value, pattern] of cases) {
       await page.fill(`[name="${field}"]`, value);
@@ -154,7 +154,7 @@ for (const [name, width, height] of SIZES) {
     assert.deepEqual(left, []);
     assert.equal(await more.textContent(), 'More frame numbers from the listing (9)');
     assert.equal(await page.evaluate(() => document.activeElement?.name), 'frame.reach_mm');
-    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^Required: enter a length/);
+    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^Reach is required: enter a length such as 470 mm/);
     assert.equal(await page.locator('#drawing svg').innerHTML(), good, 'the last good drawing stays');
     // A listing's own numbers: the page solves them alone, with nothing to disagree with.
     await page.fill('input[name="frame.reach_mm"]', '480');

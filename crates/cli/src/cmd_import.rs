@@ -61,11 +61,11 @@ mod tests {
 
     #[test]
     fn a_chart_becomes_the_size_run_json() {
-        let json = import_text("Size\tS\tM\nReach (mm)\t450\t475\nStem\t50\t60\n").unwrap();
+        let json = import_text("Size\tS\tM\nReach (mm)\t450\t475\nSaddle\t50\t60\n").unwrap();
         let v: serde_json::Value = serde_json::from_str(&json).unwrap();
         assert_eq!(v["sizes"][1]["label"], "M");
         assert_eq!(v["sizes"][1]["frame"]["reach_mm"], 475.0);
-        assert_eq!(v["unrecognised"][0], "Stem");
+        assert_eq!(v["unrecognised"][0], "Saddle");
     }
 
     #[test]

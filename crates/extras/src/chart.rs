@@ -50,9 +50,9 @@ pub fn import_chart_with_answers(text: &str, answers_json: &str) -> String {
 fn bad_answers(why: &str) -> String {
     // Built by hand (no `json!`): a fixed shape with one escaped message.
     let message = serde_json::to_string(&format!(
-        "the answers must be a JSON object of question id to option: {why}"
+        "The answers must be a JSON object of question id to option: {why}"
     ))
-    .unwrap_or_else(|_| "\"the answers could not be read\"".into());
+    .unwrap_or_else(|_| "\"The answers could not be read.\"".into());
     format!(
         "{{\"sizes\":[],\"unrecognised\":[],\"questions\":[],\"notes\":[],\"error\":{{\"code\":\"bad_answers\",\"message\":{message}}}}}"
     )

@@ -274,15 +274,14 @@ fn mixed_case_abbreviations() {
 #[test]
 fn unknown_rows_are_listed_not_dropped() {
     let c = chart("09_unknown_rows.txt");
-    assert_eq!(
-        c.unrecognised,
-        [
-            "Stem length",
-            "Handlebar width",
-            "Crank length",
-            "Rider height (cm)"
-        ]
-    );
+    assert_eq!(c.unrecognised, ["Rider height (cm)"]);
+    // Parts the page has inputs for are recognised, said where to set them, and not read.
+    for row in ["Stem length", "Handlebar width", "Crank length"] {
+        assert!(
+            has_note(&c, row, "not a frame number: set it under"),
+            "{row}"
+        );
+    }
     assert_row(&c, "reach_mm", &[440.0, 465.0, 490.0]);
     assert_row(&c, "stack_mm", &[620.0, 630.0, 640.0]);
     assert_row(&c, "head_angle_deg", &[64.0; 3]);
@@ -817,7 +816,8 @@ fn unitless_length_rows_share_one_note() {
         c.notes
     );
     assert!(has_note(&c, "Fork offset", "one value for every size"));
-    assert_eq!(c.unrecognised, ["Stem length"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert!(has_note(&c, "Stem length", "set it under Cockpit"));
     // The values are read as before.
     assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
     assert_row(&c, "top_tube_effective_mm", &[590.0, 615.0, 640.0]);
@@ -923,4 +923,167 @@ fn rows_with_a_reason_of_their_own_keep_their_own_question() {
         // Their values' own notes stay per row too.
         assert!(has_note(&c, "Seat tube", "S: 4000 mm is outside"));
     }
+}
+
+/// No note says a row's value was not a number, and no unit was guessed from the numbers.
+fn assert_read_cleanly(c: &ChartImport) {
+    let bad: Vec<&Note> = c
+        .notes
+        .iter()
+        .filter(|n| n.message.contains("not a number") || n.message.contains("no size name"))
+        .collect();
+    assert!(bad.is_empty(), "{bad:?}");
+    assert!(unit_notes(c).is_empty(), "{:?}", unit_notes(c));
+}
+
+#[test]
+fn units_column_on_the_right_of_an_aligned_pdf_table() {
+    let c = chart("17_pdf_aligned_units_on_the_right.txt");
+    // The header's first cell ("GEOMETRY") titles the label column; the sizes keep their names.
+    assert_eq!(labels(&c), ["XS", "S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // Rows marked cm: × 10.
+    assert_row(&c, "seat_tube_mm", &[400.0, 440.0, 480.0, 520.0]);
+    assert_row(&c, "top_tube_effective_mm", &[515.0, 530.0, 545.0, 560.0]);
+    assert_row(&c, "head_tube_mm", &[100.0, 115.0, 135.0, 155.0]);
+    assert_row(&c, "chainstay_mm", &[415.0; 4]);
+    assert_row(&c, "wheelbase_mm", &[970.0, 980.0, 990.0, 1000.0]);
+    // 7,5 cm fits mm or cm by its size alone; the units column says cm.
+    assert_row(&c, "bb_drop_mm", &[75.0; 4]);
+    assert_row(&c, "stack_mm", &[510.0, 525.0, 545.0, 565.0]);
+    assert_row(&c, "reach_mm", &[365.0, 372.0, 379.0, 386.0]);
+    // Rows marked °.
+    assert_row(&c, "head_angle_deg", &[70.5, 71.0, 71.5, 72.0]);
+    assert_row(&c, "seat_angle_effective_deg", &[74.5, 74.0, 73.5, 73.5]);
+    assert!(has_note(&c, "", "units column on the right"));
+    assert_read_cleanly(&c);
+    assert!(c.questions.iter().all(|q| !q.id.ends_with("#unit")));
+}
+
+#[test]
+fn units_column_on_the_right_without_reference_letters() {
+    for sep in ["      ", "\t"] {
+        let text = [
+            "GEOMETRY|XS|S|M|L",
+            "Seat tube|39|43|47|51|cm",
+            "Head angle|70,5|71,0|71,5|72,0|°",
+            "Stack|51,5|53,0|55,0|57,0|cm",
+            "Reach|36,0|36,8|37,5|38,2|cm",
+        ]
+        .join("\n")
+        .replace('|', sep);
+        let c = import_chart(&text).unwrap();
+        assert_eq!(labels(&c), ["XS", "S", "M", "L"], "{sep:?}");
+        assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+        assert_row(&c, "seat_tube_mm", &[390.0, 430.0, 470.0, 510.0]);
+        assert_row(&c, "head_angle_deg", &[70.5, 71.0, 71.5, 72.0]);
+        assert_row(&c, "stack_mm", &[515.0, 530.0, 550.0, 570.0]);
+        assert_row(&c, "reach_mm", &[360.0, 368.0, 375.0, 382.0]);
+        assert_read_cleanly(&c);
+    }
+}
+
+#[test]
+fn units_column_after_the_labels_under_a_header_without_it() {
+    // The size names have no cell above the units column: they keep all their names.
+    let text = "GEOMETRY          XS      S       M\n\
+                Seat tube    mm   390     430     470\n\
+                Head angle   °    70,5    71,0    71,5\n\
+                Reach        in   14.2    14.5    14.8\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["XS", "S", "M"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "seat_tube_mm", &[390.0, 430.0, 470.0]);
+    assert_row(&c, "head_angle_deg", &[70.5, 71.0, 71.5]);
+    // 14.2 14.5 14.8 in × 25.4
+    assert_row(&c, "reach_mm", &[360.68, 368.3, 375.92]);
+    assert_read_cleanly(&c);
+}
+
+#[test]
+fn a_unit_word_ending_one_row_is_no_units_column() {
+    // One row ends in "mm" after its numbers; the other rows do not: no column is taken out.
+    let c = import_chart("Size\tS\tM\nReach\t450\t470 mm\nStack\t620\t630\nHead angle\t65\t65\n")
+        .unwrap();
+    assert_row(&c, "reach_mm", &[450.0, 470.0]);
+    assert!(!has_note(&c, "", "units column"));
+}
+
+#[test]
+fn part_rows_point_to_their_inputs_and_footnotes_state_no_unit() {
+    let c = chart("18_parts_rows_and_footnotes.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    // The footnote line names cm only; read as the chart's unit it would make 440 mm of
+    // reach 4400 mm. The numbers are read as mm.
+    assert_row(&c, "reach_mm", &[440.0, 462.0, 484.0]);
+    assert_row(&c, "stack_mm", &[618.0, 627.0, 636.0]);
+    assert_row(&c, "chainstay_mm", &[436.0, 436.0, 441.0]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0; 3]);
+    assert!(has_note(&c, "", "ignored a line of text: \"¹ measured"));
+    assert!(!c.notes.iter().any(|n| n.message.contains("as \"¹")));
+    assert_unit_note(&c, "mm", &["Reach", "Stack", "Chainstay"]);
+    // Stem, crank and bar rows are recognised and sent to the page's inputs, not listed as
+    // unrecognised; no frame key is made of them.
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    let said = |row: &str| {
+        c.notes
+            .iter()
+            .find(|n| n.row == row)
+            .map(|n| n.message.clone())
+            .unwrap_or_default()
+    };
+    assert_eq!(
+        said("Stem length"),
+        "recognised as the stem length, not a frame number: set it under Cockpit"
+    );
+    assert_eq!(
+        said("Crank Length"),
+        "recognised as the crank length, not a frame number: set it under Saddle, seatpost and cranks"
+    );
+    assert_eq!(
+        said("Bar Width (mm)"),
+        "recognised as the bar width, not a frame number: set it under Cockpit"
+    );
+    for s in &c.sizes {
+        assert_eq!(s.frame.len(), 5, "{}: {:?}", s.label, s.frame);
+    }
+}
+
+#[test]
+fn footnote_lines_of_every_mark_state_no_unit() {
+    for mark in ["*", "†", "¹", "(1)", "[a]"] {
+        let text =
+            format!("Size\tS\tM\nReach\t450\t470\nStack\t620\t630\n{mark} all values in cm\n");
+        let c = import_chart(&text).unwrap();
+        assert_row(&c, "reach_mm", &[450.0, 470.0]);
+        assert!(has_note(&c, "", "ignored a line of text"), "{mark}");
+    }
+    // A title line that is no footnote still says the unit.
+    let c = import_chart("All values in cm\nSize\tS\tM\nReach\t45\t47\nStack\t62\t63\n").unwrap();
+    assert_row(&c, "reach_mm", &[450.0, 470.0]);
+}
+
+#[test]
+fn every_chart_error_is_a_sentence() {
+    let errors = [
+        ChartError::Empty,
+        ChartError::TooLarge { bytes: 300_000 },
+        ChartError::TooManyLines { lines: 500 },
+        ChartError::NotATable,
+        ChartError::OneRow,
+        ChartError::TooManySizes { count: 50 },
+        ChartError::NothingRecognised {
+            labels: vec!["Saddle".into()],
+        },
+    ];
+    for e in errors {
+        let m = e.to_string();
+        assert!(m.starts_with(char::is_uppercase), "{m}");
+        assert!(m.ends_with('.'), "{m}");
+    }
+    let junk = import_chart("this is not a table at all, just some words 123 and 456").unwrap_err();
+    assert_eq!(
+        junk.to_string(),
+        "Only one row of the table was found: paste the size names and at least one measurement row."
+    );
 }

@@ -1,7 +1,7 @@
 //! The table's shape: text lines out, short rows repaired, sizes as columns or rows, the label
 //! column, a units column, the size row. The values themselves are read in `rows`.
 
-use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
+use super::cell::{is_footnote_line, is_value_token, parse_cell, strip_footnotes, Cell, Mark};
 use super::grid::{is_size_token, Grid, Row, Sep};
 use super::label::{classify, Kind};
 use super::log::{shorten, Log};
@@ -33,7 +33,11 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         if (filled <= 1 && !numeric) || titled {
             let line = row.cells.join(" ");
             let short = shorten(line.trim());
-            if let Some(u) = unit_hint(&line) {
+            // A footnote says how one row was measured, not the chart's unit.
+            let hint = (!is_footnote_line(&line))
+                .then(|| unit_hint(&line))
+                .flatten();
+            if let Some(u) = hint {
                 global_unit = Some(u);
                 let name = u.words();
                 log.note(
@@ -56,8 +60,12 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     if width > 4 * MAX_SIZES {
         return Err(ChartError::TooManySizes { count: width - 1 });
     }
+    let trailing = take_trailing_units(&mut table, grid.decimal_comma, &mut log);
     repair_short_rows(&mut table);
     let (table, across) = orient(table, grid, &mut log)?;
+    // A units column at the end belongs to a table of sizes as columns: its rows are the
+    // table's rows only while the table is not turned.
+    let trailing = if across { Vec::new() } else { trailing };
     let (table, units_col) = label_first(table, &mut log)?;
     let header = find_header(&table);
     let value_count = table
@@ -94,7 +102,10 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         .filter(|(i, _)| Some(*i) != header)
         .map(|(i, r)| {
             let label = classify(r.first().map_or("", String::as_str));
-            let unit = label.unit.or(units_col.get(i).copied().flatten());
+            let unit = label
+                .unit
+                .or(units_col.get(i).copied().flatten())
+                .or(trailing.get(i).copied().flatten());
             TableRow {
                 label,
                 unit,
@@ -216,6 +227,41 @@ fn unit_hint(line: &str) -> Option<Mark> {
         .collect();
     let first = *marks.first()?;
     marks.iter().all(|m| *m == first).then_some(first)
+}
+
+/// A units column on the right ("Reach  37,0  37,8  38,5  cm"): each row whose last cell is a
+/// unit word (`cm`, `mm`, `in`, `°` …) after at least one number loses that cell, and the word
+/// is the row's unit. Read as a column when at least two rows end so and they are at least
+/// half of the rows with numbers; else nothing changes. Returns each row's unit (by its place
+/// in `table`), or nothing.
+fn take_trailing_units(table: &mut [Vec<String>], decimal_comma: bool, log: &mut Log) -> Units {
+    let number = |c: &String| matches!(parse_cell(c, decimal_comma), Cell::Number(_));
+    let unit_at_end = |r: &Vec<String>| -> Option<(usize, Mark)> {
+        let (i, last) = r
+            .iter()
+            .enumerate()
+            .rev()
+            .find(|(_, c)| !c.trim().is_empty())?;
+        let mark = Mark::from_word(last)?;
+        r.iter().take(i).any(number).then_some((i, mark))
+    };
+    let ended = table.iter().filter(|r| unit_at_end(r).is_some()).count();
+    let with_numbers = table.iter().filter(|r| r.iter().any(number)).count();
+    if ended < 2 || ended * 2 < with_numbers {
+        return Vec::new();
+    }
+    log.note(
+        "",
+        "read each row's unit from the units column on the right".into(),
+    );
+    table
+        .iter_mut()
+        .map(|r| {
+            let (i, mark) = unit_at_end(r)?;
+            r.truncate(i);
+            Some(mark)
+        })
+        .collect()
 }
 
 /// A row one cell short whose first cell is a size name or a number lacks its (blank) label.
@@ -407,8 +453,14 @@ fn label_first(
     }
     log.note("", "read each row's unit from the units column".into());
     let units = table.iter().map(|r| unit_cell(r)).collect();
+    // A row as wide as the table has a cell in the units column (its title, "Unit"); a
+    // shorter row without a unit there (the size names "GEOMETRY  XS  S  M") has none.
+    let width = table.iter().map(Vec::len).max().unwrap_or(0);
     for r in &mut table {
-        if r.len() > 1 {
+        let in_column = r.len() == width
+            || r.get(1)
+                .is_some_and(|c| c.is_empty() || Mark::from_word(c).is_some());
+        if r.len() > 1 && in_column {
             r.remove(1);
         }
     }

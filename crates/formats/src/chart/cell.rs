@@ -102,6 +102,31 @@ const FOOTNOTE_CHARS: &[char] = &[
     '*', '†', '‡', '§', '¹', '²', '³', '⁴', '⁵', '⁶', '⁷', '⁸', '⁹', '⁰', '~', '≈', '±',
 ];
 
+/// Whether a line of text is a footnote: it starts with a footnote mark (`*`, `†`, `‡`, `§`,
+/// a superscript digit) or a bracketed one (`(1)`, `[a]`). "¹ measured with 0 mm spacers" says
+/// how one row was measured, not the unit of the chart.
+pub fn is_footnote_line(line: &str) -> bool {
+    let t = line.trim_start();
+    let Some(first) = t.chars().next() else {
+        return false;
+    };
+    if FOOTNOTE_CHARS.contains(&first) && !matches!(first, '~' | '≈' | '±') {
+        return true;
+    }
+    let close = match first {
+        '(' => ')',
+        '[' => ']',
+        _ => return false,
+    };
+    let inner = t
+        .get(1..)
+        .and_then(|r| r.split_once(close))
+        .map_or("", |(inner, _)| inner);
+    let digits = (1..=2).contains(&inner.len()) && inner.chars().all(|c| c.is_ascii_digit());
+    let letter = inner.chars().count() == 1 && inner.chars().all(char::is_alphabetic);
+    digits || letter
+}
+
 /// Removes footnote marks: the characters above, up to three trailing `(1)`/`[a]`/`(ii)` groups
 /// (digits, one letter or a small roman numeral), and a leading `ca.`/`approx.`.
 pub fn strip_footnotes(text: &str) -> String {

@@ -39,6 +39,9 @@ pub enum Kind {
     Wheels(WheelSlot),
     /// The size row ("Size", "Frame size", or a blank corner cell).
     Size,
+    /// A part the page has an input for but that is no frame number ("Stem length", "Crank
+    /// length", "Bar width").
+    Part(Part),
     /// A column of row numbers ("#", "No.").
     RowNumber,
     /// Anything else.
@@ -98,6 +101,47 @@ const BLOCKERS: &[&str] = &[
     "color",
     "bottle",
     "width",
+];
+
+/// A part the page has an input for: the form field's name, label and group title
+/// (`crate::fields`, written here again so the on-demand module does not carry every field's
+/// words; a test keeps them equal).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Part {
+    /// The page form field's name (`setup.stem_mm`).
+    pub field: &'static str,
+    /// Its label in lower case ("stem length").
+    pub label: &'static str,
+    /// The title of its group of inputs ("Cockpit").
+    pub group: &'static str,
+}
+
+const STEM: Part = Part {
+    field: "setup.stem_mm",
+    label: "stem length",
+    group: "Cockpit",
+};
+const CRANK: Part = Part {
+    field: "setup.crank_mm",
+    label: "crank length",
+    group: "Saddle, seatpost and cranks",
+};
+const BAR_WIDTH: Part = Part {
+    field: "setup.bar_width_mm",
+    label: "bar width",
+    group: "Cockpit",
+};
+
+/// Parts the page has an input for, by the whole of their label's words (after fillers such
+/// as "length" are dropped).
+pub static PARTS: &[(&[&str], Part)] = &[
+    (&["stem"], STEM),
+    (&["crank"], CRANK),
+    (&["cranks"], CRANK),
+    (&["crank", "arm"], CRANK),
+    (&["bar", "width"], BAR_WIDTH),
+    (&["handlebar", "width"], BAR_WIDTH),
+    (&["handlebars", "width"], BAR_WIDTH),
 ];
 
 /// Words with no meaning for the match.
@@ -316,6 +360,9 @@ fn key_words(key: &str) -> &'static [&'static str] {
 fn match_words(words: &[String]) -> Kind {
     let has = |w: &str| words.iter().any(|x| x == w);
     let only = |allowed: &[&str]| words.iter().all(|x| allowed.contains(&x.as_str()));
+    if let Some((_, part)) = PARTS.iter().find(|(p, _)| p.iter().eq(words.iter())) {
+        return Kind::Part(*part);
+    }
     if words.iter().any(|w| BLOCKERS.contains(&w.as_str())) {
         return Kind::Unknown;
     }
@@ -480,17 +527,33 @@ mod tests {
         assert_eq!(key("3) Stack"), Kind::Key("stack_mm"));
         assert!(is_tight("Seat tube angle (eff.)") && is_tight("Fork offset"));
         assert!(!is_tight("Stack Head angle") && !is_tight("Top tube (eff.) BB"));
+        assert_eq!(key("Stem length"), Kind::Part(STEM));
+        assert_eq!(key("Stem (mm)"), Kind::Part(STEM));
+        assert_eq!(key("Crank Length"), Kind::Part(CRANK));
+        assert_eq!(key("Crank arm length"), Kind::Part(CRANK));
+        assert_eq!(key("Bar Width"), Kind::Part(BAR_WIDTH));
+        assert_eq!(key("Handlebar width"), Kind::Part(BAR_WIDTH));
         for other in [
-            "Stem length",
+            "Stem angle",
+            "Bar rise",
             "Stack/reach ratio",
             "Rider height",
             "Fork travel",
             "Max. seatpost insertion",
             "Mechanical trail",
-            "Crank length",
             "Saddle height",
         ] {
             assert_eq!(key(other), Kind::Unknown, "{other}");
+        }
+    }
+
+    #[test]
+    fn parts_name_the_page_inputs_as_the_page_does() {
+        for (_, part) in PARTS {
+            let f = crate::fields::field(part.field).unwrap();
+            assert_eq!(part.label, f.label.to_ascii_lowercase());
+            let group = crate::fields::GROUPS.iter().find(|g| g.id == f.group);
+            assert_eq!(Some(part.group), group.map(|g| g.title));
         }
     }
 

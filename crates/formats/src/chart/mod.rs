@@ -15,19 +15,22 @@
 //!
 //! Values are in the §5 units (mm, degrees), rounded to 0.01. Sizes may be columns or rows;
 //! separators tabs, semicolons, pipes, commas or aligned spaces; units in the row label
-//! (`Reach (mm)`), in a units column, in each cell (`470 mm`, `18.5"`, `65°`), in a title line
-//! (`All measurements in mm`), or absent: then each length row's unit is inferred from the size
-//! of its numbers against the catalogue's plausible range (reach 18.5 → in, 47.0 → cm, 470 → mm)
-//! and one note per unit says so, naming the rows; a row whose numbers fit two units, or none,
-//! gets a question of its own (the default follows the other rows' unit when it fits).
-//! Angles are always degrees (without a note: there is nothing to infer). Also read: a header of labels that lost its cell borders (single
-//! spaces; split to the data's width), a phone copy with one cell per line, drawing-reference
-//! or row-number columns, one value standing for every size, a row short of values (read from
-//! the left; asked when the cells lost their places), `470-475` ranges (midpoint),
-//! `65/64.5` two settings (asked), one length in two units (`470 mm (18.5")`).
-//! Nothing is dropped silently: rows it does not know are listed in
-//! `unrecognised`, lines of text and ignored columns in `notes`, guesses in `questions` (with
-//! the options and the one chosen). Answers to questions are passed back by `id` through
+//! (`Reach (mm)`), in a units column (after the labels or on the right), in each cell
+//! (`470 mm`, `18.5"`, `65°`), in a title line (`All measurements in mm`; a footnote line such
+//! as `¹ measured with 0 mm spacers` is not one), or absent: then each length row's unit is
+//! inferred from the size of its numbers against the catalogue's plausible range (reach 18.5 →
+//! in, 47.0 → cm, 470 → mm) and one note per unit says so, naming the rows; a row whose numbers
+//! fit two units, or none, gets a question of its own (the default follows the other rows' unit
+//! when it fits). Angles are always degrees (without a note: there is nothing to infer). Also
+//! read: a header of labels that lost its cell borders (single spaces; split to the data's
+//! width), a phone copy with one cell per line, drawing-reference or row-number columns, one
+//! value standing for every size, a row short of values (read from the left; asked when the
+//! cells lost their places), `470-475` ranges (midpoint), `65/64.5` two settings (asked), one
+//! length in two units (`470 mm (18.5")`).
+//! Nothing is dropped silently: rows it does not know are listed in `unrecognised`, rows naming
+//! a part the page has an input for (stem length, crank length, bar width) get a note saying
+//! where to set it, lines of text and ignored columns are in `notes`, guesses in `questions`
+//! (with the options and the one chosen). Answers to questions are passed back by `id` through
 //! [`import_chart_with`].
 
 mod assemble;
@@ -169,33 +172,33 @@ impl fmt::Display for ChartError {
         match self {
             ChartError::Empty => write!(
                 f,
-                "the chart is empty: paste the geometry table, including the row or column of size names"
+                "The chart is empty: paste the geometry table, including the row or column of size names."
             ),
             ChartError::TooLarge { bytes } => write!(
                 f,
-                "the pasted text is {bytes} bytes, more than the {MAX_BYTES} a chart can be: paste only the geometry table"
+                "The pasted text is {bytes} bytes, more than the {MAX_BYTES} a chart can be: paste only the geometry table."
             ),
             ChartError::TooManyLines { lines } => write!(
                 f,
-                "the pasted text has {lines} lines, more than the {MAX_LINES} a chart can have: paste only the geometry table"
+                "The pasted text has {lines} lines, more than the {MAX_LINES} a chart can have: paste only the geometry table."
             ),
             ChartError::NotATable => write!(
                 f,
-                "no table found: paste rows that each have a label and numbers, such as \"Reach  450  470  490\""
+                "No table found: paste rows that each have a label and numbers, such as \"Reach  450  470  490\"."
             ),
             ChartError::OneRow => write!(
                 f,
-                "only one row of the table was found: paste the size names and at least one measurement row"
+                "Only one row of the table was found: paste the size names and at least one measurement row."
             ),
             ChartError::TooManySizes { count } => write!(
                 f,
-                "the table has {count} columns of sizes, more than {MAX_SIZES}: paste one model's geometry table only"
+                "The table has {count} columns of sizes, more than {MAX_SIZES}: paste one model's geometry table only."
             ),
             ChartError::NothingRecognised { labels } => {
                 let shown: Vec<&str> = labels.iter().take(8).map(String::as_str).collect();
                 write!(
                     f,
-                    "none of the row labels names a frame measurement (found: {}); use labels such as Reach, Stack, Head tube angle, Seat tube angle, Chainstay, Wheelbase",
+                    "None of the row labels names a frame measurement (found: {}); use labels such as Reach, Stack, Head tube angle, Seat tube angle, Chainstay, Wheelbase.",
                     if shown.is_empty() { "none".to_string() } else { shown.join(", ") }
                 )
             }

@@ -2,7 +2,7 @@
 //! size of the numbers), values converted to mm and degrees and written per size.
 
 use super::cell::{parse_cell, Cell, Mark, Num, Spread};
-use super::label::{Ambiguity, Kind, Label, WheelSlot};
+use super::label::{Ambiguity, Kind, Label, Part, WheelSlot};
 use super::log::{shorten, Log};
 use super::wheels::{default_note, parse_wheel_cell};
 use super::ChartSize;
@@ -54,6 +54,7 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
             Kind::Ambiguous(a) => ambiguous.push((place, row, a)),
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
+            Kind::Part(part) => log.note(&row.label.text, part_note(part)),
             Kind::Size | Kind::Unknown => {
                 let name = if row.label.text.is_empty() {
                     "(a row without a label)".to_string()
@@ -76,6 +77,16 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
     for row in &keyed {
         write_row(sizes, row, global, consensus, log);
     }
+}
+
+/// What a row naming a part the page has an input for says: it is read as that part, is no
+/// frame number, and where the page's input is ("recognised as the stem length, not a frame
+/// number: set it under Cockpit").
+fn part_note(part: Part) -> String {
+    format!(
+        "recognised as the {}, not a frame number: set it under {}",
+        part.label, part.group
+    )
 }
 
 fn push_keyed(
