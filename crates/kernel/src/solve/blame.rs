@@ -3,8 +3,10 @@
 //!
 //! Method (first order): the fit's solution `x(g)` of the weighted least squares moves with the
 //! published values `g` as `∂x/∂g = J⁺ · diag(1/tol)` (`J` the weighted Jacobian over the free
-//! unknowns, `J⁺` its pseudo-inverse). A solved quantity `q(x)` then moves as
-//! `s_i = ∇q · ∂x/∂g_i` per unit of value `i`. Its share in the excess is
+//! unknowns, of full column rank, `J⁺ = (JᵀJ)⁻¹Jᵀ` its pseudo-inverse). A solved quantity `q(x)`
+//! then moves as `s_i = ∇q · ∂x/∂g_i` per unit of value `i`. All of them at once, from the thin
+//! QR `J = QR`: `J⁺ᵀ ∇q = Q R⁻ᵀ ∇q` (one forward substitution, no pseudo-inverse: the SVD's
+//! recomposition and the matrix product cost about 5 kB of the page's wasm). Its share in the excess is
 //! `s_i · (g_i − c_i)`, with `c_i` the middle of the value's plausible range (catalogue): how far
 //! this value, being where it is rather than at a typical bike's, moved `q` towards the bound it
 //! crossed. The value with the largest share is the one to check first.
@@ -43,17 +45,12 @@ pub fn shares(
     let idx: Vec<usize> = rows.iter().map(|r| r.index).collect();
     let tol: Vec<f64> = rows.iter().map(|r| r.tolerance).collect();
     let j = model.jacobian_central(x, &idx, &tol, free)?;
-    let pinv = j.pseudo_inverse(1e-12).ok()?;
     let grad = gradient(x, free, &q)?;
+    let along = pinv_transpose_times(j, &grad)?;
     let mut out = Vec::new();
-    for (i, row) in rows.iter().enumerate() {
+    for (row, a) in rows.iter().zip(along) {
         let key = MEASURED_KEYS.get(row.index).copied()?;
-        let per_unit: f64 = grad
-            .iter()
-            .enumerate()
-            .map(|(c, g)| g * pinv.get((c, i)).copied().unwrap_or(0.0))
-            .sum::<f64>()
-            / row.tolerance;
+        let per_unit = a / row.tolerance;
         let centre = lookup(key).map_or(row.value, |m| (m.plausible.0 + m.plausible.1) / 2.0);
         let push = per_unit * (row.value - centre) * towards;
         if push.is_finite() && push > 0.0 {
@@ -64,8 +61,34 @@ pub fn shares(
             });
         }
     }
-    out.sort_by(|a, b| b.push.total_cmp(&a.push));
+    super::sort_short(&mut out, |a, b| a.push > b.push);
     Some(out)
+}
+
+/// `J⁺ᵀ g` for a full-column-rank `j` (m × k, m ≥ k): `Q y` with `Rᵀ y = g` (`J = QR`, thin).
+/// `None` when `j` has fewer rows than columns or `R` has a (near) zero on its diagonal.
+fn pinv_transpose_times(j: nalgebra::DMatrix<f64>, g: &[f64]) -> Option<Vec<f64>> {
+    let (m, k) = j.shape();
+    if m < k || g.len() != k {
+        return None;
+    }
+    let qr = j.qr();
+    let (q, r) = (qr.q(), qr.r());
+    let mut y = vec![0.0; k];
+    for c in 0..k {
+        let mut s = *g.get(c)?;
+        for p in 0..c {
+            s -= r.get((p, c))? * y.get(p)?;
+        }
+        let d = *r.get((c, c))?;
+        if d.abs() < 1e-12 {
+            return None;
+        }
+        *y.get_mut(c)? = s / d;
+    }
+    (0..m)
+        .map(|i| (0..k).map(|c| Some(q.get((i, c))? * y.get(c)?)).sum())
+        .collect()
 }
 
 /// `∂q/∂x_c` for each free unknown `c`, by central differences.

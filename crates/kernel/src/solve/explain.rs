@@ -118,7 +118,8 @@ fn no_suspect(findings: &[Finding]) -> String {
 /// fewest rounding steps of change first (the likelier misprints).
 fn one_loop(members: &[&Finding]) -> String {
     let mut members = members.to_vec();
-    members.sort_by(|a, b| steps_off(a).total_cmp(&steps_off(b)));
+    // Ties in chart order (a stable sort).
+    super::sort_short(&mut members, |a, b| steps_off(a) < steps_off(b));
     let names: Vec<&str> = members.iter().map(|f| label(f.index)).collect();
     let changes: Vec<String> = members
         .iter()

@@ -462,3 +462,35 @@ fn fork_reason(front: FrontTyre) -> String {
         None => format!(" ({kind}; the front tyre's width is not known)"),
     }
 }
+
+/// Sorts a short list in place (insertion sort, stable): `before(a, b)` when `a` goes first. The
+/// page's wasm has no room for the standard library's sorts of one more type (about 5 kB each);
+/// the lists sorted here have a few dozen entries at most.
+pub(crate) fn sort_short<T>(v: &mut [T], before: impl Fn(&T, &T) -> bool) {
+    for i in 1..v.len() {
+        let mut j = i;
+        while j > 0 {
+            let swap = match (v.get(j), v.get(j - 1)) {
+                (Some(a), Some(b)) => before(a, b),
+                _ => false,
+            };
+            if !swap {
+                break;
+            }
+            v.swap(j, j - 1);
+            j -= 1;
+        }
+    }
+}
+
+#[cfg(test)]
+mod sort_tests {
+    #[test]
+    fn sort_short_orders_and_keeps_ties_in_place() {
+        let mut v = [(3, 'a'), (1, 'b'), (3, 'c'), (0, 'd'), (1, 'e')];
+        super::sort_short(&mut v, |a, b| a.0 < b.0);
+        assert_eq!(v, [(0, 'd'), (1, 'b'), (1, 'e'), (3, 'a'), (3, 'c')]);
+        let mut empty: [u8; 0] = [];
+        super::sort_short(&mut empty, |a, b| a < b);
+    }
+}
