@@ -135,22 +135,20 @@ impl fmt::Display for LinkError {
 
 impl std::error::Error for LinkError {}
 
-/// A plain sentence for a base64 decoding error.
-pub(crate) fn base64_detail(e: &base64::DecodeError) -> String {
-    match e {
-        base64::DecodeError::InvalidByte(at, byte) => format!(
+/// A plain sentence for a base64url decoding error.
+pub(crate) fn base64_detail(e: &super::b64::DecodeError) -> String {
+    use super::b64::DecodeError;
+    match *e {
+        DecodeError::Character(at, byte) => format!(
             "the character {:?} at position {} is not one a link uses",
-            char::from(*byte),
+            char::from(byte),
             at + 1
         ),
-        base64::DecodeError::InvalidLength(_) => {
-            "its length is impossible (a character is missing or extra)".into()
-        }
-        base64::DecodeError::InvalidLastSymbol { offset, symbol, .. } => format!(
+        DecodeError::Length => "its length is impossible (a character is missing or extra)".into(),
+        DecodeError::LastCharacter(at, symbol) => format!(
             "its last character {:?} at position {} is impossible",
-            char::from(*symbol),
-            offset + 1
+            char::from(symbol),
+            at + 1
         ),
-        base64::DecodeError::InvalidPadding => "its padding is wrong".into(),
     }
 }

@@ -6,6 +6,7 @@
 //! 0.1 %, 0.01 g; labels are trimmed and kept to 80 characters. docs/LINKS.md has the details,
 //! the measured lengths and the information bound.
 
+mod b64;
 mod bits;
 mod codec;
 mod error;
@@ -18,8 +19,6 @@ pub use codec::MAX_BIKES;
 pub use error::LinkError;
 pub use text::{link_text, MAX_TEXT_CHARS};
 
-use base64::engine::general_purpose::URL_SAFE_NO_PAD;
-use base64::Engine;
 use bits::{BitReader, BitWriter};
 use framewise_kernel::scenario::SCENARIO_VERSION;
 use framewise_kernel::Scenario;
@@ -50,7 +49,7 @@ pub fn encode_link(scenario: &Scenario) -> Result<String, LinkError> {
     codec::write_group(&mut w, &table::SCENARIO, &obj, "")?;
     let mut bytes = w.into_bytes();
     bytes.push(crc8(&bytes));
-    let text = URL_SAFE_NO_PAD.encode(&bytes);
+    let text = b64::encode(&bytes);
     if text.len() > MAX_FRAGMENT_CHARS {
         return Err(LinkError::TooLong {
             chars: text.len(),
@@ -89,8 +88,7 @@ pub fn decode_link(link: &str) -> Result<Scenario, LinkError> {
             max: MAX_FRAGMENT_CHARS,
         });
     }
-    let bytes = URL_SAFE_NO_PAD
-        .decode(frag.trim_end_matches('='))
+    let bytes = b64::decode(frag.trim_end_matches('='))
         .map_err(|e| LinkError::NotBase64(error::base64_detail(&e)))?;
     let (&version, rest) = bytes.split_first().ok_or(LinkError::Truncated)?;
     if version == 0 {
