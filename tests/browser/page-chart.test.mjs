@@ -52,6 +52,8 @@ for (const [name, width, height] of SIZES) {
     await waitCell(page, 'trail_mm', (R * Math.cos(h) - o) / Math.sin(h), 0.15, 'stock');
     // What the chart did not give is asked for by name.
     assert.match(await page.locator('#results .missing').textContent(), /Fork axle-to-crown/);
+    // All of the list is asked for (together they fix the frame), as the warnings say too.
+    assert.match(await page.locator('#results .missing p').textContent(), /^Nothing given fixes part of the frame\. Add (these|this) from the listing: /);
     await page.locator('#chart').scrollIntoViewIfNeeded();
     await shot(page, `${SHOTS}/page-${name}-chart.png`);
     assert.deepEqual(problems, []);

@@ -214,11 +214,13 @@ function buildItems(b, refs) {
   return box;
 }
 
+// The kernel's list together fixes the frame (crates/kernel solve/plan.rs `suggest`: each one
+// fixes one more part), so all of them are asked for.
 function buildMissing(b, words) {
   const names = b.keys.map((k) => words.get(k)?.label ?? k);
   return el('div', { class: 'missing', role: 'note' },
     el('h3', {}, 'Missing measurements'),
-    el('p', {}, 'Nothing given fixes part of the frame. Add any one of these from the listing: ',
+    el('p', {}, `Nothing given fixes part of the frame. Add ${names.length > 1 ? 'these' : 'this'} from the listing: `,
       el('strong', {}, names.join(', ')), '.'));
 }
 
