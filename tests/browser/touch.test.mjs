@@ -12,13 +12,19 @@ after(async () => { await env?.stop(); });
 
 const T = { timeout: 60000 };
 
-test('phone: one finger scrolls the page over the drawing, two fingers zoom, then one finger moves it', T, async () => {
+/** The page on a 360×740 touch phone, ready; page errors are collected in `problems`. */
+async function openTouchPage() {
   const context = await env.browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
   const page = await context.newPage();
   const problems = [];
   page.on('pageerror', (e) => problems.push(e.message));
   await page.goto(env.base);
   await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  return { context, page, problems };
+}
+
+test('phone: one finger scrolls the page over the drawing, two fingers zoom, then one finger moves it', T, async () => {
+  const { context, page, problems } = await openTouchPage();
   const cdp = await context.newCDPSession(page);
   const svg = page.locator('#drawing svg');
   const touch = (type, points) => cdp.send('Input.dispatchTouchEvent', {
@@ -89,12 +95,7 @@ test('desk: a plain wheel over the drawing scrolls, Ctrl and wheel zooms', T, as
 });
 
 test('phone: a tap on a number in the drawing says what it is under the drawing; a drag does not', T, async () => {
-  const context = await env.browser.newContext({ viewport: { width: 360, height: 740 }, hasTouch: true, isMobile: true });
-  const page = await context.newPage();
-  const problems = [];
-  page.on('pageerror', (e) => problems.push(e.message));
-  await page.goto(env.base);
-  await page.waitForSelector('html[data-ready="true"]', { timeout: 15000 });
+  const { context, page, problems } = await openTouchPage();
   await page.locator('label.toggle:has(#show-dims)').tap();
   const def = page.locator('#drawing-def');
   const centre = async (k) => {
