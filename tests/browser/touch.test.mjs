@@ -132,6 +132,10 @@ test('desk: hovering a number in the drawing says what it is', T, async () => {
   const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
   await page.locator('#drawing svg text[data-k="seated-climb"]').hover();
   await page.waitForFunction(() => /^Steepest static climb, seated Steepest uphill slope/.test(document.getElementById('drawing-def').textContent), null, { timeout: 3000 });
+  // A click on the label the hover showed keeps it (a mouse's click is not a second tap).
+  await page.locator('#drawing svg text[data-k="seated-climb"]').click();
+  await page.waitForTimeout(200);
+  assert.equal(await page.locator('#drawing-def').isVisible(), true);
   assert.deepEqual(problems, []);
   await context.close();
 });

@@ -41,7 +41,8 @@ function pickedText(size, name, outcome) {
   const count = Object.keys(size.frame ?? {}).length;
   const filled = `Size ${name}: ${count} frame number${count === 1 ? '' : 's'} filled in.`;
   if (!outcome?.shown) {
-    const problem = (outcome?.problem || 'a value is refused').trim().replace(/(?<![.!?])$/, '.');
+    const said = (outcome?.problem || 'a value is refused').trim();
+    const problem = /[.!?]$/.test(said) ? said : `${said}.`;
     return `${filled} It could not be drawn: ${problem} The marked field in the form says what to check.`;
   }
   const [front, rear] = outcome.wheels ?? [];

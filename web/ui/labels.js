@@ -19,11 +19,13 @@ function termOf(k) {
 /** container: the drawing's box; out: where the sentence goes; words: key → {label, definition}. */
 export function explainLabels(container, out, words) {
   let shownFor = null;
-  function show(text) {
+  // again: a tap on the label shown takes it away; a mouse's click on it keeps it (the hover
+  // before the click showed it).
+  function show(text, again = 'hide') {
     const k = text?.dataset.k ?? null;
     const [key, posture] = k ? termOf(k) : [null, ''];
     const t = key && words.get(key);
-    if (!t || k === shownFor) {
+    if (!t || (k === shownFor && again === 'hide')) {
       shownFor = null;
       out.hidden = true;
       return;
@@ -36,11 +38,11 @@ export function explainLabels(container, out, words) {
   }
   let down = null;
   container.addEventListener('pointerdown', (e) => {
-    down = { label: e.target.closest?.('text.label') ?? null, x: e.clientX, y: e.clientY, id: e.pointerId };
+    down = { label: e.target.closest?.('text.label') ?? null, x: e.clientX, y: e.clientY, id: e.pointerId, mouse: e.pointerType === 'mouse' };
   });
   container.addEventListener('pointerup', (e) => {
     const tap = down && down.id === e.pointerId && Math.hypot(e.clientX - down.x, e.clientY - down.y) < TAP_PX;
-    if (tap && down.label) show(down.label);
+    if (tap && down.label) show(down.label, down.mouse ? 'keep' : 'hide');
     down = null;
   });
   container.addEventListener('pointerover', (e) => {

@@ -138,6 +138,14 @@ fn choice(name: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<String
 
 /// A numeric field: its unit suffix says how to read it (`_g` is a plain number); a rider's
 /// length may also be feet and inches ([`Quantity::BodyLength`]).
+/// The rider's lengths that may be typed in feet and inches.
+const BODY_LENGTHS: [&str; 4] = [
+    "rider.height_mm",
+    "rider.inseam_mm",
+    "rider.arm_mm",
+    "rider.torso_mm",
+];
+
 fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<f64> {
     if key.ends_with("_g") {
         let v = parse_number(text.trim().trim_end_matches('g'));
@@ -159,7 +167,9 @@ fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Op
         return None;
     };
     let q = match q {
-        Quantity::Length if name.starts_with("rider.") => Quantity::BodyLength,
+        // Body lengths people know in feet and inches; not the shoe stack or foot position
+        // (a few mm, which a foot mark would read as 305 mm).
+        Quantity::Length if BODY_LENGTHS.contains(&name) => Quantity::BodyLength,
         q => q,
     };
     parse_quantity(text, q)
@@ -431,6 +441,10 @@ mod tests {
         // Feet are a body's unit: a frame length in feet is refused, naming the field.
         let m = message(&[("frame.reach_mm", "1'6\"")], "frame.reach_mm");
         assert!(m.starts_with("Reach \"1'6\"\" is not a number"), "{m}");
+        // So is a shoe stack or foot position of a few mm: "1'" is not 304.8 mm there, and the
+        // message offers no feet.
+        let m = message(&[("rider.shoe_stack_mm", "1'")], "rider.shoe_stack_mm");
+        assert!(m.contains("is not a number") && !m.contains("5'10"), "{m}");
     }
 
     #[test]
