@@ -122,8 +122,9 @@ fn wheels(out: &mut FormView, prefix: &str, w: &WheelsInput) {
 }
 
 /// Text for a published frame value that the form reads back with the same tolerance
-/// (`crate::form`: one unit of the last typed digit, at least the catalogue default): 990 mm to
-/// 10 mm → `99 cm`, 65° to 1° → `65`, 65° at the default 0.1° → `65.0`, 470 mm → `470`. A value
+/// (`crate::form`: one unit of the last typed digit of a length, at least the catalogue default;
+/// an angle always at the default): 990 mm to 10 mm → `99 cm`, 470 mm → `470`, 65° → `65` (an
+/// angle to 1° has no text: `None`). A value
 /// and tolerance read from a link are on the link's grid (0.5 mm, 0.05°), so a text within half
 /// a grid step of both is taken when none is exact (469.9 mm typed as `18.5 in` comes back from
 /// a link as 470 mm to 2.5 mm: `18.5 in`). `None` when no text of mm, cm or inches with up to

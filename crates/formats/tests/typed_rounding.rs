@@ -167,7 +167,8 @@ fn a_chart_keeps_its_rounding_into_the_form() {
     // An invented chart: wheelbase in whole centimetres, head angle in whole degrees, reach in
     // mm, seat angle to a tenth.
     let chart = "Size\tA\tB\nReach (mm)\t470\t495\nWheelbase (cm)\t123\t125.5\n\
-                 Head tube angle (°)\t65\t64.5\nSeat tube angle (effective) (°)\t76.5\t77\n";
+                 Head tube angle (°)\t65\t64.5\nSeat tube angle (effective) (°)\t76.5\t77\n\
+                 Chainstay (mm)\t430-440\t435\n";
     let run = import_chart(chart).unwrap();
     let a = &run.sizes[0];
     assert_eq!(a.frame["wheelbase_mm"], 1230.0);
@@ -178,6 +179,11 @@ fn a_chart_keeps_its_rounding_into_the_form() {
     assert_eq!(a.text["wheelbase_mm"], "123 cm");
     assert_eq!(a.text["head_angle_deg"], "65");
     assert_eq!(a.text["seat_angle_effective_deg"], "76.5");
+    // A range (10 mm about 435) has no text the form reads back with its width: the default, as
+    // the page will judge it.
+    assert_eq!(a.frame["chainstay_mm"], 435.0);
+    assert!(!a.tolerances.contains_key("chainstay_mm"));
+    assert_eq!(a.text["chainstay_mm"], "435");
     let b = &run.sizes[1];
     // 125.5 cm is good to the millimetre; 77° keeps the default rounding.
     assert!(!b.tolerances.contains_key("wheelbase_mm"));

@@ -77,9 +77,10 @@ pub struct ChartSize {
     pub label: String,
     /// Published frame numbers, §5 keys and units.
     pub frame: BTreeMap<String, f64>,
-    /// The rounding of the values written coarser than the solver's default (1 mm, 0.1°): one
-    /// unit of the last written digit in the chart's unit (`99 cm` → 10 mm, `65°` → 1°), as a
-    /// scenario's `{"value", "tolerance"}` takes it. Left out of the JSON when empty.
+    /// The rounding of the lengths written coarser than the solver's default 1 mm: one unit of
+    /// the last written digit in the chart's unit (`99 cm` → 10 mm), as a scenario's
+    /// `{"value", "tolerance"}` takes it, when the page's form can hold it too (a range or a
+    /// fraction keeps the default). Angles keep the default 0.1°. Left out of the JSON when empty.
     #[serde(skip_serializing_if = "BTreeMap::is_empty")]
     pub tolerances: BTreeMap<String, f64>,
     /// Each frame value as the page's form writes it, keeping its rounding (`99 cm`, `65`,

@@ -534,11 +534,16 @@ fn write_row(
         // Angles keep the default rounding ([`crate::units::parse_quantity_step`]).
         let angle = row.m.unit.symbol() == "°";
         let coarse = !angle && tolerance > row.m.default_tolerance() * (1.0 + 1e-9);
-        if coarse {
+        // Only a rounding the page's form can hold (a text that reads back with it): a range
+        // (`430–440`, 10 mm about 435) or a fraction (`17½"`) has none, and keeps the default, so
+        // the page and a scenario made from the chart judge it alike.
+        let kept = coarse
+            .then(|| crate::form_inverse::published_text(key, value, Some(tolerance)))
+            .flatten();
+        if kept.is_some() {
             size.tolerances.insert(key.to_string(), tolerance);
         }
-        let text = crate::form_inverse::published_text(key, value, coarse.then_some(tolerance))
-            .unwrap_or_else(|| crate::form_inverse::number_text(value));
+        let text = kept.unwrap_or_else(|| crate::form_inverse::number_text(value));
         size.frame.insert(key.to_string(), value);
         size.text.insert(key.to_string(), text);
     }
