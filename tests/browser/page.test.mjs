@@ -235,8 +235,8 @@ for (const [name, width, height] of SIZES) {
     assert.ok(await note.isVisible());
     // One loop any one of several values would close is said once, not value by value.
     const warned = await page.locator('#results .warnings').textContent();
-    assert.match(warned, /disagree: .*Wheelbase.* do not fit one frame together/);
-    assert.match(warned, /Wheelbase by \d+ mm \(1272 mm published, \d+ mm from the others\)/);
+    assert.match(warned, /disagree: .*wheelbase.* do not fit one frame together/);
+    assert.match(warned, /wheelbase by \d+ mm \(1272 mm published, \d+ mm from the others\)/);
     // Parts above the note are drawn at their real height once near the screen (style.css,
     // content-visibility), which moves the note: scroll to it again once they are.
     await note.scrollIntoViewIfNeeded();

@@ -98,7 +98,7 @@ fn a_wheelbase_off_the_loop_is_said_once_with_what_the_others_give() {
         "{wb:?} vs {alone}"
     );
     let expected = format!(
-        "Wheelbase by {:.0} mm (1235 mm published, {:.0} mm from the others)",
+        "wheelbase by {:.0} mm (1235 mm published, {:.0} mm from the others)",
         1235.0 - alone,
         alone
     );

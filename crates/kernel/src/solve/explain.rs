@@ -16,7 +16,7 @@
 //! value itself.
 
 use crate::catalogue::lookup;
-use crate::error::{fmt_disagreement, Warning};
+use crate::error::{fmt_disagreement, in_sentence, Warning};
 use crate::geometry::MEASURED_KEYS;
 
 /// One given value as the explanation needs it.
@@ -120,14 +120,19 @@ fn one_loop(members: &[&Finding]) -> String {
     let mut members = members.to_vec();
     // Ties in chart order (a stable sort).
     super::sort_short(&mut members, |a, b| steps_off(a) < steps_off(b));
-    let names: Vec<&str> = members.iter().map(|f| label(f.index)).collect();
+    // The names inside the sentence: "chainstay, reach and wheelbase", "BB drop" as written.
+    let names: Vec<String> = members
+        .iter()
+        .map(|f| in_sentence(label(f.index)))
+        .collect();
+    let names: Vec<&str> = names.iter().map(String::as_str).collect();
     let changes: Vec<String> = members
         .iter()
         .filter_map(|f| {
             let [given, other, gap] = quoted(f)?;
             Some(format!(
                 "{} by {gap} ({given} published, {other} from the others)",
-                label(f.index)
+                in_sentence(label(f.index))
             ))
         })
         .collect();

@@ -159,9 +159,12 @@ pub fn solve(
                 f.from_others = Some(p);
             }
         }
+        // A suspect is a misprint the rest would mend: what they give for it must be a value
+        // a frame has (inside the catalogue's plausible range), or "off by 241 mm" would be
+        // offered for a 110 mm head tube.
         suspects = left_out
             .iter()
-            .filter(|l| l.rest_agree)
+            .filter(|l| l.rest_agree && l.predicted.is_some_and(|p| plausible(l.index, p)))
             .map(|l| l.index)
             .collect();
     }
@@ -187,6 +190,15 @@ pub fn solve(
         missing: plan.missing,
         warnings,
     })
+}
+
+/// Whether `v` lies in the plausible range of measurement `index` (true for a key outside the
+/// catalogue).
+fn plausible(index: usize, v: f64) -> bool {
+    MEASURED_KEYS
+        .get(index)
+        .and_then(|k| lookup(k))
+        .is_none_or(|m| (m.plausible.0..=m.plausible.1).contains(&v))
 }
 
 /// The first guess: typical values, overwritten by every value published directly; without a
