@@ -169,6 +169,16 @@ for (const [name, width, height] of SIZES) {
     await context.close();
   });
 
+  test(`${name}: a published standover shows as published, not as solved (it is not derivable)`, T, async () => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    await page.locator('.group-frame details.more').evaluate((d) => { d.open = true; });
+    await page.fill('input[name="frame.standover_mm"]', '780');
+    await waitCell(page, 'standover_mm', 780, 0.05, 'given');
+    assert.equal(await page.locator('#results tr[data-key="standover_mm"] td[data-col="stock"]').textContent(), '–');
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+
   test(`${name}: while typing, a phone shows the key numbers at the top of the screen`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     const strip = page.locator('#strip');

@@ -319,9 +319,21 @@ fn evaluate_bike(
     };
     let mut stock_geom = params.geometry(stock_radii);
     stock_geom.seat_ref_height = seat_ref;
-    let mut stock = to_numbers(&stock_geom);
+    let stock = to_numbers(&stock_geom);
+    // Standover is not derivable from the frame's points (DESIGN.md §5): it is reported as
+    // published, with nothing that checks it, and not as a solved number.
+    let mut residuals = solution.residuals;
     if let Some(g) = given.get("standover_mm") {
-        stock.insert("standover_mm".into(), g.value);
+        residuals.insert(
+            "standover_mm".into(),
+            crate::solve::Residual {
+                given: g.value,
+                solved: g.value,
+                residual: 0.0,
+                consistent: true,
+                from_others: None,
+            },
+        );
     }
     let (posed, pose_warnings) = pose(&params, stock_radii, &changes);
     warnings.extend(pose_warnings);
@@ -337,7 +349,7 @@ fn evaluate_bike(
     cautions(&changes, &params, &mut warnings);
     let mut report = BikeReport {
         label: bike.label.clone(),
-        residuals: solution.residuals,
+        residuals,
         missing: solution.missing,
         stock,
         ridden,
