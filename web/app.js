@@ -138,9 +138,10 @@ function update(event) {
   if (result.field_notes) showNotes(form, result.field_notes); // lengths read in cm or inches
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
+    const problems = errors.length ? errors : result.report.errors ?? [];
     const show = () => {
       sayProblems = null;
-      const unplaced = showErrors(form, errors.length ? errors : result.report.errors);
+      const unplaced = showErrors(form, problems);
       status.textContent = unplaced.length
         ? unplaced.join(' ')
         : 'Fix the marked field; the drawing and numbers show the last good values.';
@@ -152,7 +153,7 @@ function update(event) {
       sayProblems = show;
       problemsLater = setTimeout(show, TYPING_PAUSE_MS);
     } else show();
-    return { shown: false, problem: named((errors.length ? errors : result.report.errors ?? [])[0]) };
+    return { shown: false, problem: named(problems[0]) };
   }
   if (status.textContent) status.textContent = '';
   // The tables, then the drawing (made when written); neither reads a place from the page.

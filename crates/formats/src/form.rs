@@ -136,8 +136,6 @@ fn choice(name: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<String
     None
 }
 
-/// A numeric field: its unit suffix says how to read it (`_g` is a plain number); a rider's
-/// length may also be feet and inches ([`Quantity::BodyLength`]).
 /// The rider's lengths that may be typed in feet and inches.
 const BODY_LENGTHS: [&str; 4] = [
     "rider.height_mm",
@@ -146,6 +144,8 @@ const BODY_LENGTHS: [&str; 4] = [
     "rider.torso_mm",
 ];
 
+/// A numeric field: its unit suffix says how to read it (`_g` is a plain number); a body's
+/// length may also be feet and inches ([`Quantity::BodyLength`], [`BODY_LENGTHS`]).
 fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Option<f64> {
     if key.ends_with("_g") {
         let v = parse_number(text.trim().trim_end_matches('g'));
@@ -173,14 +173,17 @@ fn number(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) -> Op
         q => q,
     };
     parse_quantity(text, q)
-        .map_err(|e| {
-            errors.push(FieldError::new(
-                "bad_number",
-                name,
-                unit_message(name, q, &e),
-            ))
-        })
+        .map_err(|e| bad_number(name, q, &e, errors))
         .ok()
+}
+
+/// Records a text that does not read as a number of quantity `q` (see [`unit_message`]).
+fn bad_number(name: &str, q: Quantity, e: &UnitError, errors: &mut Vec<FieldError>) {
+    errors.push(FieldError::new(
+        "bad_number",
+        name,
+        unit_message(name, q, e),
+    ));
 }
 
 /// A published frame value with the rounding its typed text shows: the tolerance is one unit of
@@ -199,13 +202,7 @@ fn published(name: &str, key: &str, text: &str, errors: &mut Vec<FieldError>) ->
         return None;
     };
     let (value, step) = crate::units::parse_quantity_step(text, q)
-        .map_err(|e| {
-            errors.push(FieldError::new(
-                "bad_number",
-                name,
-                unit_message(name, q, &e),
-            ))
-        })
+        .map_err(|e| bad_number(name, q, &e, errors))
         .ok()?;
     // A key outside the catalogue is the kernel's to refuse; it keeps the plain value.
     let floor = framewise_kernel::lookup(key).map_or(f64::INFINITY, |m| m.default_tolerance());
@@ -227,9 +224,8 @@ fn label_of(name: &str) -> &str {
 /// the text, and what to type with an example that fits the field
 /// (`Reach "abc" is not a number; enter a length such as 470 mm, 47 cm or 18.5 in.`).
 fn unit_message(name: &str, q: Quantity, e: &UnitError) -> String {
-    let f = field(name);
-    let label = f.map_or(name, |f| f.label);
-    let wanted = wanted(example(f.as_ref()), q);
+    let label = label_of(name);
+    let wanted = wanted(example(field(name).as_ref()), q);
     match e {
         UnitError::Empty { .. } => format!("{label} is required: enter {wanted}."),
         UnitError::NotANumber { text, .. } => {

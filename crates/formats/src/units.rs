@@ -143,10 +143,10 @@ pub fn parse_quantity(text: &str, q: Quantity) -> Result<f64, UnitError> {
 /// As [`parse_quantity`].
 pub fn parse_quantity_step(text: &str, q: Quantity) -> Result<(f64, Option<f64>), UnitError> {
     let value = parse_quantity(text, q)?;
-    let lower = unbracket(&text.trim().to_ascii_lowercase());
     if q == Quantity::Angle {
         return Ok((value, None));
     }
+    let lower = unbracket(&text.trim().to_ascii_lowercase());
     let step = split_unit(&lower, q).and_then(|(num, factor)| {
         let num = num.replace(',', ".");
         if num.contains(['e', 'E']) {
@@ -164,9 +164,6 @@ pub const MM_PER_IN: f64 = 25.4;
 /// Millimetres per foot: 12 in, exactly 304.8 mm (the same agreement) [read].
 pub const MM_PER_FT: f64 = 12.0 * MM_PER_IN;
 
-/// Marks written after a number of inches: straight and curly double quotes, the double prime,
-/// two apostrophes or two primes (a keyboard without `"`).
-static INCH_MARKS: &[&str] = &["\"", "″", "”", "“", "''", "’’", "′′"];
 /// Marks written after a number of feet: apostrophe, curly apostrophe, prime, `ft`.
 static FOOT_MARKS: &[&str] = &["feet", "foot", "ft", "'", "’", "′"];
 
@@ -188,7 +185,7 @@ fn unbracket(t: &str) -> String {
 
 /// Feet and inches: `5'10"` = 5 × 304.8 + 10 × 25.4 = 1778 mm. The feet are one digit
 /// followed by a foot mark ([`FOOT_MARKS`]); the inches after it, if any, are a number from 0 to
-/// under 12 with or without an inch mark ([`INCH_MARKS`], `in`). `None` when the text is not
+/// under 12 with or without an inch unit (those of [`LENGTH_UNITS`]: `in`, `"`, `”`, `''` …). `None` when the text is not
 /// written so (`5.5'` is not read: it could mean 5'5" or 5'6").
 #[inline(never)]
 fn feet_and_inches(t: &str) -> Option<f64> {
@@ -205,10 +202,10 @@ fn feet_and_inches(t: &str) -> Option<f64> {
     };
     let feet = f64::from(digit - b'0');
     let rest = rest.trim();
-    let rest = INCH_MARKS
+    let rest = LENGTH_UNITS
         .iter()
-        .chain(["inches", "inch", "in"].iter())
-        .find_map(|m| rest.strip_suffix(m))
+        .filter(|(_, per)| *per == MM_PER_IN)
+        .find_map(|(m, _)| rest.strip_suffix(m))
         .unwrap_or(rest)
         .trim();
     let inches = if rest.is_empty() {
@@ -219,7 +216,9 @@ fn feet_and_inches(t: &str) -> Option<f64> {
     Some(feet * MM_PER_FT + inches * MM_PER_IN)
 }
 
-/// Length units after a number, with millimetres per unit.
+/// Length units after a number, with millimetres per unit; the inch's include the marks phones
+/// and copied text write: straight and curly double quotes, the double prime, two apostrophes or
+/// two primes (a keyboard without `"`).
 static LENGTH_UNITS: &[(&str, f64)] = &[
     ("mm", 1.0),
     ("cm", 10.0),

@@ -123,7 +123,12 @@ pub fn out_of_range(
 ) -> FieldError {
     let (model, x, rows, free) = fit;
     let Some(m) = lookup(key) else {
-        return FieldError::new("impossible", format!("{prefix}.{key}"), "");
+        // The callers pass catalogue keys; a message all the same.
+        return FieldError::new(
+            "impossible",
+            format!("{prefix}.{key}"),
+            "Together the published numbers give no frame; check them for typing errors.",
+        );
     };
     let towards = if v > m.hard.1 { 1.0 } else { -1.0 };
     let all = shares(model, x, rows, free, q, towards).unwrap_or_default();

@@ -59,8 +59,8 @@ pub struct Residual {
     /// 2.5 × its tolerance and than rounding explains (`diagnose::checks`).
     pub consistent: bool,
     /// What the *other* given values alone predict for this one, in its unit: when some value
-    /// disagrees, the frame refitted without it; else the first-order leave-one-out estimate; `None` (left out of the JSON, which has no nulls) when no other value
-    /// checks it.
+    /// disagrees, the frame refitted without it; else the first-order leave-one-out estimate;
+    /// `None` (left out of the JSON, which has no nulls) when no other value checks it.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub from_others: Option<f64>,
 }
@@ -150,8 +150,9 @@ pub fn solve(
             consistent: c.consistent,
         })
         .collect();
+    let disagree = findings.iter().any(|f| !f.consistent);
     let mut suspects = Vec::new();
-    if findings.iter().any(|f| !f.consistent) {
+    if disagree {
         let left_out = diagnose::leave_each_out(&model, &best.x, &rows, &plan.free);
         for f in &mut findings {
             let refit = left_out.iter().find(|l| l.index == f.index);
@@ -181,7 +182,7 @@ pub fn solve(
             },
         );
     }
-    if findings.iter().any(|f| !f.consistent) {
+    if disagree {
         warnings.push(explain::warning(&findings, &suspects));
     }
     Ok(Solution {
