@@ -79,11 +79,17 @@ fn a_road_listing_without_fork_numbers_solves_the_a2c_from_the_bb_drop() {
     // (about 260–280 mm [practice]).
     let bb_height = sol_number(&sol, "bb_height_mm", ROAD_R);
     assert!((bb_height - (ROAD_R - 70.0)).abs() < 0.01, "{bb_height}");
-    // Wheelbase = rear centre (its typical 435 mm: no chainstay given) + front centre
-    // `reach + (head_tube + a2c)·cos h + offset·sin h` (§8a); 1024 mm, inside the 950–1050 mm
-    // of road bikes [practice].
+    // Wheelbase = rear centre (no chainstay given: the narrow tyre's stand-in, 415 mm; road
+    // chainstays measure about 405–415 mm, gravel ones 415–430 mm [practice, from memory]) +
+    // front centre `reach + (head_tube + a2c)·cos h + offset·sin h` (§8a); 1004 mm, inside the
+    // 950–1050 mm of road bikes [practice].
+    assert!(
+        (p.rear_centre - 415.0).abs() < 1e-9,
+        "rear centre {}",
+        p.rear_centre
+    );
     let wheelbase = sol_number(&sol, "wheelbase_mm", ROAD_R);
-    let expected = 435.0 + 385.0 + (145.0 + a2c) * h.cos() + 44.0 * h.sin();
+    let expected = 415.0 + 385.0 + (145.0 + a2c) * h.cos() + 44.0 * h.sin();
     assert!(
         (wheelbase - expected).abs() < 0.01,
         "{wheelbase} vs {expected}"
@@ -92,6 +98,12 @@ fn a_road_listing_without_fork_numbers_solves_the_a2c_from_the_bb_drop() {
     let said = underdetermined(&sol);
     assert!(said.contains("fork offset 44 mm"), "{said}");
     assert!(!said.contains("axle-to-crown 5"), "{said}");
+    assert!(
+        said.contains(
+            "rear centre 415 mm (a road or gravel bike's, as common for a 28 mm front tyre)"
+        ),
+        "{said}"
+    );
     assert!(sol.residuals.values().all(|r| r.consistent));
 }
 

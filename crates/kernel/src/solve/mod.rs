@@ -437,10 +437,10 @@ fn assumption_warnings(plan: &plan::Plan, x: &X, front: FrontTyre) -> Vec<Warnin
             .iter()
             .filter_map(|&u| {
                 let (label, value) = describe(u)?;
-                let why = if u == ix::A2C {
-                    fork_reason(front)
-                } else {
-                    String::new()
+                let why = match u {
+                    ix::A2C => fork_reason(front),
+                    ix::REAR_CENTRE => rear_reason(front),
+                    _ => String::new(),
                 };
                 Some(format!("{} {value}{why}", in_sentence(label)))
             })
@@ -473,6 +473,17 @@ fn fork_reason(front: FrontTyre) -> String {
     match front.width_mm {
         Some(w) => format!(" ({kind}, as common for a {w:.0} mm front tyre)"),
         None => format!(" ({kind}; the front tyre's width is not known)"),
+    }
+}
+
+/// Why the stand-in rear centre has its length: said only for the narrow tyre's shorter one
+/// ([`unknowns::typical`]).
+fn rear_reason(front: FrontTyre) -> String {
+    match front.width_mm {
+        Some(w) if !fork_stand_in(front).suspension => {
+            format!(" (a road or gravel bike's, as common for a {w:.0} mm front tyre)")
+        }
+        _ => String::new(),
     }
 }
 

@@ -121,12 +121,23 @@ pub fn to_params_ungrounded(x: &X) -> FrameParams {
 }
 
 /// The typical frame for these wheels: [`UNKNOWNS`]' typical values with the axle-to-crown of
-/// [`fork_stand_in`].
+/// [`fork_stand_in`] and, on a rigid fork's narrow tyre, the rear centre of
+/// [`RIGID_REAR_CENTRE_MM`].
 pub fn typical(front: FrontTyre) -> X {
     let mut x = UNKNOWNS.map(|u| u.typical);
-    x[ix::A2C] = fork_stand_in(front).a2c_mm;
+    let fork = fork_stand_in(front);
+    x[ix::A2C] = fork.a2c_mm;
+    if !fork.suspension {
+        x[ix::REAR_CENTRE] = RIGID_REAR_CENTRE_MM;
+    }
     x
 }
+
+/// The rear centre that stands in for a bike on narrow tyres (the rigid-fork stand-in's bikes:
+/// road, gravel, touring), mm [practice; from memory, road chainstays measure about 405–415 mm
+/// and gravel ones about 415–430 mm]. A trail bike's [`UNKNOWNS`] value, 435 mm, stands in
+/// otherwise.
+pub const RIGID_REAR_CENTRE_MM: f64 = 415.0;
 
 /// The front tyre, as far as the solver's stand-in fork needs it.
 #[derive(Debug, Clone, Copy, PartialEq)]
