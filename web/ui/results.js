@@ -114,10 +114,16 @@ function hasPostureNumbers(block) {
 function model(bike, notes, catalogue) {
   if (!frameKeys.has(catalogue)) frameKeys.set(catalogue, new Set(catalogue.map((m) => m.key)));
   const isFrame = frameKeys.get(catalogue);
-  // The ridden numbers that are not frame measurements, in three tables by what they are about.
-  const ridden = (part) => Object.fromEntries(Object.entries(bike.ridden)
-    .filter(([k, v]) => !isFrame.has(k) && typeof v === 'number' && partOf(k) === part));
-  const hasRidden = (part) => Object.keys(ridden(part)).length > 0;
+  // The ridden numbers that are not frame measurements, in three tables by what they are about
+  // (one pass over the report's numbers: this runs on every edit).
+  const byPart = { cockpit: null, saddle: null, ground: null };
+  for (const k in bike.ridden) {
+    const v = bike.ridden[k];
+    if (typeof v !== 'number' || isFrame.has(k)) continue;
+    (byPart[partOf(k)] ??= {})[k] = v;
+  }
+  const ridden = (part) => byPart[part];
+  const hasRidden = (part) => byPart[part] !== null;
   const table = (caption, make) => [`table|${caption}`, () => make(caption)];
   return [
     bike.warnings?.length && ['warnings', () => ({
@@ -148,9 +154,11 @@ function idOf(b) {
 
 /** A block's shape: what its nodes are (rows, columns, notes, items), not what they say. */
 function shapeOf(b) {
-  return JSON.stringify(b.type === 'table'
-    ? [b.caption, b.cols, b.rows.map((r) => [r.key, Boolean(r.note)])]
-    : [b.type, b.keys ?? b.items.map((i) => i.cls)]);
+  // Joined with a control character no caption, key or class holds (cheaper than JSON on every edit).
+  if (b.type !== 'table') return [b.type, ...(b.keys ?? b.items.map((i) => i.cls))].join('\u0001');
+  let s = `${b.caption}\u0001${b.cols.join('\u0001')}`;
+  for (const r of b.rows) s += `\u0001${r.key}${r.note ? '\u0002' : ''}`;
+  return s;
 }
 
 /** A row's changeable values in render order: class, cell texts, note. */
