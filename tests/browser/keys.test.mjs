@@ -37,7 +37,7 @@ test('desk 1280×800: Tab reaches the drawing; + - and the arrows zoom and move 
   assert.ok(focus.visible, 'the focus ring shows (:focus-visible)');
   assert.equal(focus.outline, 'solid 3px', 'the page\'s focus ring');
   assert.equal(focus.color, 'rgb(217, 142, 0)', `the page's focus colour (${focus.focusColor})`);
-  assert.match(focus.name, /zoom.*arrow keys move/, 'its name says what the keys do');
+  assert.match(focus.name, /zoom.*arrows move/, 'its name says what the keys do');
 
   // + zooms in by 1.25 about the middle: the middle stays where it was.
   const mid = [x + w / 2, y + h / 2];

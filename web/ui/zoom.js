@@ -9,8 +9,8 @@
 // zoom about the middle of the view, the arrow keys move it a tenth of its size, 0 or Home fits.
 // Other keys (and any with Ctrl, Alt or Meta: the browser's own zoom) are left alone.
 
-/** Keys → a zoom factor or a step [x, y] in tenths of the view. */
-const KEYS = { '+': 1.25, '=': 1.25, '-': 0.8, ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
+/** Keys → a zoom factor, a step [x, y] in tenths of the view, or 0: fit. */
+const KEYS = { '+': 1.25, '=': 1.25, '-': 0.8, 0: 0, Home: 0, ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
 
 export function attachZoom(container, fitButton) {
   let view = null; // [x, y, w, h] chosen by the person, or null = the drawing's own fit
@@ -107,12 +107,12 @@ export function attachZoom(container, fitButton) {
     const k = KEYS[e.key];
     const v = current();
     if (e.ctrlKey || e.altKey || e.metaKey || !v) return;
-    if (e.key === '0' || e.key === 'Home') fit();
-    else if (typeof k === 'number') zoomAbout(v[0] + v[2] / 2, v[1] + v[3] / 2, v, k);
-    else if (k) {
+    if (k === 0) fit();
+    else if (Array.isArray(k)) {
       view = [v[0] + k[0] * v[2] / 10, v[1] + k[1] * v[3] / 10, v[2], v[3]];
       apply();
     }
+    else if (k) zoomAbout(v[0] + v[2] / 2, v[1] + v[3] / 2, v, k);
     else return;
     e.preventDefault(); // only a key handled here: the page keeps its scrolling keys
   });
