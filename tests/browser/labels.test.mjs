@@ -87,6 +87,30 @@ test('phone 360×740: labels at least 11 px, inside the drawing, none on another
   await context.close();
 });
 
+// A phone held sideways: the drawing's box is as tall as the screen, beside the masthead and the
+// toolbar (style.css). With both above it the box was 232 px tall at 740×360 and the type 8.2 px.
+for (const [width, height] of [[740, 360], [640, 360]]) {
+  test(`phone held sideways ${width}×${height}: labels at least 12 px, inside the drawing, none on another`, T, async (t) => {
+    const { page, context, problems } = await openPage(env, { width, height });
+    for (const v of VIEWS) {
+      await view(page, v);
+      const { shown, drawing } = await labels(page);
+      const name = `${v.posture}${v.dims ? ' with dimensions' : ''}`;
+      assert.equal(shown.length, v.dims ? 9 : 3, `${name}: ${shown.map((l) => l.key)}`);
+      const small = shown.filter((l) => l.px < 12).map((l) => `${l.key} ${round(l.px)} px`);
+      assert.deepEqual(small, [], `${name}: type under 12 px`);
+      assert.deepEqual(overlaps(shown), [], `${name}: labels overlap`);
+      const out = outside(shown, drawing);
+      assert.deepEqual(out.map((l) => `${l.key} [${l.box.map(round)}]`), [], `${name}: outside the drawing [${drawing}]`);
+      assert.ok(drawing[1] >= 0 && drawing[3] <= height, `${name}: the drawing [${drawing}] on the screen`);
+      t.diagnostic(`${width}×${height} ${name}: type ${round(Math.min(...shown.map((l) => l.px)))} px, box ${round(shown[0].box[3] - shown[0].box[1])} px tall`);
+    }
+    await shot(page, `${SHOTS}/labels-${width}x${height}-standing-no-dims.png`);
+    assert.deepEqual(problems, []);
+    await context.close();
+  });
+}
+
 test('desk 1280×800: labels no bigger than before (14.1 px type, 16 px box)', T, async (t) => {
   const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
   for (const v of VIEWS) {

@@ -33,8 +33,9 @@ for (const width of [320, 345, 360]) {
   });
 }
 
-// A phone held sideways: the whole drawing is in sight on first view, below a one-row masthead
-// and the toolbar, and the targets stay ≥ 44 px.
+// A phone held sideways: the whole drawing is in sight on first view, beside the masthead and the
+// toolbar (each a column on its left, so the drawing's box is as tall as the screen and its labels
+// as large as on a phone held upright: labels.test.mjs), and the targets stay ≥ 44 px.
 for (const [width, height] of [[640, 360], [740, 360], [915, 412]]) {
   test(`${width}×${height} (a phone held sideways): the drawing fits the screen on first view`, { timeout: 60000 }, async () => {
     const { page, problems } = await openPage(env, { width, height });
@@ -44,14 +45,22 @@ for (const [width, height] of [[640, 360], [740, 360], [915, 412]]) {
         .map((e) => { const b = e.getBoundingClientRect(); return Math.min(b.width, b.height); });
       return {
         box: r('#drawing').toJSON(), bike: r('#drawing svg .ridden').toJSON(),
-        masthead: [...document.querySelectorAll('.masthead h1, .jump a')].map((e) => { const b = e.getBoundingClientRect(); return (b.top + b.bottom) / 2; }),
+        masthead: [...document.querySelectorAll('.masthead h1, .jump a')].map((e) => e.getBoundingClientRect().toJSON()),
+        toolbar: [...document.querySelectorAll('.toolbar label, .toolbar .toggle')].map((e) => e.getBoundingClientRect().toJSON()),
         sideways: document.documentElement.scrollWidth - window.innerWidth, smallest: Math.min(...sizes),
       };
     });
     assert.ok(m.box.top >= 0 && m.box.bottom <= height, `drawing box ${JSON.stringify(m.box)} within ${height} px`);
     assert.ok(m.bike.top >= m.box.top && m.bike.bottom <= m.box.bottom, `bike ${JSON.stringify(m.bike)} inside its box`);
     assert.ok(m.box.height >= 0.6 * height, `the drawing takes most of the height: ${m.box.height}`);
-    assert.ok(Math.max(...m.masthead) - Math.min(...m.masthead) < 12, `masthead on one row: middles ${m.masthead}`);
+    assert.ok(m.box.height >= height - 20, `the drawing's box is about as tall as the screen: ${m.box.height}`);
+    // The masthead's name and jump links one above another, left of the toolbar; the toolbar's
+    // controls left of the drawing; all on the screen.
+    const right = (rs) => Math.max(...rs.map((b) => b.right));
+    assert.ok(m.masthead.every((b, i) => i === 0 || b.top >= m.masthead[i - 1].bottom), `masthead in a column: ${JSON.stringify(m.masthead)}`);
+    assert.ok(right(m.masthead) <= Math.min(...m.toolbar.map((b) => b.left)), 'the masthead left of the toolbar');
+    assert.ok(right(m.toolbar) <= m.box.left, 'the toolbar left of the drawing');
+    assert.ok([...m.masthead, ...m.toolbar].every((b) => b.top >= 0 && b.bottom <= height), 'masthead and toolbar on the screen');
     assert.equal(m.sideways, 0, 'nothing scrolls sideways');
     assert.ok(m.smallest >= 44, `touch targets at least 44 px, smallest ${m.smallest}`);
     await page.screenshot({ path: `${SHOTS}/landscape-${width}x${height}.png` });

@@ -5,6 +5,12 @@
 // drawing is zoomed (then it moves the drawing; the container's `zoomed` class switches
 // touch-action in style.css); a mouse wheel scrolls the page, and zooms with Ctrl held (a
 // trackpad pinch arrives as a wheel with Ctrl).
+// The keyboard: while the drawing's box has the focus (tabindex in index.html), + or = and -
+// zoom about the middle of the view, the arrow keys move it a tenth of its size, 0 or Home fits.
+// Other keys (and any with Ctrl, Alt or Meta: the browser's own zoom) are left alone.
+
+/** Keys → a zoom factor, a step [x, y] in tenths of the view, or 0: fit. */
+const KEYS = { '+': 1.25, '=': 1.25, '-': 0.8, 0: 0, Home: 0, ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
 
 export function attachZoom(container, fitButton) {
   let view = null; // [x, y, w, h] chosen by the person, or null = the drawing's own fit
@@ -40,14 +46,16 @@ export function attachZoom(container, fitButton) {
     return [p.x, p.y, v];
   }
 
+  // Zooms the view v by `factor` about the drawing point (x, y), within 150 mm to 20 m wide.
+  function zoomAbout(x, y, v, factor) {
+    const k = Math.min(Math.max(v[2] / factor, 150), 20000) / v[2];
+    view = [x - (x - v[0]) * k, y - (y - v[1]) * k, v[2] * k, v[3] * k];
+    apply();
+  }
+
   function zoomAt(px, py, factor) {
     const hit = toDrawing(px, py);
-    if (!hit) return;
-    const [x, y, v] = hit;
-    const w = Math.min(Math.max(v[2] / factor, 150), 20000);
-    const k = w / v[2];
-    view = [x - (x - v[0]) * k, y - (y - v[1]) * k, w, v[3] * k];
-    apply();
+    if (hit) zoomAbout(...hit, factor);
   }
 
   function panBy(dx, dy) {
@@ -95,6 +103,19 @@ export function attachZoom(container, fitButton) {
     zoomAt(e.clientX, e.clientY, Math.exp(-e.deltaY * 0.0015));
   }, { passive: false });
   container.addEventListener('dblclick', fit);
+  container.addEventListener('keydown', (e) => {
+    const k = KEYS[e.key];
+    const v = current();
+    if (e.ctrlKey || e.altKey || e.metaKey || !v) return;
+    if (k === 0) fit();
+    else if (Array.isArray(k)) {
+      view = [v[0] + k[0] * v[2] / 10, v[1] + k[1] * v[3] / 10, v[2], v[3]];
+      apply();
+    }
+    else if (k) zoomAbout(v[0] + v[2] / 2, v[1] + v[3] / 2, v, k);
+    else return;
+    e.preventDefault(); // only a key handled here: the page keeps its scrolling keys
+  });
   fitButton.addEventListener('click', fit);
 
   return {
