@@ -157,13 +157,22 @@ export function initShare({ getFields, applyFields, getView, applyView = () => {
     // the QR code follow once typing pauses, after the edit's drawing and tables are written:
     // a run of keystrokes writes the address once. Whatever reads the address (copy, the share
     // sheet, the QR code, the link box, leaving the page) brings it up to date first.
+    // One timer for a run of edits: each edit moves the time it is due, and a timer that fires
+    // early waits the rest (a timer set and cleared on every edit costs more, and posts work
+    // across the browser's threads while the edit is being drawn).
     pending = hash;
-    clearTimeout(timer);
-    timer = setTimeout(flush, ADDRESS_PAUSE_MS);
+    due = performance.now() + ADDRESS_PAUSE_MS;
+    if (!timer) timer = setTimeout(whenDue, ADDRESS_PAUSE_MS);
   }
 
   let pending = null;
   let timer = 0;
+  let due = 0;
+  function whenDue() {
+    const left = due - performance.now();
+    if (left > 1) timer = setTimeout(whenDue, left);
+    else flush();
+  }
   function addressNow() {
     if (!timer) return;
     clearTimeout(timer);
