@@ -1087,3 +1087,62 @@ fn every_chart_error_is_a_sentence() {
         "Only one row of the table was found: paste the size names and at least one measurement row."
     );
 }
+
+// Aligned text (runs of spaces) that writes one space between two cells.
+
+#[test]
+fn a_wheel_row_with_one_space_between_cells_keeps_each_size_s_wheel() {
+    let c = chart("23_pdf_aligned_wheel_row_single_spaces.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    let w = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("27.5x2.4", "27.5x2.4"),
+            // "27.5" / 29"": front and rear.
+            w("27.5x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+        ]
+    );
+    assert!(
+        !has_note(&c, "Wheel size", "not recognised"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0, 505.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 4]);
+    assert_row(&c, "wheelbase_mm", &[1190.0, 1218.0, 1246.0, 1275.0]);
+}
+
+#[test]
+fn a_wheel_row_of_single_spaces_only_is_cut_at_the_columns() {
+    let c = chart("24_pdf_aligned_road_wheels_single_spaces.txt");
+    assert_eq!(labels(&c), ["49", "52", "54", "56", "58"]);
+    let w = |d: &str| (d.to_string(), d.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("700x28c"),
+            w("700x28c"),
+            w("700x32c"),
+            w("700x32c"),
+            w("700x32c")
+        ]
+    );
+    // A width in the cell: nothing assumed.
+    assert!(
+        !has_note(&c, "Wheels", "common stock width"),
+        "{:#?}",
+        c.notes
+    );
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[372.0, 380.0, 387.0, 395.0, 402.0]);
+    assert_row(&c, "head_angle_deg", &[71.0, 72.0, 72.5, 73.0, 73.0]);
+    assert_row(&c, "chainstay_mm", &[415.0, 415.0, 415.0, 418.0, 418.0]);
+    assert_row(&c, "wheelbase_mm", &[975.0, 982.0, 991.0, 1001.0, 1012.0]);
+}

@@ -33,6 +33,7 @@
 //! (with the options and the one chosen). Answers to questions are passed back by `id` through
 //! [`import_chart_with`].
 
+mod aligned;
 mod assemble;
 pub mod cell;
 mod grid;
