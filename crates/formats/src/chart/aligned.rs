@@ -26,13 +26,15 @@ type Span = (usize, usize);
 /// The character columns of each cell of a line, found left to right (a cell's text stands in
 /// the line as written); `None` when a cell cannot be found.
 fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
-    let col = |byte: usize| line.get(..byte).map_or(0, |t| t.chars().count());
-    let mut from = 0;
+    // Character columns counted as the search moves on: one pass over the line.
+    let (mut from, mut col) = (0, 0);
     let mut out = Vec::with_capacity(cells.len());
     for c in cells {
         let at = from + line.get(from..)?.find(c.as_str())?;
+        let start = col + line.get(from..at)?.chars().count();
+        col = start + c.chars().count();
         from = at + c.len();
-        out.push((col(at), col(from)));
+        out.push((start, col));
     }
     Some(out)
 }
@@ -65,8 +67,8 @@ pub(super) fn align_values(lines: &[String], rows: &mut [Row]) -> bool {
         )));
     }
     // Columns: the values' spans merged where they overlap.
-    let columns = merge(valued.iter().flatten().flat_map(|(_, s)| s.iter().copied()));
-    let column_of = |s: &Span| columns.iter().position(|c| c.0 <= s.0 && s.1 <= c.1);
+    let columns = merge(valued.iter().flatten().map(|(_, s)| s.as_slice()));
+    let column_of = |s: &Span| column_holding(&columns, *s);
     let mut placed: Vec<Option<(usize, Vec<usize>)>> = Vec::with_capacity(valued.len());
     for v in &valued {
         let Some((first, spans)) = v else {
@@ -106,27 +108,46 @@ pub(super) fn align_values(lines: &[String], rows: &mut [Row]) -> bool {
     true
 }
 
-/// Spans merged where they overlap, in order. Kept in order by inserting (a chart has a few
-/// dozen cells; no sort routine in the module).
-fn merge(spans: impl Iterator<Item = Span>) -> Vec<Span> {
-    let mut all: Vec<Span> = Vec::new();
-    for s in spans {
-        let at = all.partition_point(|c| *c < s);
-        all.insert(at, s);
-    }
+/// The spans of all lines merged where they overlap, in order. Each line's spans are in order
+/// (its cells left to right), so each is merged into the columns so far in one pass: no sort
+/// routine in the module, and hostile text with thousands of cells stays quick.
+fn merge<'a>(lines: impl Iterator<Item = &'a [Span]>) -> Vec<Span> {
     let mut columns: Vec<Span> = Vec::new();
-    for s in all {
-        match columns.last_mut() {
-            Some(c) if s.0 < c.1 => c.1 = c.1.max(s.1),
-            _ => columns.push(s),
+    for spans in lines {
+        let mut merged: Vec<Span> = Vec::with_capacity(columns.len() + spans.len());
+        let (mut a, mut b) = (columns.iter().peekable(), spans.iter().peekable());
+        loop {
+            let next = match (a.peek(), b.peek()) {
+                (Some(x), Some(y)) if x <= y => a.next(),
+                (_, Some(_)) => b.next(),
+                (Some(_), None) => a.next(),
+                (None, None) => break,
+            };
+            let Some(&s) = next else { break };
+            match merged.last_mut() {
+                Some(c) if s.0 < c.1 => c.1 = c.1.max(s.1),
+                _ => merged.push(s),
+            }
         }
+        columns = merged;
     }
     columns
 }
 
-/// Whether two spans share a character column.
-fn overlaps(a: Span, b: Span) -> bool {
-    a.0 < b.1 && b.0 < a.1
+/// The first column a span shares a character column with. The columns are in order and
+/// apart, so a binary search finds it.
+fn column_over(columns: &[Span], s: Span) -> Option<usize> {
+    let i = columns.partition_point(|c| c.1 <= s.0);
+    columns.get(i).filter(|c| c.0 < s.1).map(|_| i)
+}
+
+/// The column that holds a span whole.
+fn column_holding(columns: &[Span], s: Span) -> Option<usize> {
+    let i = columns.partition_point(|c| c.1 <= s.0);
+    columns
+        .get(i)
+        .filter(|c| c.0 <= s.0 && s.1 <= c.1)
+        .map(|_| i)
 }
 
 /// The columns of the aligned lines (none when two one-word cells of a line share one), and
@@ -155,13 +176,10 @@ fn columns(lines: &[String], rows: &[Row]) -> (Vec<Span>, bool) {
         let all = row.cells.iter().skip(1).all(one_word);
         lined.push((clean, all));
     }
-    let columns = merge(lined.iter().flat_map(|(s, _)| s.iter().copied()));
+    let columns = merge(lined.iter().map(|(s, _)| s.as_slice()));
     let mut full = false;
     for (clean, all) in &lined {
-        let cols: Option<Vec<usize>> = clean
-            .iter()
-            .map(|s| columns.iter().position(|c| c.0 <= s.0 && s.1 <= c.1))
-            .collect();
+        let cols: Option<Vec<usize>> = clean.iter().map(|s| column_holding(&columns, *s)).collect();
         let Some(cols) = cols else {
             return (Vec::new(), false);
         };
@@ -278,7 +296,7 @@ fn run_cuts(line: &str, run: &[Word], first: bool, columns: &[Span]) -> Vec<usiz
     // Groups: the index of their first token and their column.
     let mut groups: Vec<(usize, Option<usize>)> = vec![(0, None)];
     for (i, t) in tokens.iter().enumerate() {
-        let Some(c) = columns.iter().position(|k| overlaps(t.cols, *k)) else {
+        let Some(c) = column_over(columns, t.cols) else {
             continue;
         };
         match groups.last_mut() {
@@ -329,7 +347,7 @@ fn place_units(line: &str, row: &mut Row, columns: &[Span]) {
     let mut out = vec![String::new(); columns.len() + 1];
     let mut last = None;
     for (cell, s) in row.cells.iter().zip(spans) {
-        let Some(col) = columns.iter().position(|k| overlaps(s, *k)) else {
+        let Some(col) = column_over(columns, s) else {
             return;
         };
         if last.is_some_and(|l| col <= l) {

@@ -8,6 +8,7 @@
 
 use super::aligned;
 use super::cell::{is_value_token, Mark};
+use super::MAX_SIZES;
 
 /// The separator found in the text.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -66,10 +67,14 @@ pub fn split(lines: &[String]) -> Grid {
         })
         .collect();
     let mut rows = rows;
-    if sep == Sep::Spaces {
+    // A row wider than any chart's is refused later (too many sizes): its columns need no
+    // reading, and hostile text of thousands of cells stays quick.
+    let chart_wide = rows.iter().all(|r| r.cells.len() <= 4 * MAX_SIZES + 4);
+    let spaces = sep == Sep::Spaces && chart_wide;
+    if spaces {
         aligned::place(lines, &mut rows);
     }
-    let placed = sep != Sep::Spaces || aligned::align_values(lines, &mut rows);
+    let placed = sep != Sep::Spaces || (spaces && aligned::align_values(lines, &mut rows));
     let decimal_comma = rows
         .iter()
         .flat_map(|r| r.cells.iter())
