@@ -87,7 +87,7 @@ for (const [name, width, height] of SIZES) {
       ['frame.head_angle_deg', '95', /Head tube angle must be between 45 and 85°, got 95/],
       // Inside its own range, but with the other numbers no frame: said beside the head angle the
       // person typed, not on the blank BB drop (crates/kernel/src/solve/blame.rs).
-      ['frame.head_angle_deg', '45', /^The published head tube angle 45\.0°, stack 635 mm and head tube length 110 mm together put the BB drop at 183 mm, which no frame can have \(allowed -150 to 150 mm\); check the head tube angle first/],
+      ['frame.head_angle_deg', '45', /^The published head tube angle 45\.0°, stack 635 mm and head tube length 110 mm together put the BB drop at 183 mm, which no frame can have \(allowed \u2212150 to 150 mm\); check the head tube angle first/],
       ['wheels.front', '31x9', /not recognised/],
       ['rider.height_mm', 'tall', /^Height "tall" is not a number; enter a length such as 1780 mm, 178 cm or 5'10"\.$/],
     ];

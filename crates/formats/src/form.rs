@@ -326,6 +326,25 @@ mod tests {
     }
 
     #[test]
+    fn a_typed_minus_sign_reads_as_a_negative_number() {
+        // Messages write negative numbers with a minus sign (U+2212, kernel `error::minus`):
+        // a person may type one, or paste one back, in any number field.
+        let (s, e) = scenario_from_form(&form(&[
+            ("setup.stem_angle_deg", "\u{2212}6°"),
+            ("setup.saddle_setback_mm", "\u{2212}15"),
+            ("frame.seat_axis_offset_mm", "\u{2212}2 cm"),
+        ]));
+        let b = s.bikes.first().cloned().unwrap_or_default();
+        assert_eq!(b.setup.stem_angle_deg, Some(-6.0));
+        assert_eq!(b.setup.saddle_setback_mm, Some(-15.0));
+        // Its rounding is read as with a hyphen: "2 cm" is good to 10 mm.
+        let offset = b.frame.get("seat_axis_offset_mm");
+        assert_eq!(offset.map(|p| p.value()), Some(-20.0));
+        assert_eq!(offset.and_then(|p| p.tolerance()), Some(10.0));
+        assert!(e.is_empty(), "{e:?}");
+    }
+
+    #[test]
     fn bad_and_blank_required_fields_are_named() {
         let (_, e) = scenario_from_form(&form(&[
             ("frame.reach_mm", "long"),

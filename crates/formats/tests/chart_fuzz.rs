@@ -162,6 +162,22 @@ fn very_long_lines_and_many_cells() {
         "S ".repeat(30_000),
         "1 ".repeat(30_000)
     ));
+    // Aligned text (runs of spaces) of many cells: its columns are not read (too many sizes),
+    // and the lines of a chart's width are read in one pass each.
+    check(&format!("Reach  {}", "12  ".repeat(60_000)));
+    let rows = format!("Reach  {}\n", "1  ".repeat(200)).repeat(300);
+    check(&format!("Size  {}\n{rows}", "M  ".repeat(200)));
+    check(
+        &(0..400)
+            .map(|i| {
+                format!(
+                    "L{i}  {}{}\n",
+                    " ".repeat(i * 3 % 500),
+                    "1 2 x  ".repeat(60)
+                )
+            })
+            .collect::<String>(),
+    );
     check(&"Reach\t470\n".repeat(20_000));
     check(&"(".repeat(50_000));
     check(&"[[[[((((1)))]]]]".repeat(5_000));

@@ -509,7 +509,7 @@ fn sizes_as_rows_with_a_units_row_under_the_labels() {
     assert_row(&c, "stack_mm", &[605.0, 615.0]);
     assert_row(&c, "head_angle_deg", &[66.0, 66.0]);
     assert_row(&c, "chainstay_mm", &[435.0, 435.0]);
-    assert!(has_note(&c, "", "units column"));
+    assert!(has_note(&c, "", "units row under the labels"));
 }
 
 #[test]
@@ -1086,4 +1086,198 @@ fn every_chart_error_is_a_sentence() {
         junk.to_string(),
         "Only one row of the table was found: paste the size names and at least one measurement row."
     );
+}
+
+// Units in both orientations. With sizes as columns a units column sits after the labels or on
+// the right (fixtures 04, 17); with sizes as rows each column is one measurement, so its unit is
+// in a units row: under the labels, above them or at the foot of the table.
+
+/// No question asks a unit, and no note says one was guessed: every unit came from the chart.
+fn assert_units_given(c: &ChartImport) {
+    assert_read_cleanly(c);
+    let asked: Vec<&str> = c
+        .questions
+        .iter()
+        .map(|q| q.id.as_str())
+        .filter(|id| id.ends_with("#unit"))
+        .collect();
+    assert!(asked.is_empty(), "{asked:?}");
+}
+
+#[test]
+fn sizes_as_rows_with_an_aligned_units_row_under_the_labels() {
+    let c = chart("19_pdf_aligned_units_row_under_labels.txt");
+    assert_eq!(labels(&c), ["XS", "S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // cm × 10; the wheel-size column has no unit, and the units after it stay in their columns.
+    assert_row(&c, "reach_mm", &[370.0, 380.0, 390.0, 400.0]);
+    assert_row(&c, "stack_mm", &[525.0, 540.0, 560.0, 580.0]);
+    assert_row(&c, "head_angle_deg", &[70.5, 71.0, 71.5, 72.0]);
+    assert_row(&c, "seat_angle_effective_deg", &[75.0, 74.5, 74.0, 73.5]);
+    // mm as written.
+    assert_row(&c, "chainstay_mm", &[415.0, 415.0, 420.0, 420.0]);
+    assert_row(&c, "wheelbase_mm", &[975.0, 985.0, 1000.0, 1015.0]);
+    // 7,2 cm: mm or cm by the size of the number alone; the units row says cm.
+    assert_row(&c, "bb_drop_mm", &[72.0, 72.0, 70.0, 70.0]);
+    let w275 = ("27.5x2.4".to_string(), "27.5x2.4".to_string());
+    let w29 = ("29x2.4".to_string(), "29x2.4".to_string());
+    assert_eq!(wheels(&c), [w275.clone(), w275, w29.clone(), w29]);
+    assert!(has_note(&c, "", "units row under the labels"));
+    assert_units_given(&c);
+}
+
+#[test]
+fn sizes_as_rows_with_a_units_row_above_the_labels() {
+    let c = chart("20_tab_units_row_above_labels.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[425.0, 450.0, 475.0]);
+    assert_row(&c, "stack_mm", &[600.0, 610.0, 620.0]);
+    assert_row(&c, "head_angle_deg", &[65.5; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5]);
+    assert_row(&c, "chainstay_mm", &[435.0, 435.0, 440.0]);
+    assert_row(&c, "wheelbase_mm", &[1180.0, 1205.0, 1230.0]);
+    // 3,5 cm: read from the units row, not asked.
+    assert_row(&c, "bb_drop_mm", &[35.0; 3]);
+    assert!(has_note(&c, "", "units row above the labels"));
+    // The units row is no ignored column of row numbers.
+    assert!(!has_note(&c, "", "before the labels"), "{:#?}", c.notes);
+    assert_units_given(&c);
+}
+
+#[test]
+fn sizes_as_rows_with_a_units_row_at_the_foot() {
+    let c = chart("21_pipes_units_row_at_the_foot.txt");
+    // The units row is no fourth size.
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // Inches × 25.4.
+    assert_row(&c, "reach_mm", &[408.94, 429.26, 449.58]);
+    assert_row(&c, "stack_mm", &[607.06, 619.76, 629.92]);
+    assert_row(&c, "top_tube_effective_mm", &[556.26, 579.12, 601.98]);
+    assert_row(&c, "head_angle_deg", &[67.0, 67.0, 67.5]);
+    assert_row(&c, "chainstay_mm", &[429.26, 429.26, 434.34]);
+    assert!(has_note(&c, "", "units row under the sizes"));
+    assert_units_given(&c);
+}
+
+#[test]
+fn size_rows_ending_in_one_length_unit_give_the_unit_of_lengths() {
+    let c = chart("22_pdf_aligned_size_rows_end_in_a_unit.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[410.0, 435.0, 460.0]);
+    assert_row(&c, "stack_mm", &[595.0, 605.0, 615.0]);
+    assert_row(&c, "head_angle_deg", &[66.0; 3]);
+    assert_row(&c, "seat_angle_effective_deg", &[76.0, 76.0, 76.5]);
+    assert_row(&c, "chainstay_mm", &[430.0, 430.0, 435.0]);
+    assert_row(&c, "wheelbase_mm", &[1175.0, 1200.0, 1225.0]);
+    // 3,5 cm fits mm or cm by its size; the column says cm.
+    assert_row(&c, "bb_drop_mm", &[35.0, 35.0, 30.0]);
+    assert!(has_note(
+        &c,
+        "",
+        "each size's row ends in cm: lengths without a unit were read as cm"
+    ));
+    assert!(!has_note(&c, "", "units column"), "{:#?}", c.notes);
+    assert_units_given(&c);
+}
+
+#[test]
+fn a_units_column_beside_size_rows_that_names_no_one_unit_is_listed() {
+    // Each size row ends in a different unit: no measurement's unit, so not read, and said.
+    let text = "Size\tReach\tStack\tHead angle\nS\t430\t605\t66\tmm\nM\t455\t615\t66\t°\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0]);
+    assert_row(&c, "head_angle_deg", &[66.0, 66.0]);
+    assert_eq!(c.unrecognised, ["(a column of units: mm, deg)"]);
+    assert!(has_note(
+        &c,
+        "",
+        "a column of units (mm, deg) after the sizes' values was not read"
+    ));
+    // Degrees alone say nothing about lengths either.
+    let text = "Size\tReach\tStack\tHead angle\nS\t430\t605\t66\t°\nM\t455\t615\t66\t°\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(c.unrecognised, ["(a column of units: deg)"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+}
+
+#[test]
+fn a_units_column_title_on_the_right_is_no_size() {
+    let text = "Size\tS\tM\tL\tUnit\nReach\t43\t45,5\t48\tcm\nStack\t60,5\t61,5\t62,5\tcm\nHead angle\t65\t65\t65\t°\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0, 625.0]);
+    assert_row(&c, "head_angle_deg", &[65.0; 3]);
+    assert_units_given(&c);
+    // The same with sizes as rows: the title heads the units after each size's values.
+    let text = "Size\tReach\tStack\tHead angle\tUnit\nS\t43\t60,5\t66\tcm\nM\t45,5\t61,5\t66\tcm\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[430.0, 455.0]);
+    assert_row(&c, "stack_mm", &[605.0, 615.0]);
+}
+
+// Aligned text (runs of spaces) that writes one space between two cells.
+
+#[test]
+fn a_wheel_row_with_one_space_between_cells_keeps_each_size_s_wheel() {
+    let c = chart("23_pdf_aligned_wheel_row_single_spaces.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    let w = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("27.5x2.4", "27.5x2.4"),
+            // "27.5" / 29"": front and rear.
+            w("27.5x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+        ]
+    );
+    assert!(
+        !has_note(&c, "Wheel size", "not recognised"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0, 505.0]);
+    assert_row(&c, "head_angle_deg", &[64.5; 4]);
+    assert_row(&c, "wheelbase_mm", &[1190.0, 1218.0, 1246.0, 1275.0]);
+}
+
+#[test]
+fn a_wheel_row_of_single_spaces_only_is_cut_at_the_columns() {
+    let c = chart("24_pdf_aligned_road_wheels_single_spaces.txt");
+    assert_eq!(labels(&c), ["49", "52", "54", "56", "58"]);
+    let w = |d: &str| (d.to_string(), d.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("700x28c"),
+            w("700x28c"),
+            w("700x32c"),
+            w("700x32c"),
+            w("700x32c")
+        ]
+    );
+    // A width in the cell: nothing assumed.
+    assert!(
+        !has_note(&c, "Wheels", "common stock width"),
+        "{:#?}",
+        c.notes
+    );
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[372.0, 380.0, 387.0, 395.0, 402.0]);
+    assert_row(&c, "head_angle_deg", &[71.0, 72.0, 72.5, 73.0, 73.0]);
+    assert_row(&c, "chainstay_mm", &[415.0, 415.0, 415.0, 418.0, 418.0]);
+    assert_row(&c, "wheelbase_mm", &[975.0, 982.0, 991.0, 1001.0, 1012.0]);
 }

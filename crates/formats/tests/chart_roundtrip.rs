@@ -1,6 +1,7 @@
-//! Write a random size run as a chart in a random layout (separator, sizes as columns or rows,
-//! unit mm/cm/in written in the label, in every cell or not at all, decimal point or comma),
-//! import it, and get the same numbers back.
+//! Write a random size run as a chart in a random layout (separator or columns padded with
+//! spaces, sizes as columns or rows, unit mm/cm/in written in the label, in every cell, in a
+//! units row or column before, after or at the end of the labels, or not at all, decimal point or
+//! comma), import it, and get the same numbers back.
 //!
 //! The expected values are the written numbers times the unit's length in mm.
 //! Source: 1 in = 25.4 mm exactly (1959 international yard and pound agreement) [read].
@@ -28,6 +29,12 @@ const ROWS: &[(&str, &str, f64, f64)] = &[
 enum Placement {
     Label,
     Cells,
+    /// A units column before the labels (sizes as rows: a units row above them).
+    Before,
+    /// A units column after the labels (sizes as rows: a units row under them).
+    After,
+    /// A units column on the right (sizes as rows: a units row at the foot).
+    End,
     Absent,
 }
 
@@ -41,12 +48,25 @@ struct Layout {
     fractions: Vec<Vec<f64>>,
 }
 
+/// Not a separator: columns padded with spaces to their widest cell and two more, as a PDF
+/// copy writes them.
+const ALIGNED: &str = "aligned";
+
 fn layout() -> impl Strategy<Value = Layout> {
     (
-        prop::sample::select(&["\t", ";", ",", "   ", " | "][..]),
+        prop::sample::select(&["\t", ";", ",", "   ", " | ", ALIGNED][..]),
         any::<bool>(),
         prop::sample::select(&[("mm", 1.0, 0), ("cm", 10.0, 1), ("in", 25.4, 1)][..]),
-        prop::sample::select(&[Placement::Label, Placement::Cells, Placement::Absent][..]),
+        prop::sample::select(
+            &[
+                Placement::Label,
+                Placement::Cells,
+                Placement::Before,
+                Placement::After,
+                Placement::End,
+                Placement::Absent,
+            ][..],
+        ),
         prop::collection::vec(prop::collection::vec(0.0..=1.0f64, ROWS.len()), 1..7),
     )
         .prop_map(|(sep, rows_are_sizes, unit, placement, fractions)| Layout {
@@ -100,20 +120,79 @@ fn render(l: &Layout) -> (String, Vec<Vec<f64>>) {
     let sizes: Vec<String> = (0..l.fractions.len())
         .map(|i| format!("S{}", i + 1))
         .collect();
-    let mut lines = Vec::new();
+    let units: Vec<String> = ROWS
+        .iter()
+        .map(|(_, key, _, _)| if key.ends_with("_deg") { "°" } else { unit }.to_string())
+        .collect();
+    // The table as written: the size run's cells, then a units row or column where placed.
+    let mut table: Vec<Vec<String>> = Vec::new();
     if l.rows_are_sizes {
-        let head: Vec<String> = (0..ROWS.len()).map(label).collect();
-        lines.push(format!("Size{}{}", l.sep, head.join(l.sep)));
+        let mut head = vec!["Size".to_string()];
+        head.extend((0..ROWS.len()).map(label));
+        table.push(head);
         for (s, row) in sizes.iter().zip(&cells) {
-            lines.push(format!("{s}{}{}", l.sep, row.join(l.sep)));
+            let mut r = vec![s.clone()];
+            r.extend(row.iter().cloned());
+            table.push(r);
+        }
+        let mut units_row = vec![String::new()];
+        units_row.extend(units.iter().cloned());
+        match l.placement {
+            Placement::Before => table.insert(0, units_row),
+            Placement::After => table.insert(1, units_row),
+            Placement::End => table.push(units_row),
+            _ => {}
         }
     } else {
-        lines.push(format!("Size{}{}", l.sep, sizes.join(l.sep)));
+        let mut head = vec!["Size".to_string()];
+        head.extend(sizes.iter().cloned());
+        table.push(head);
         for i in 0..ROWS.len() {
-            let vals: Vec<&str> = cells.iter().map(|c| c[i].as_str()).collect();
-            lines.push(format!("{}{}{}", label(i), l.sep, vals.join(l.sep)));
+            let mut r = vec![label(i)];
+            r.extend(cells.iter().map(|c| c[i].clone()));
+            table.push(r);
+        }
+        let unit_of = |i: usize| {
+            if i == 0 {
+                String::new()
+            } else {
+                units[i - 1].clone()
+            }
+        };
+        for (i, r) in table.iter_mut().enumerate() {
+            match l.placement {
+                Placement::Before => r.insert(0, unit_of(i)),
+                Placement::After => r.insert(1, unit_of(i)),
+                Placement::End if i > 0 => r.push(unit_of(i)),
+                _ => {}
+            }
         }
     }
+    let lines: Vec<String> = if l.sep == ALIGNED {
+        let width = table.iter().map(Vec::len).max().unwrap_or(0);
+        let widths: Vec<usize> = (0..width)
+            .map(|c| {
+                let w = table
+                    .iter()
+                    .filter_map(|r| r.get(c))
+                    .map(|t| t.chars().count());
+                w.max().unwrap_or(0) + 2
+            })
+            .collect();
+        table
+            .iter()
+            .map(|r| {
+                let mut line = String::new();
+                for (t, w) in r.iter().zip(&widths) {
+                    line.push_str(t);
+                    line.extend(std::iter::repeat_n(' ', w - t.chars().count()));
+                }
+                line.trim_end().to_string()
+            })
+            .collect()
+    } else {
+        table.iter().map(|r| r.join(l.sep)).collect()
+    };
     (lines.join("\n"), expected)
 }
 

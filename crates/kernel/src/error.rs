@@ -120,14 +120,15 @@ pub fn fmt_disagreement(given: f64, solved: f64, degrees: bool) -> [String; 3] {
         match s.strip_prefix('-') {
             // "-0.0" is written without its sign.
             Some(rest) if rest.bytes().all(|b| b == b'0' || b == b'.') => format!("{rest}{unit}"),
-            _ => format!("{s}{unit}"),
+            _ => format!("{}{unit}", minus(&s)),
         }
     };
     [n(given), n(solved), n((solved - given).abs())]
 }
 
 /// A measured value for a message, as the page writes it: whole millimetres ("183 mm") or
-/// tenths of a degree ("45.0°"); "-0" is written "0".
+/// tenths of a degree ("45.0°"); "-0" is written "0", a negative value with a minus sign
+/// ([`minus`]).
 pub fn fmt_measure(v: f64, unit: crate::catalogue::Unit) -> String {
     let s = match unit {
         crate::catalogue::Unit::Mm => format!("{v:.0} mm"),
@@ -135,7 +136,7 @@ pub fn fmt_measure(v: f64, unit: crate::catalogue::Unit) -> String {
     };
     match s.strip_prefix('-') {
         Some(rest) if rest.bytes().all(|b| !b.is_ascii_digit() || b == b'0') => rest.to_string(),
-        _ => s,
+        _ => minus(&s),
     }
 }
 
@@ -156,7 +157,8 @@ pub fn in_sentence(label: &str) -> String {
     )
 }
 
-/// Formats a number for a message: at most two decimals, no trailing zeros.
+/// Formats a number for a message: at most two decimals, no trailing zeros, a negative number
+/// with a minus sign ([`minus`]): "between −150 and 150 mm".
 pub fn fmt_num(v: f64) -> String {
     if !v.is_finite() {
         return format!("{v}");
@@ -166,7 +168,20 @@ pub fn fmt_num(v: f64) -> String {
     if s == "-0" {
         "0".to_string()
     } else {
-        s.to_string()
+        minus(s)
+    }
+}
+
+/// A number's text for a sentence a person reads, its leading hyphen-minus made a minus sign
+/// (U+2212, as type sets a negative number: "−150", not "-150"). Only for messages: JSON
+/// numbers, links and the drawing keep the hyphen-minus, and the form reads either back
+/// (`framewise_formats::units::parse_number`).
+// Called from the three number writers above: one copy keeps the page's module small.
+#[inline(never)]
+pub fn minus(s: &str) -> String {
+    match s.strip_prefix('-') {
+        Some(rest) => format!("\u{2212}{rest}"),
+        None => s.to_string(),
     }
 }
 
@@ -220,7 +235,7 @@ mod tests {
         use crate::catalogue::Unit;
         assert_eq!(fmt_measure(183.16, Unit::Mm), "183 mm");
         assert_eq!(fmt_measure(-0.4, Unit::Mm), "0 mm");
-        assert_eq!(fmt_measure(-12.6, Unit::Mm), "-13 mm");
+        assert_eq!(fmt_measure(-12.6, Unit::Mm), "\u{2212}13 mm");
         assert_eq!(fmt_measure(45.0, Unit::Deg), "45.0°");
         assert_eq!(fmt_measure(64.96, Unit::Deg), "65.0°");
     }
@@ -238,5 +253,31 @@ mod tests {
         assert_eq!(fmt_num(65.0), "65");
         assert_eq!(fmt_num(64.25), "64.25");
         assert_eq!(fmt_num(-0.001), "0");
+    }
+
+    #[test]
+    fn negative_numbers_in_messages_have_a_minus_sign() {
+        assert_eq!(fmt_num(-150.0), "\u{2212}150");
+        assert_eq!(fmt_num(-2.5), "\u{2212}2.5");
+        assert_eq!(minus("-12"), "\u{2212}12");
+        assert_eq!(minus("12"), "12");
+        let e = FieldError::out_of_range(
+            "setup.stem_angle_deg",
+            "stem angle",
+            -60.0,
+            -45.0,
+            45.0,
+            "°",
+        );
+        assert_eq!(
+            e.message,
+            "Stem angle must be between \u{2212}45 and 45°, got \u{2212}60"
+        );
+        // The range for a second reading keeps the numbers themselves.
+        assert_eq!(e.allowed, Some((-45.0, 45.0)));
+        assert_eq!(
+            fmt_disagreement(-10.0, -30.0, false),
+            ["\u{2212}10 mm", "\u{2212}30 mm", "20 mm"]
+        );
     }
 }

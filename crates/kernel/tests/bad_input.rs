@@ -79,9 +79,10 @@ fn negative_lengths() {
         (code, field),
         ("out_of_range", "bikes[0].frame.head_tube_mm")
     );
-    assert!(
-        msg.contains("-110") && msg.contains("between 30 and 400"),
-        "{msg}"
+    // A negative number in a message has a minus sign (U+2212), not a hyphen.
+    assert_eq!(
+        msg,
+        "Head tube length must be between 30 and 400 mm, got \u{2212}110"
     );
 }
 
@@ -142,7 +143,7 @@ fn a_solved_value_no_frame_can_have_is_said_beside_the_published_value_that_move
         msg,
         format!(
             "The published head tube angle 45.0°, stack 620 mm and head tube length 110 mm \
-             together put the BB drop at {drop:.0} mm, which no frame can have (allowed -150 to \
+             together put the BB drop at {drop:.0} mm, which no frame can have (allowed \u{2212}150 to \
              150 mm); check the head tube angle first: of these it moves the BB drop most."
         )
     );

@@ -162,7 +162,7 @@ fn an_impossible_head_angle_is_said_beside_the_head_angle() {
         errors[0]["message"],
         format!(
             "The published head tube angle 45.0°, stack 635 mm and head tube length 110 mm \
-             together put the BB drop at {drop:.0} mm, which no frame can have (allowed -150 to \
+             together put the BB drop at {drop:.0} mm, which no frame can have (allowed \u{2212}150 to \
              150 mm); check the head tube angle first: of these it moves the BB drop most."
         )
     );

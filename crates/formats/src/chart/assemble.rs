@@ -1,5 +1,6 @@
 //! The table's shape: text lines out, short rows repaired, sizes as columns or rows, the label
-//! column, a units column, the size row. The values themselves are read in `rows`.
+//! column, a units column (or, with sizes as rows, a units row), the size row. The values
+//! themselves are read in `rows`.
 
 use super::cell::{is_footnote_line, is_value_token, parse_cell, strip_footnotes, Cell, Mark};
 use super::grid::{is_size_token, Grid, Row, Sep};
@@ -60,13 +61,41 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     if width > 4 * MAX_SIZES {
         return Err(ChartError::TooManySizes { count: width - 1 });
     }
-    let trailing = take_trailing_units(&mut table, grid.decimal_comma, &mut log);
+    // Units are read in the table with sizes as columns: in a chart with sizes as rows a units
+    // row (under or above the labels, or at the foot) becomes a units column once the table is
+    // turned, and a units column on the right says nothing about one measurement.
+    let across = runs_across(&table);
+    if across {
+        log.note(
+            "",
+            "the measurements run across the top, so each row was read as one size".into(),
+        );
+    }
+    let ends = take_trailing_units(&mut table, grid.decimal_comma);
+    let mut trailing = Vec::new();
+    if across {
+        if let Some(unit) = units_after_sizes(&ends, &mut log) {
+            global_unit = Some(unit);
+        }
+    } else if !ends.is_empty() {
+        log.note(
+            "",
+            "read each row's unit from the units column on the right".into(),
+        );
+        trailing = ends;
+    }
     repair_short_rows(&mut table);
-    let (table, across) = orient(table, grid, &mut log)?;
-    // A units column at the end belongs to a table of sizes as columns: its rows are the
-    // table's rows only while the table is not turned.
-    let trailing = if across { Vec::new() } else { trailing };
-    let (table, units_col) = label_first(table, &mut log)?;
+    if across {
+        table = turn(table, grid, &mut log)?;
+        trailing = take_trailing_units(&mut table, grid.decimal_comma);
+        if !trailing.is_empty() {
+            log.note(
+                "",
+                "read each measurement's unit from the units row under the sizes".into(),
+            );
+        }
+    }
+    let (table, units_col) = label_first(table, across, &mut log)?;
     let header = find_header(&table);
     let value_count = table
         .iter()
@@ -232,9 +261,9 @@ fn unit_hint(line: &str) -> Option<Mark> {
 /// A units column on the right ("Reach  37,0  37,8  38,5  cm"): each row whose last cell is a
 /// unit word (`cm`, `mm`, `in`, `°` …) after at least one number loses that cell, and the word
 /// is the row's unit. Read as a column when at least two rows end so and they are at least
-/// half of the rows with numbers; else nothing changes. Returns each row's unit (by its place
-/// in `table`), or nothing.
-fn take_trailing_units(table: &mut [Vec<String>], decimal_comma: bool, log: &mut Log) -> Units {
+/// half of the rows with numbers; else nothing changes. The column's title ("Unit") in the
+/// same place goes too. Returns each row's unit (by its place in `table`), or nothing.
+fn take_trailing_units(table: &mut [Vec<String>], decimal_comma: bool) -> Units {
     let number = |c: &String| matches!(parse_cell(c, decimal_comma), Cell::Number(_));
     let unit_at_end = |r: &Vec<String>| -> Option<(usize, Mark)> {
         let (i, last) = r
@@ -250,21 +279,68 @@ fn take_trailing_units(table: &mut [Vec<String>], decimal_comma: bool, log: &mut
     if ended < 2 || ended * 2 < with_numbers {
         return Vec::new();
     }
-    log.note(
-        "",
-        "read each row's unit from the units column on the right".into(),
-    );
+    let at = table.iter().find_map(&unit_at_end).map(|(i, _)| i);
     table
         .iter_mut()
         .map(|r| {
-            let (i, mark) = unit_at_end(r)?;
+            let Some((i, mark)) = unit_at_end(r) else {
+                if at.is_some_and(|i| i + 1 == r.len() && r.get(i).is_some_and(|c| units_title(c)))
+                {
+                    r.truncate(r.len() - 1);
+                }
+                return None;
+            };
             r.truncate(i);
             Some(mark)
         })
         .collect()
 }
 
-/// A row one cell short whose first cell is a size name or a number lacks its (blank) label.
+/// The title of a units column or row ("Unit", "Units").
+fn units_title(cell: &str) -> bool {
+    let t = cell.trim().trim_end_matches(['.', ':']).to_lowercase();
+    matches!(t.as_str(), "unit" | "units")
+}
+
+/// A column of units after the values of a chart with sizes as rows (each size's row ends in
+/// "cm", taken off by [`take_trailing_units`]). It names no measurement: with sizes as rows each
+/// column is one. When it says the same length unit for every size that has one, and for at
+/// least two, that unit is read as the unit of lengths written without one, with a note;
+/// otherwise it is listed in `unrecognised` with a note saying where units can go.
+fn units_after_sizes(ends: &[Option<Mark>], log: &mut Log) -> Option<Mark> {
+    let marks: Vec<Mark> = ends.iter().flatten().copied().collect();
+    let first = *marks.first()?;
+    if first != Mark::Deg && marks.len() >= 2 && marks.iter().all(|m| *m == first) {
+        log.note(
+            "",
+            format!(
+                "each size's row ends in {}: lengths without a unit were read as {}",
+                first.name(),
+                first.words()
+            ),
+        );
+        return Some(first);
+    }
+    let mut names: Vec<&str> = Vec::new();
+    for m in &marks {
+        if !names.contains(&m.name()) {
+            names.push(m.name());
+        }
+    }
+    let names = names.join(", ");
+    log.note(
+        "",
+        format!(
+            "a column of units ({names}) after the sizes' values was not read: with the sizes as rows each column is one measurement, so its unit goes in its label (\"Reach (mm)\") or in a units row under the labels"
+        ),
+    );
+    log.unrecognised
+        .push(format!("(a column of units: {names})"));
+    None
+}
+
+/// A row one cell short whose first cell is a size name or a number, or whose cells are all
+/// units, lacks its (blank) label.
 fn repair_short_rows(table: &mut [Vec<String>]) {
     let mut counts: BTreeMap<usize, usize> = BTreeMap::new();
     for r in table.iter().filter(|r| r.len() >= 2) {
@@ -298,9 +374,12 @@ fn repair_short_rows(table: &mut [Vec<String>]) {
             .skip(1)
             .all(|c| c.is_empty() || is_size_token(c) || !is_value_token(c))
     };
+    // A units row ("mm  mm  °") has no label either.
+    let units_only = |r: &Vec<String>| r.iter().all(|c| Mark::from_word(c).is_some());
     for r in table.iter_mut() {
         let first = r.first().map_or("", String::as_str);
         let unlabelled = first.is_empty()
+            || units_only(r)
             || (is_size_token(first) && sizes_only(r))
             || is_value_token(first)
             || (referenced && !is_ref(r));
@@ -314,15 +393,9 @@ fn measurement(cell: &str) -> bool {
     classify(cell).kind.is_measurement()
 }
 
-/// Sizes as rows (labels across the top) are transposed to sizes as columns.
-/// The table with sizes as columns, and whether it was turned (the sizes ran down the side).
-/// A size row with fewer values than the table has columns is placed first
-/// ([`place_short_size_rows`]).
-fn orient(
-    mut table: Vec<Vec<String>>,
-    grid: &Grid,
-    log: &mut Log,
-) -> Result<(Vec<Vec<String>>, bool), ChartError> {
+/// Whether the sizes run down the side (the measurements' labels across the top): more
+/// labels in one of the first rows than in any of the first three columns.
+fn runs_across(table: &[Vec<String>]) -> bool {
     let col_best = (0..3)
         .map(|c| {
             table
@@ -338,18 +411,21 @@ fn orient(
         .map(|r| r.iter().filter(|s| measurement(s)).count())
         .max()
         .unwrap_or(0);
-    if row_best <= col_best {
-        return Ok((table, false));
-    }
+    row_best > col_best
+}
+
+/// A table of sizes as rows turned into sizes as columns. A size row with fewer values than the
+/// table has columns is placed first ([`place_short_size_rows`]).
+fn turn(
+    mut table: Vec<Vec<String>>,
+    grid: &Grid,
+    log: &mut Log,
+) -> Result<Vec<Vec<String>>, ChartError> {
     if table.len() > MAX_SIZES + 4 {
         return Err(ChartError::TooManySizes {
             count: table.len() - 1,
         });
     }
-    log.note(
-        "",
-        "the measurements run across the top, so each row was read as one size".into(),
-    );
     let width = table.iter().map(Vec::len).max().unwrap_or(0);
     place_short_size_rows(&mut table, width, grid, log);
     let turned = (0..width)
@@ -364,7 +440,7 @@ fn orient(
             col
         })
         .collect();
-    Ok((turned, true))
+    Ok(turned)
 }
 
 /// The size rows of a chart with sizes as rows that have fewer cells than the widest row:
@@ -402,9 +478,12 @@ fn place_short_size_rows(table: &mut [Vec<String>], width: usize, grid: &Grid, l
 type Units = Vec<Option<Mark>>;
 
 /// Moves the label column first (dropping row-number columns before it) and takes out a
-/// units column after it. Returns the table and each row's unit from that column.
+/// units column after it, or just before it. Returns the table and each row's unit from that
+/// column. `across`: the table was turned, so the column was a units row under (or above) the
+/// measurements' labels.
 fn label_first(
     table: Vec<Vec<String>>,
+    across: bool,
     log: &mut Log,
 ) -> Result<(Vec<Vec<String>>, Units), ChartError> {
     let scores: Vec<usize> = (0..3)
@@ -428,31 +507,36 @@ fn label_first(
         }
         return Err(ChartError::NothingRecognised { labels });
     }
-    if label_col > 0 {
+    // A units column just before the labels (a units row above them, once turned).
+    let before = label_col
+        .checked_sub(1)
+        .filter(|c| units_at(&table, label_col, *c));
+    let ignored = label_col - usize::from(before.is_some());
+    if ignored > 0 {
         log.note(
             "",
             format!(
-                "ignored {label_col} column(s) before the labels (row numbers or drawing references)"
+                "ignored {ignored} column(s) before the labels (row numbers or drawing references)"
             ),
         );
     }
+    let before: Units = before.map_or_else(Vec::new, |c| {
+        log.note("", units_said(across, "above"));
+        table.iter().map(|r| unit_at(r, c)).collect()
+    });
     let mut table: Vec<Vec<String>> = table
         .into_iter()
         .map(|r| r.into_iter().skip(label_col).collect())
         .collect();
-    let is_units_col = table.iter().any(|r| unit_cell(r).is_some())
-        && table
-            .iter()
-            .filter(|r| measurement(r.first().map_or("", String::as_str)))
-            .all(|r| {
-                r.get(1)
-                    .is_none_or(|c| c.is_empty() || Mark::from_word(c).is_some())
-            });
-    if !is_units_col {
-        return Ok((table, vec![None; 0]));
+    if !units_at(&table, 0, 1) {
+        return Ok((table, before));
     }
-    log.note("", "read each row's unit from the units column".into());
-    let units = table.iter().map(|r| unit_cell(r)).collect();
+    log.note("", units_said(across, "under"));
+    let units = table
+        .iter()
+        .enumerate()
+        .map(|(i, r)| unit_at(r, 1).or(before.get(i).copied().flatten()))
+        .collect();
     // A row as wide as the table has a cell in the units column (its title, "Unit"); a
     // shorter row without a unit there (the size names "GEOMETRY  XS  S  M") has none.
     let width = table.iter().map(Vec::len).max().unwrap_or(0);
@@ -467,8 +551,31 @@ fn label_first(
     Ok((table, units))
 }
 
-fn unit_cell(r: &[String]) -> Option<Mark> {
-    r.get(1).and_then(|c| Mark::from_word(c))
+fn unit_at(r: &[String], col: usize) -> Option<Mark> {
+    r.get(col).and_then(|c| Mark::from_word(c))
+}
+
+/// Whether column `col` holds units: a unit word in some row, and only unit words or blanks
+/// in the rows whose label (in column `label`) names a measurement.
+fn units_at(table: &[Vec<String>], label: usize, col: usize) -> bool {
+    table.iter().any(|r| unit_at(r, col).is_some())
+        && table
+            .iter()
+            .filter(|r| measurement(r.get(label).map_or("", String::as_str)))
+            .all(|r| {
+                r.get(col)
+                    .is_none_or(|c| c.is_empty() || Mark::from_word(c).is_some())
+            })
+}
+
+/// The note that says where the units were read: a column beside the labels, or (the table
+/// turned) a units row `place` ("under", "above") the measurements' labels.
+fn units_said(across: bool, place: &str) -> String {
+    if across {
+        format!("read each measurement's unit from the units row {place} the labels")
+    } else {
+        "read each row's unit from the units column".into()
+    }
 }
 
 /// The row of size names: labelled "Size" (or blank), else an unlabelled first row.

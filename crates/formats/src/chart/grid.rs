@@ -2,10 +2,13 @@
 //!
 //! The separator is chosen from the text: tabs (a web table or spreadsheet copy), semicolons
 //! (European CSV), pipes (text tables), commas (CSV, with quotes), or runs of spaces (a PDF
-//! copy). Commas that only ever sit between digits with one or two digits after them are
-//! decimal commas, not separators. Lines of dashes or equals signs are dropped.
+//! copy; the columns of its lines then mend what single spaces hide, `aligned`). Commas that
+//! only ever sit between digits with one or two digits after them are decimal commas, not
+//! separators. Lines of dashes or equals signs are dropped.
 
+use super::aligned;
 use super::cell::{is_value_token, Mark};
+use super::MAX_SIZES;
 
 /// The separator found in the text.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -64,7 +67,14 @@ pub fn split(lines: &[String]) -> Grid {
         })
         .collect();
     let mut rows = rows;
-    let placed = sep != Sep::Spaces || align_values(lines, &mut rows);
+    // A row wider than any chart's is refused later (too many sizes): its columns need no
+    // reading, and hostile text of thousands of cells stays quick.
+    let chart_wide = rows.iter().all(|r| r.cells.len() <= 4 * MAX_SIZES + 4);
+    let spaces = sep == Sep::Spaces && chart_wide;
+    if spaces {
+        aligned::place(lines, &mut rows);
+    }
+    let placed = sep != Sep::Spaces || (spaces && aligned::align_values(lines, &mut rows));
     let decimal_comma = rows
         .iter()
         .flat_map(|r| r.cells.iter())
@@ -221,7 +231,7 @@ pub fn is_size_token(t: &str) -> bool {
 
 /// Space-separated line: cells at runs of two or more spaces when present; a first cell with
 /// numbers after its words is split; otherwise single spaces with the leading words as label.
-fn split_spaces(line: &str) -> Vec<String> {
+pub(super) fn split_spaces(line: &str) -> Vec<String> {
     let trimmed = line.trim();
     let runs: Vec<&str> = trimmed
         .split("  ")
@@ -279,104 +289,6 @@ fn label_and_values(tokens: &[String]) -> Vec<String> {
     cells
 }
 
-/// A span of character columns `[start, end)` in a line.
-type Span = (usize, usize);
-
-/// The character columns of each cell of a line, found left to right (a cell's text stands in
-/// the line as written); `None` when a cell cannot be found.
-fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
-    let col = |byte: usize| line.get(..byte).map_or(0, |t| t.chars().count());
-    let mut from = 0;
-    let mut out = Vec::with_capacity(cells.len());
-    for c in cells {
-        let at = from + line.get(from..)?.find(c.as_str())?;
-        from = at + c.len();
-        out.push((col(at), col(from)));
-    }
-    Some(out)
-}
-
-/// A blank cell in a table aligned with runs of spaces leaves a wider gap, not an empty cell:
-/// "Stack  610         640" under "S  M  L" would read as S 610, M 640. When every line with
-/// values is aligned (runs of two or more spaces) and the values of all lines fall into
-/// columns that no two values of one line share, a line's missing columns become empty cells,
-/// so each value stays under its own size. Anything less regular is left as it was (the rows
-/// are then read from the left, and the import says so). Returns whether the lines are aligned.
-fn align_values(lines: &[String], rows: &mut [Row]) -> bool {
-    // Per row: the index of its first value cell (the values run to the end) and their spans.
-    let mut valued: Vec<Option<(usize, Vec<Span>)>> = Vec::with_capacity(rows.len());
-    for (line, row) in lines.iter().zip(rows.iter()) {
-        let first = row.cells.iter().position(|c| is_value_token(c));
-        let Some(first) = first else {
-            valued.push(None);
-            continue;
-        };
-        let tail = row.cells.get(first..).unwrap_or_default();
-        if !line.contains("  ") || !tail.iter().all(|c| is_value_token(c)) {
-            return false;
-        }
-        let Some(spans) = cell_spans(line, &row.cells) else {
-            return false;
-        };
-        valued.push(Some((
-            first,
-            spans.get(first..).unwrap_or_default().to_vec(),
-        )));
-    }
-    // Columns: the values' spans merged where they overlap.
-    // Kept in order by inserting (a chart has a few dozen values; no sort routine in the module).
-    let mut all: Vec<Span> = Vec::new();
-    for s in valued.iter().flatten().flat_map(|(_, s)| s.iter().copied()) {
-        let at = all.partition_point(|c| *c < s);
-        all.insert(at, s);
-    }
-    let mut columns: Vec<Span> = Vec::new();
-    for s in all {
-        match columns.last_mut() {
-            Some(c) if s.0 < c.1 => c.1 = c.1.max(s.1),
-            _ => columns.push(s),
-        }
-    }
-    let column_of = |s: &Span| columns.iter().position(|c| c.0 <= s.0 && s.1 <= c.1);
-    let mut placed: Vec<Option<(usize, Vec<usize>)>> = Vec::with_capacity(valued.len());
-    for v in &valued {
-        let Some((first, spans)) = v else {
-            placed.push(None);
-            continue;
-        };
-        let Some(cols) = spans.iter().map(column_of).collect::<Option<Vec<usize>>>() else {
-            return false;
-        };
-        if cols.windows(2).any(|w| matches!(w, [a, b] if a >= b)) {
-            return false; // two values of one line in one column: not aligned
-        }
-        placed.push(Some((*first, cols)));
-    }
-    if !placed
-        .iter()
-        .flatten()
-        .any(|(_, cols)| cols.len() == columns.len())
-    {
-        return false; // no line fills every column
-    }
-    for (row, p) in rows.iter_mut().zip(&placed) {
-        let Some((first, cols)) = p else { continue };
-        if cols.iter().enumerate().all(|(i, c)| i == *c) {
-            continue; // no gap before its last value
-        }
-        let values: Vec<String> = row.cells.split_off(*first);
-        let last = cols.last().copied().unwrap_or(0);
-        let mut out = vec![String::new(); last + 1];
-        for (v, c) in values.into_iter().zip(cols) {
-            if let Some(slot) = out.get_mut(*c) {
-                *slot = v;
-            }
-        }
-        row.cells.extend(out);
-    }
-    true
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -410,37 +322,5 @@ mod tests {
         assert_eq!(g.rows[1].cells, vec!["", "S", "M", "L"]);
         let g = grid("Reach 420  440 460\n x");
         assert_eq!(g.rows[0].cells, vec!["Reach", "420", "440", "460"]);
-    }
-
-    #[test]
-    fn a_blank_cell_in_an_aligned_table_stays_under_its_size() {
-        let g = grid(
-            "Size        S      M      L\n\
-             Reach       430    455    480\n\
-             Stack       610           640\n\
-             Chainstay          435    440\n\
-             Wheelbase   1180   1204",
-        );
-        assert_eq!(g.rows[2].cells, vec!["Stack", "610", "", "640"]);
-        assert_eq!(g.rows[3].cells, vec!["Chainstay", "", "435", "440"]);
-        // A trailing blank needs no place holder: the row is read from the left.
-        assert_eq!(g.rows[4].cells, vec!["Wheelbase", "1180", "1204"]);
-        assert_eq!(g.rows[0].cells, vec!["Size", "S", "M", "L"]);
-    }
-
-    #[test]
-    fn right_aligned_numbers_keep_their_columns() {
-        let g = grid("Head tube     95    105\nWheelbase   1150   1177\nTrail              118");
-        assert_eq!(g.rows[2].cells, vec!["Trail", "", "118"]);
-    }
-
-    #[test]
-    fn single_spaces_or_ragged_columns_are_left_as_they_are() {
-        // Single spaces: no alignment to go by.
-        let g = grid("Reach 430 455 480\nStack 610 640");
-        assert_eq!(g.rows[1].cells, vec!["Stack", "610", "640"]);
-        // Two values of one line under one column of the others: not aligned.
-        let g = grid("Reach      430      455\nStack  610  640");
-        assert_eq!(g.rows[1].cells, vec!["Stack", "610", "640"]);
     }
 }

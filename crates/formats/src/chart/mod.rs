@@ -14,8 +14,13 @@
 //! ```
 //!
 //! Values are in the §5 units (mm, degrees), rounded to 0.01. Sizes may be columns or rows;
-//! separators tabs, semicolons, pipes, commas or aligned spaces; units in the row label
-//! (`Reach (mm)`), in a units column (after the labels or on the right), in each cell
+//! separators tabs, semicolons, pipes, commas or aligned spaces (cells parted by a single space
+//! are cut where a word stands under another column, when every part reads as a cell: a number,
+//! a size name, a unit or a wheel size); units in the row label (`Reach (mm)`), in a units
+//! column (sizes as columns: before or after the labels, or on the right), in a units row
+//! (sizes as rows: under or above the labels, or at the foot; a column of units after the
+//! sizes' values names no measurement: one length unit for every size is read as the unit of
+//! lengths, anything else is listed in `unrecognised`), in each cell
 //! (`470 mm`, `18.5"`, `65°`), in a title line (`All measurements in mm`; a footnote line such
 //! as `¹ measured with 0 mm spacers` is not one), or absent: then each length row's unit is
 //! inferred from the size of its numbers against the catalogue's plausible range (reach 18.5 →
@@ -33,6 +38,7 @@
 //! (with the options and the one chosen). Answers to questions are passed back by `id` through
 //! [`import_chart_with`].
 
+mod aligned;
 mod assemble;
 pub mod cell;
 mod grid;
