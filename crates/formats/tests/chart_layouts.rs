@@ -1177,10 +1177,13 @@ fn size_rows_ending_in_one_length_unit_give_the_unit_of_lengths() {
     assert!(has_note(
         &c,
         "",
-        "each size's row ends in cm: lengths without a unit were read as cm"
+        "each size's row ends in cm: read as the unit of the last column and, where their numbers fit it, of the other lengths without a unit"
     ));
     assert!(!has_note(&c, "", "units column"), "{:#?}", c.notes);
-    assert_units_given(&c);
+    // The others are read by the size of their numbers (which the column agrees with), and said;
+    // nothing is asked.
+    assert!(has_note(&c, "", "read as cm from the size of the numbers"));
+    assert!(c.questions.is_empty(), "{:?}", c.questions);
 }
 
 #[test]
@@ -1203,6 +1206,19 @@ fn a_units_column_beside_size_rows_that_names_no_one_unit_is_listed() {
     let c = import_chart(text).unwrap();
     assert_eq!(c.unrecognised, ["(a column of units: deg)"]);
     assert_row(&c, "reach_mm", &[430.0, 455.0]);
+}
+
+#[test]
+fn a_units_column_after_size_rows_never_forces_a_unit_the_numbers_do_not_fit() {
+    // Each size row ends in "mm", but reach and stack are written in cm (41,0 cm is a reach;
+    // 41 mm is none): the unit is the last value's (the BB drop, 35 mm), and for the others only
+    // decides between units their numbers fit, so reach and stack are read as cm by their size.
+    let text = "Size\tReach\tStack\tHead angle\tBB drop\nS\t41,0\t59,5\t66\t35\tmm\nM\t43,5\t60,5\t66\t35\tmm\nL\t46,0\t61,5\t66\t32\tmm\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "reach_mm", &[410.0, 435.0, 460.0]);
+    assert_row(&c, "stack_mm", &[595.0, 605.0, 615.0]);
+    assert_row(&c, "bb_drop_mm", &[35.0, 35.0, 32.0]);
 }
 
 #[test]

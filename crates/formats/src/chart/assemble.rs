@@ -63,7 +63,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     }
     // Units are read in the table with sizes as columns: in a chart with sizes as rows a units
     // row (under or above the labels, or at the foot) becomes a units column once the table is
-    // turned, and a units column on the right says nothing about one measurement.
+    // turned, and a units column on the right is the last measurement's unit and a hint.
     let across = runs_across(&table);
     if across {
         log.note(
@@ -73,10 +73,9 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     }
     let ends = take_trailing_units(&mut table, grid.decimal_comma);
     let mut trailing = Vec::new();
+    let mut hint = None;
     if across {
-        if let Some(unit) = units_after_sizes(&ends, &mut log) {
-            global_unit = Some(unit);
-        }
+        hint = units_after_sizes(&ends, &mut log);
     } else if !ends.is_empty() {
         log.note(
             "",
@@ -93,6 +92,12 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
                 "",
                 "read each measurement's unit from the units row under the sizes".into(),
             );
+        } else if hint.is_some() {
+            // The unit written after each size's last value is at least that value's ("3,5 cm").
+            trailing = vec![None; table.len()];
+            if let Some(last) = trailing.last_mut() {
+                *last = hint;
+            }
         }
     }
     let (table, units_col) = label_first(table, across, &mut log)?;
@@ -146,6 +151,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     // spaces) does not say which sizes it skips: the person is asked.
     let read = super::rows::Reading {
         global: global_unit,
+        hint,
         decimal_comma: grid.decimal_comma,
         short_rows_ask: !grid.placed && !across,
     };
@@ -303,10 +309,12 @@ fn units_title(cell: &str) -> bool {
 }
 
 /// A column of units after the values of a chart with sizes as rows (each size's row ends in
-/// "cm", taken off by [`take_trailing_units`]). It names no measurement: with sizes as rows each
-/// column is one. When it says the same length unit for every size that has one, and for at
-/// least two, that unit is read as the unit of lengths written without one, with a note;
-/// otherwise it is listed in `unrecognised` with a note saying where units can go.
+/// "cm", taken off by [`take_trailing_units`]). With sizes as rows each column is one
+/// measurement, so it is surely the last column's unit only. When it says the same length unit
+/// for every size that has one, and for at least two, that unit is returned: the caller gives it
+/// to the last column and, as a hint, to lengths without a unit whose numbers fit more than one
+/// unit (it never overrides the size of the numbers), with a note; otherwise it is listed in
+/// `unrecognised` with a note saying where units can go.
 fn units_after_sizes(ends: &[Option<Mark>], log: &mut Log) -> Option<Mark> {
     let marks: Vec<Mark> = ends.iter().flatten().copied().collect();
     let first = *marks.first()?;
@@ -314,9 +322,8 @@ fn units_after_sizes(ends: &[Option<Mark>], log: &mut Log) -> Option<Mark> {
         log.note(
             "",
             format!(
-                "each size's row ends in {}: lengths without a unit were read as {}",
-                first.name(),
-                first.words()
+                "each size's row ends in {}: read as the unit of the last column and, where their numbers fit it, of the other lengths without a unit",
+                first.name()
             ),
         );
         return Some(first);

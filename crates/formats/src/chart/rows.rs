@@ -36,6 +36,9 @@ const LENGTHS: [Mark; 3] = [Mark::Mm, Mark::Cm, Mark::In];
 pub(super) struct Reading {
     /// The unit of lengths given without one.
     pub global: Option<Mark>,
+    /// A unit that decides between the units a row's unmarked numbers fit (a column of units
+    /// after a chart's size rows): never one the numbers do not fit.
+    pub hint: Option<Mark>,
     /// Whether the chart writes decimal commas.
     pub decimal_comma: bool,
     /// Whether a short row asks which sizes its values belong to.
@@ -73,7 +76,7 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
     // Rows placed by `resolve` after the others go back to their places: the rows are written,
     // and named in notes, in the chart's order.
     keyed.sort_by_key(|k| k.place);
-    let consensus = consensus(&keyed, global);
+    let consensus = consensus(&keyed, global.or(read.hint));
     for row in &keyed {
         write_row(sizes, row, global, consensus, log);
     }
