@@ -140,3 +140,20 @@ test('phone held sideways 740×360: a zoomed drawing from the keyboard, screensh
   assert.deepEqual(problems, []);
   await context.close();
 });
+
+test('desk: a click on the drawing does not give it the keys (only Tab does): the arrows still scroll the page', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
+  const fit = await viewBox(page);
+  await page.locator('#drawing').click({ position: { x: 40, y: 40 } });
+  assert.notEqual(await page.evaluate(() => document.activeElement?.id), 'drawing', 'a click leaves the focus where it was');
+  await page.keyboard.press('ArrowDown');
+  await page.keyboard.press('Home');
+  assert.equal(await viewBox(page), fit, 'the arrows and Home after a click do not move the drawing');
+  // Once it has the focus (Tab), a click keeps it there.
+  await page.locator('#show-ghost').focus();
+  await page.keyboard.press('Tab');
+  await page.locator('#drawing').click({ position: { x: 40, y: 40 } });
+  assert.equal(await page.evaluate(() => document.activeElement?.id), 'drawing');
+  assert.deepEqual(problems, []);
+  await context.close();
+});

@@ -67,3 +67,19 @@ for (const [width, height] of [[640, 360], [740, 360], [915, 412]]) {
     assert.deepEqual(problems, []);
   });
 }
+
+// A short desk window (wider than a phone held sideways) keeps the desk's layout: the masthead
+// above, the toolbar's words, the inputs beside the drawing.
+test('1280×500 (a short desk window): the desk layout, not the sideways phone\'s', { timeout: 60000 }, async () => {
+  const { page, problems } = await openPage(env, { width: 1280, height: 500 });
+  const m = await page.evaluate(() => ({
+    body: getComputedStyle(document.body).display,
+    words: [...document.querySelectorAll('.toolbar .tl')].map((e) => e.getBoundingClientRect().width),
+    inputs: document.querySelector('.input-col').getBoundingClientRect().left,
+    drawing: document.querySelector('#drawing').getBoundingClientRect().right,
+  }));
+  assert.notEqual(m.body, 'grid', 'the masthead is not a column beside the page');
+  assert.ok(m.words.length && m.words.every((w) => w > 1), `the toolbar keeps its words: ${m.words}`);
+  assert.ok(m.inputs >= m.drawing, 'the inputs beside the drawing');
+  assert.deepEqual(problems, []);
+});

@@ -103,6 +103,11 @@ export function attachZoom(container, fitButton) {
     zoomAt(e.clientX, e.clientY, Math.exp(-e.deltaY * 0.0015));
   }, { passive: false });
   container.addEventListener('dblclick', fit);
+  // A click or a tap does not give the box the focus (only Tab does): the arrows and Home would
+  // then move the drawing, not scroll the page, with no ring to say why.
+  container.addEventListener('mousedown', (e) => {
+    if (document.activeElement !== container) e.preventDefault();
+  });
   container.addEventListener('keydown', (e) => {
     const k = KEYS[e.key];
     const v = current();
