@@ -139,3 +139,17 @@ test('desk: hovering a number in the drawing says what it is', T, async () => {
   assert.deepEqual(problems, []);
   await context.close();
 });
+
+test('the hint under the drawing says its keys at a desk, not on a touch phone', T, async () => {
+  const desk = await openPage(env, { width: 1280, height: 800 });
+  assert.match(await desk.page.locator('.hint .keys').innerText(), /\+ and − zoom, arrows move it, 0 fits/);
+  assert.ok((await desk.page.locator('.hint .keys').evaluate((e) => e.parentElement.innerText)).includes('Keys, with the drawing focused'));
+  await desk.context.close();
+  const phone = await openTouchPage();
+  const text = await phone.page.locator('.hint .keys').evaluate((e) => e.parentElement.innerText);
+  assert.ok(!text.includes('Keys'), `a touch phone's hint has no keys: ${text}`);
+  assert.match(text, /Pinch/);
+  assert.match(await phone.page.locator('#drawing').getAttribute('aria-label'), /\+|zoom/i, 'the drawing still names its keys to assistive technology');
+  assert.deepEqual(phone.problems, []);
+  await phone.context.close();
+});
