@@ -1384,3 +1384,34 @@ fn aligned_rows_ending_in_a_units_cell_keep_blank_cells_in_place() {
         c.notes
     );
 }
+
+#[test]
+fn a_single_spaced_units_row_under_size_rows_gives_each_column_its_unit() {
+    let c = chart("28_single_spaces_units_row_under_labels.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // cm × 10, mm as written; 3,5 fits mm or cm by its size alone: the units row says cm.
+    assert_row(&c, "reach_mm", &[425.0, 450.0, 475.0]);
+    assert_row(&c, "stack_mm", &[600.0, 610.0, 620.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5]);
+    assert_row(&c, "chainstay_mm", &[430.0, 435.0, 440.0]);
+    assert_row(&c, "bb_drop_mm", &[35.0, 35.0, 30.0]);
+    assert!(
+        has_note(&c, "", "units row under the labels"),
+        "{:#?}",
+        c.notes
+    );
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_units_given(&c);
+    // One unit short of the columns (the wheel column has none): which columns the units
+    // belong to is not known, so the row is not read as one; the notes say what was done.
+    let text = "Size Wheel Reach Stack Head angle\ncm cm deg\nS 27.5\" 42,5 60,0 65\nM 29\" 45,0 61,0 65\n";
+    let c = import_chart(text).unwrap();
+    assert!(!has_note(&c, "", "units row"), "{:#?}", c.notes);
+    assert!(has_note(&c, "", "as \"cm cm deg\" says"), "{:#?}", c.notes);
+    assert_row(&c, "reach_mm", &[425.0, 450.0]);
+}
