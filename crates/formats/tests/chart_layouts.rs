@@ -1415,3 +1415,57 @@ fn a_single_spaced_units_row_under_size_rows_gives_each_column_its_unit() {
     assert!(has_note(&c, "", "as \"cm cm deg\" says"), "{:#?}", c.notes);
     assert_row(&c, "reach_mm", &[425.0, 450.0]);
 }
+
+#[test]
+fn a_ragged_wheel_row_is_cut_one_per_size_or_said_never_copied_to_all() {
+    // The wheel row's words stand under no column, so the columns cannot cut it: read as the
+    // label "Wheel size 27.5" 27.5" 27.5" /" and two cells, it gave XS and S a 29" wheel.
+    let c = chart("29_pdf_aligned_ragged_wheel_row.txt");
+    assert_eq!(labels(&c), ["XS", "S", "M", "L"]);
+    let w = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("27.5x2.4", "27.5x2.4"),
+            w("27.5x2.4", "27.5x2.4"),
+            w("27.5x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4")
+        ]
+    );
+    assert!(has_note(
+        &c,
+        "Wheel size",
+        "the wheel sizes were parted by single spaces; read one per size, from the left"
+    ));
+    assert_row(&c, "reach_mm", &[405.0, 425.0, 445.0, 465.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5, 64.5]);
+    // Read as one cell ("29"") this row gave every size a 29" wheel, without a word.
+    let text =
+        "Size   S      M      L\nReach  430    455    480\nWheel size 29\" 29\" 27.5\" / 29\"\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(
+        wheels(&c),
+        [
+            w("29x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+            w("27.5x2.4", "29x2.4")
+        ]
+    );
+    // Three wheels for four sizes: which size each is for is not known, so none is used.
+    let text =
+        "Size S M L XL\nWheel 650b 700c 700c\nReach 430 455 480 505\nStack 610 620 630 640\n";
+    let c = import_chart(text).unwrap();
+    let none = (String::new(), String::new());
+    assert_eq!(wheels(&c), [none.clone(), none.clone(), none.clone(), none]);
+    assert!(has_note(
+        &c,
+        "Wheel",
+        "3 wheel sizes parted by single spaces for 4 sizes: which size each belongs to is not known, so none was used; set the wheels under Wheels and fork"
+    ));
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0, 505.0]);
+}

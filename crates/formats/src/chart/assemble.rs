@@ -31,7 +31,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
                 let kind = classify(c).kind;
                 !c.is_empty() && kind == Kind::Unknown
             });
-        if (filled <= 1 && !numeric) || titled {
+        if (filled <= 1 && !numeric && !wheels_in_words(row)) || titled {
             let line = row.cells.join(" ");
             let short = shorten(line.trim());
             // A footnote says how one row was measured, not the chart's unit.
@@ -163,6 +163,19 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
         questions: log.questions,
         notes: log.notes,
     })
+}
+
+/// A line of one cell that names the wheels and gives some ("Wheel 650b 650b 700c"): a row
+/// whose cells single spaces joined to its label (read by `rows`), not a line of text.
+fn wheels_in_words(row: &Row) -> bool {
+    let mut filled = row.cells.iter().filter(|c| !c.is_empty());
+    match (filled.next(), filled.next()) {
+        (Some(only), None) => {
+            matches!(classify(only).kind, Kind::Wheels(_))
+                && only.chars().any(|c| c.is_ascii_digit())
+        }
+        _ => false,
+    }
 }
 
 /// A table copied from a phone's stacked layout arrives one cell per line: each label line
