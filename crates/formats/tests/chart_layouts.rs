@@ -35,12 +35,13 @@ fn row(c: &ChartImport, key: &str) -> Vec<f64> {
         .collect()
 }
 
+/// Asserts the row of `key`; NaN in `want` means the size has no value for it.
 fn assert_row(c: &ChartImport, key: &str, want: &[f64]) {
     let got = row(c, key);
     assert_eq!(got.len(), want.len(), "{key}: {got:?} vs {want:?}");
     for (g, w) in got.iter().zip(want) {
         assert!(
-            (g - w).abs() < 1e-9,
+            (g - w).abs() < 1e-9 || (g.is_nan() && w.is_nan()),
             "{key}: got {got:?}, expected {want:?}"
         );
     }
@@ -1296,4 +1297,175 @@ fn a_wheel_row_of_single_spaces_only_is_cut_at_the_columns() {
     assert_row(&c, "head_angle_deg", &[71.0, 72.0, 72.5, 73.0, 73.0]);
     assert_row(&c, "chainstay_mm", &[415.0, 415.0, 415.0, 418.0, 418.0]);
     assert_row(&c, "wheelbase_mm", &[975.0, 982.0, 991.0, 1001.0, 1012.0]);
+}
+
+// A table aligned with runs of spaces whose lines do not all start alike (fixtures 25–27).
+
+#[test]
+fn size_rows_led_by_a_wheel_column_keep_their_values_under_their_labels() {
+    // The wheel column comes first and holds numbers (27.5", 29"); the M row is written with
+    // single spaces and the L row has a blank stack.
+    let c = chart("25_pdf_aligned_wheel_column_first_single_spaces.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[425.0, 450.0, 475.0, 500.0]);
+    assert_row(&c, "stack_mm", &[600.0, 610.0, f64::NAN, 630.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5, 64.5]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5, 77.5]);
+    assert_row(&c, "chainstay_mm", &[430.0, 435.0, 440.0, 445.0]);
+    assert_row(&c, "wheelbase_mm", &[1180.0, 1205.0, 1230.0, 1255.0]);
+    let w275 = ("27.5x2.4".to_string(), "27.5x2.4".to_string());
+    let w29 = ("29x2.4".to_string(), "29x2.4".to_string());
+    assert_eq!(wheels(&c), [w275.clone(), w275, w29.clone(), w29]);
+    // The blank stack of L is placed, not asked about, and no value was refused.
+    assert!(c.questions.is_empty(), "{:?}", c.questions);
+    assert!(
+        !c.notes.iter().any(|n| n.message.contains("left out")),
+        "{:#?}",
+        c.notes
+    );
+}
+
+#[test]
+fn a_wheel_named_in_words_among_numbers_keeps_its_size_s_values() {
+    // "MX" is no number, where the other sizes' wheels are: it is the M row's wheel cell, not
+    // part of its label, so M's values stay under their labels.
+    let c = chart("26_pdf_aligned_wheel_name_among_numbers.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[415.0, 440.0, 465.0, 490.0]);
+    assert_row(&c, "stack_mm", &[595.0, 605.0, f64::NAN, 625.0]);
+    assert_row(&c, "head_angle_deg", &[65.5, 65.5, 65.0, 65.0]);
+    assert_row(&c, "chainstay_mm", &[430.0, 435.0, 440.0, 445.0]);
+    // XL's wheelbase is a trailing blank: read from the left and said.
+    assert_row(&c, "wheelbase_mm", &[1170.0, 1195.0, 1221.0, f64::NAN]);
+    assert!(has_note(
+        &c,
+        "XL",
+        "5 values for 6 measurements; read from the left"
+    ));
+    let w = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("27.5x2.4", "27.5x2.4"),
+            w("29x2.4", "27.5x2.4"),
+            w("29x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4")
+        ]
+    );
+    assert!(c.questions.is_empty(), "{:?}", c.questions);
+    assert!(
+        !c.notes.iter().any(|n| n.message.contains("left out")),
+        "{:#?}",
+        c.notes
+    );
+}
+
+#[test]
+fn aligned_rows_ending_in_a_units_cell_keep_blank_cells_in_place() {
+    let c = chart("27_pdf_aligned_units_column_on_the_right_blank_cells.txt");
+    assert_eq!(labels(&c), ["S", "M", "L", "XL"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    assert_row(&c, "reach_mm", &[428.0, 452.0, 476.0, 500.0]);
+    // Blank under M, S and XL: each value stays under its own size.
+    assert_row(&c, "stack_mm", &[604.0, f64::NAN, 624.0, 634.0]);
+    assert_row(&c, "chainstay_mm", &[f64::NAN, 436.0, 438.0, 440.0]);
+    assert_row(&c, "wheelbase_mm", &[1182.0, 1206.0, 1230.0, f64::NAN]);
+    assert_row(&c, "bb_drop_mm", &[30.0, 30.0, 35.0, 35.0]);
+    assert_row(&c, "head_angle_deg", &[65.5, 65.5, 65.0, 65.0]);
+    assert_row(&c, "seat_angle_effective_deg", &[77.0, 77.0, 77.5, 77.5]);
+    assert!(has_note(&c, "", "units column on the right"));
+    // Nothing is asked: the blanks kept their places.
+    assert!(c.questions.is_empty(), "{:?}", c.questions);
+    assert!(
+        !has_note(&c, "Wheelbase", "read from the left"),
+        "{:#?}",
+        c.notes
+    );
+}
+
+#[test]
+fn a_single_spaced_units_row_under_size_rows_gives_each_column_its_unit() {
+    let c = chart("28_single_spaces_units_row_under_labels.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert!(c.unrecognised.is_empty(), "{:?}", c.unrecognised);
+    // cm × 10, mm as written; 3,5 fits mm or cm by its size alone: the units row says cm.
+    assert_row(&c, "reach_mm", &[425.0, 450.0, 475.0]);
+    assert_row(&c, "stack_mm", &[600.0, 610.0, 620.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5]);
+    assert_row(&c, "chainstay_mm", &[430.0, 435.0, 440.0]);
+    assert_row(&c, "bb_drop_mm", &[35.0, 35.0, 30.0]);
+    assert!(
+        has_note(&c, "", "units row under the labels"),
+        "{:#?}",
+        c.notes
+    );
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_units_given(&c);
+    // One unit short of the columns (the wheel column has none): which columns the units
+    // belong to is not known, so the row is not read as one; the notes say what was done.
+    let text = "Size Wheel Reach Stack Head angle\ncm cm deg\nS 27.5\" 42,5 60,0 65\nM 29\" 45,0 61,0 65\n";
+    let c = import_chart(text).unwrap();
+    assert!(!has_note(&c, "", "units row"), "{:#?}", c.notes);
+    assert!(has_note(&c, "", "as \"cm cm deg\" says"), "{:#?}", c.notes);
+    assert_row(&c, "reach_mm", &[425.0, 450.0]);
+}
+
+#[test]
+fn a_ragged_wheel_row_is_cut_one_per_size_or_said_never_copied_to_all() {
+    // The wheel row's words stand under no column, so the columns cannot cut it: read as the
+    // label "Wheel size 27.5" 27.5" 27.5" /" and two cells, it gave XS and S a 29" wheel.
+    let c = chart("29_pdf_aligned_ragged_wheel_row.txt");
+    assert_eq!(labels(&c), ["XS", "S", "M", "L"]);
+    let w = |f: &str, r: &str| (f.to_string(), r.to_string());
+    assert_eq!(
+        wheels(&c),
+        [
+            w("27.5x2.4", "27.5x2.4"),
+            w("27.5x2.4", "27.5x2.4"),
+            w("27.5x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4")
+        ]
+    );
+    assert!(has_note(
+        &c,
+        "Wheel size",
+        "the wheel sizes were parted by single spaces; read one per size, from the left"
+    ));
+    assert_row(&c, "reach_mm", &[405.0, 425.0, 445.0, 465.0]);
+    assert_row(&c, "head_angle_deg", &[65.0, 65.0, 64.5, 64.5]);
+    // Read as one cell ("29"") this row gave every size a 29" wheel, without a word.
+    let text =
+        "Size   S      M      L\nReach  430    455    480\nWheel size 29\" 29\" 27.5\" / 29\"\n";
+    let c = import_chart(text).unwrap();
+    assert_eq!(
+        wheels(&c),
+        [
+            w("29x2.4", "29x2.4"),
+            w("29x2.4", "29x2.4"),
+            w("27.5x2.4", "29x2.4")
+        ]
+    );
+    // Three wheels for four sizes: which size each is for is not known, so none is used.
+    let text =
+        "Size S M L XL\nWheel 650b 700c 700c\nReach 430 455 480 505\nStack 610 620 630 640\n";
+    let c = import_chart(text).unwrap();
+    let none = (String::new(), String::new());
+    assert_eq!(wheels(&c), [none.clone(), none.clone(), none.clone(), none]);
+    assert!(has_note(
+        &c,
+        "Wheel",
+        "3 wheel sizes parted by single spaces for 4 sizes: which size each belongs to is not known, so none was used; set the wheels under Wheels and fork"
+    ));
+    assert!(
+        !has_note(&c, "", "ignored a line of text"),
+        "{:#?}",
+        c.notes
+    );
+    assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0, 505.0]);
 }

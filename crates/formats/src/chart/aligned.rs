@@ -9,7 +9,8 @@
 //!   under no column are its label). Words under no column stay with the words before them.
 //! - a units row without a label (`      mm     mm     °`) loses its blank cells: [`place`] puts
 //!   each unit in the cell of the column it stands in.
-//! - a blank cell between values leaves a wider gap: [`align_values`] puts an empty cell there.
+//! - a blank cell between values leaves a wider gap: `blanks::align_values` puts an empty cell
+//!   there.
 //!
 //! The columns are the character spans of the one-word cells after each line's first cell (size
 //! names, numbers, units, one-word labels) on the lines with a run of spaces, merged where they
@@ -21,11 +22,11 @@ use super::grid::{is_size_token, split_spaces, Row};
 use super::wheels::parse_wheel_cell;
 
 /// A span of character columns `[start, end)` in a line.
-type Span = (usize, usize);
+pub(super) type Span = (usize, usize);
 
 /// The character columns of each cell of a line, found left to right (a cell's text stands in
 /// the line as written); `None` when a cell cannot be found.
-fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
+pub(super) fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
     // Character columns counted as the search moves on: one pass over the line.
     let (mut from, mut col) = (0, 0);
     let mut out = Vec::with_capacity(cells.len());
@@ -39,79 +40,10 @@ fn cell_spans(line: &str, cells: &[String]) -> Option<Vec<Span>> {
     Some(out)
 }
 
-/// A blank cell in a table aligned with runs of spaces leaves a wider gap, not an empty cell:
-/// "Stack  610         640" under "S  M  L" would read as S 610, M 640. When every line with
-/// values is aligned (runs of two or more spaces) and the values of all lines fall into
-/// columns that no two values of one line share, a line's missing columns become empty cells,
-/// so each value stays under its own size. Anything less regular is left as it was (the rows
-/// are then read from the left, and the import says so). Returns whether the lines are aligned.
-pub(super) fn align_values(lines: &[String], rows: &mut [Row]) -> bool {
-    // Per row: the index of its first value cell (the values run to the end) and their spans.
-    let mut valued: Vec<Option<(usize, Vec<Span>)>> = Vec::with_capacity(rows.len());
-    for (line, row) in lines.iter().zip(rows.iter()) {
-        let first = row.cells.iter().position(|c| is_value_token(c));
-        let Some(first) = first else {
-            valued.push(None);
-            continue;
-        };
-        let tail = row.cells.get(first..).unwrap_or_default();
-        if !line.contains("  ") || !tail.iter().all(|c| is_value_token(c)) {
-            return false;
-        }
-        let Some(spans) = cell_spans(line, &row.cells) else {
-            return false;
-        };
-        valued.push(Some((
-            first,
-            spans.get(first..).unwrap_or_default().to_vec(),
-        )));
-    }
-    // Columns: the values' spans merged where they overlap.
-    let columns = merge(valued.iter().flatten().map(|(_, s)| s.as_slice()));
-    let column_of = |s: &Span| column_holding(&columns, *s);
-    let mut placed: Vec<Option<(usize, Vec<usize>)>> = Vec::with_capacity(valued.len());
-    for v in &valued {
-        let Some((first, spans)) = v else {
-            placed.push(None);
-            continue;
-        };
-        let Some(cols) = spans.iter().map(column_of).collect::<Option<Vec<usize>>>() else {
-            return false;
-        };
-        if cols.windows(2).any(|w| matches!(w, [a, b] if a >= b)) {
-            return false; // two values of one line in one column: not aligned
-        }
-        placed.push(Some((*first, cols)));
-    }
-    if !placed
-        .iter()
-        .flatten()
-        .any(|(_, cols)| cols.len() == columns.len())
-    {
-        return false; // no line fills every column
-    }
-    for (row, p) in rows.iter_mut().zip(&placed) {
-        let Some((first, cols)) = p else { continue };
-        if cols.iter().enumerate().all(|(i, c)| i == *c) {
-            continue; // no gap before its last value
-        }
-        let values: Vec<String> = row.cells.split_off(*first);
-        let last = cols.last().copied().unwrap_or(0);
-        let mut out = vec![String::new(); last + 1];
-        for (v, c) in values.into_iter().zip(cols) {
-            if let Some(slot) = out.get_mut(*c) {
-                *slot = v;
-            }
-        }
-        row.cells.extend(out);
-    }
-    true
-}
-
 /// The spans of all lines merged where they overlap, in order. Each line's spans are in order
 /// (its cells left to right), so each is merged into the columns so far in one pass: no sort
 /// routine in the module, and hostile text with thousands of cells stays quick.
-fn merge<'a>(lines: impl Iterator<Item = &'a [Span]>) -> Vec<Span> {
+pub(super) fn merge<'a>(lines: impl Iterator<Item = &'a [Span]>) -> Vec<Span> {
     let mut columns: Vec<Span> = Vec::new();
     for spans in lines {
         let mut merged: Vec<Span> = Vec::with_capacity(columns.len() + spans.len());
@@ -136,13 +68,13 @@ fn merge<'a>(lines: impl Iterator<Item = &'a [Span]>) -> Vec<Span> {
 
 /// The first column a span shares a character column with. The columns are in order and
 /// apart, so a binary search finds it.
-fn column_over(columns: &[Span], s: Span) -> Option<usize> {
+pub(super) fn column_over(columns: &[Span], s: Span) -> Option<usize> {
     let i = columns.partition_point(|c| c.1 <= s.0);
     columns.get(i).filter(|c| c.0 < s.1).map(|_| i)
 }
 
 /// The column that holds a span whole.
-fn column_holding(columns: &[Span], s: Span) -> Option<usize> {
+pub(super) fn column_holding(columns: &[Span], s: Span) -> Option<usize> {
     let i = columns.partition_point(|c| c.1 <= s.0);
     columns
         .get(i)
@@ -371,38 +303,6 @@ mod tests {
     fn grid(text: &str) -> Grid {
         let lines: Vec<String> = text.lines().map(String::from).collect();
         split(&lines)
-    }
-
-    #[test]
-    fn a_blank_cell_in_an_aligned_table_stays_under_its_size() {
-        let g = grid(
-            "Size        S      M      L\n\
-             Reach       430    455    480\n\
-             Stack       610           640\n\
-             Chainstay          435    440\n\
-             Wheelbase   1180   1204",
-        );
-        assert_eq!(g.rows[2].cells, vec!["Stack", "610", "", "640"]);
-        assert_eq!(g.rows[3].cells, vec!["Chainstay", "", "435", "440"]);
-        // A trailing blank needs no place holder: the row is read from the left.
-        assert_eq!(g.rows[4].cells, vec!["Wheelbase", "1180", "1204"]);
-        assert_eq!(g.rows[0].cells, vec!["Size", "S", "M", "L"]);
-    }
-
-    #[test]
-    fn right_aligned_numbers_keep_their_columns() {
-        let g = grid("Head tube     95    105\nWheelbase   1150   1177\nTrail              118");
-        assert_eq!(g.rows[2].cells, vec!["Trail", "", "118"]);
-    }
-
-    #[test]
-    fn single_spaces_or_ragged_columns_are_left_as_they_are() {
-        // Single spaces: no alignment to go by.
-        let g = grid("Reach 430 455 480\nStack 610 640");
-        assert_eq!(g.rows[1].cells, vec!["Stack", "610", "640"]);
-        // Two values of one line under one column of the others: not aligned.
-        let g = grid("Reach      430      455\nStack  610  640");
-        assert_eq!(g.rows[1].cells, vec!["Stack", "610", "640"]);
     }
 
     #[test]

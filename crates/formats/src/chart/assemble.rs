@@ -7,7 +7,7 @@ use super::grid::{is_size_token, Grid, Row, Sep};
 use super::label::{classify, Kind};
 use super::log::{shorten, Log};
 use super::rows::{fill, place_short, Short, TableRow};
-use super::segment::split_header;
+use super::segment::{split_header, split_units_row};
 use super::{Answers, ChartError, ChartImport, ChartSize, MAX_SIZES};
 use std::collections::BTreeMap;
 
@@ -31,7 +31,7 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
                 let kind = classify(c).kind;
                 !c.is_empty() && kind == Kind::Unknown
             });
-        if (filled <= 1 && !numeric) || titled {
+        if (filled <= 1 && !numeric && !wheels_in_words(row)) || titled {
             let line = row.cells.join(" ");
             let short = shorten(line.trim());
             // A footnote says how one row was measured, not the chart's unit.
@@ -165,6 +165,19 @@ pub(super) fn build(grid: &Grid, answers: &Answers) -> Result<ChartImport, Chart
     })
 }
 
+/// A line of one cell that names the wheels and gives some ("Wheel 650b 650b 700c"): a row
+/// whose cells single spaces joined to its label (read by `rows`), not a line of text.
+fn wheels_in_words(row: &Row) -> bool {
+    let mut filled = row.cells.iter().filter(|c| !c.is_empty());
+    match (filled.next(), filled.next()) {
+        (Some(only), None) => {
+            matches!(classify(only).kind, Kind::Wheels(_))
+                && only.chars().any(|c| c.is_ascii_digit())
+        }
+        _ => false,
+    }
+}
+
 /// A table copied from a phone's stacked layout arrives one cell per line: each label line
 /// starts a row and the lines after it are its cells ("Reach", "430", "455", "Stack", …).
 fn regroup_single_column(grid: &Grid, log: &mut Log) -> Option<Vec<Row>> {
@@ -223,7 +236,8 @@ fn drop_empty_sizes(sizes: &mut Vec<ChartSize>, header: &[String], log: &mut Log
 }
 
 /// Space-separated text: a line of labels with single spaces ("Size Reach Stack HTA") is split
-/// into as many labels as the data rows have cells.
+/// into as many labels as the data rows have cells; then, when the sizes are rows, a units row
+/// with single spaces ("cm cm deg mm") with one unit per measurement gets a cell per unit.
 fn split_headers(grid: &Grid) -> Vec<Row> {
     let mut rows = grid.rows.clone();
     if grid.sep != Sep::Spaces {
@@ -245,7 +259,25 @@ fn split_headers(grid: &Grid) -> Vec<Row> {
             }
         }
     }
+    split_units_rows(&mut rows, width);
     rows
+}
+
+/// With sizes as rows, each row whose one cell is a units row of single spaces
+/// ([`split_units_row`]) is split into its units.
+fn split_units_rows(rows: &mut [Row], width: usize) {
+    let table: Vec<Vec<String>> = rows.iter().map(|r| r.cells.clone()).collect();
+    if !runs_across(&table) {
+        return;
+    }
+    for r in rows.iter_mut() {
+        let mut filled = r.cells.iter().filter(|c| !c.is_empty());
+        if let (Some(only), None) = (filled.next(), filled.next()) {
+            if let Some(cells) = split_units_row(only, width) {
+                r.cells = cells;
+            }
+        }
+    }
 }
 
 /// A unit named in a line of text such as "All measurements in mm".

@@ -6,9 +6,9 @@
 //! only ever sit between digits with one or two digits after them are decimal commas, not
 //! separators. Lines of dashes or equals signs are dropped.
 
-use super::aligned;
 use super::cell::{is_value_token, Mark};
 use super::MAX_SIZES;
+use super::{aligned, blanks};
 
 /// The separator found in the text.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -74,7 +74,7 @@ pub fn split(lines: &[String]) -> Grid {
     if spaces {
         aligned::place(lines, &mut rows);
     }
-    let placed = sep != Sep::Spaces || (spaces && aligned::align_values(lines, &mut rows));
+    let placed = sep != Sep::Spaces || (spaces && blanks::align_values(lines, &mut rows));
     let decimal_comma = rows
         .iter()
         .flat_map(|r| r.cells.iter())
@@ -256,7 +256,7 @@ pub(super) fn split_spaces(line: &str) -> Vec<String> {
 }
 
 /// Tokens on single spaces, with a lone unit joined to the number before it.
-fn join_units(text: &str) -> Vec<String> {
+pub(super) fn join_units(text: &str) -> Vec<String> {
     let mut out: Vec<String> = Vec::new();
     for t in text.split_whitespace() {
         match out.last_mut() {

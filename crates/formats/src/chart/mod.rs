@@ -40,6 +40,7 @@
 
 mod aligned;
 mod assemble;
+mod blanks;
 pub mod cell;
 mod grid;
 pub mod label;

@@ -4,7 +4,7 @@
 use super::cell::{parse_cell, Cell, Mark, Num, Spread};
 use super::label::{Ambiguity, Kind, Label, Part, WheelSlot};
 use super::log::{shorten, Log};
-use super::wheels::{default_note, parse_wheel_cell};
+use super::wheels::{default_note, parse_wheel_cell, rejoin, Rejoined};
 use super::ChartSize;
 use framewise_kernel::{lookup, Measurement, Unit, WheelSpec};
 
@@ -552,14 +552,33 @@ fn write_row(
     }
 }
 
-/// A wheel-size row: designations per size, with a note when a tyre width was assumed.
+/// A wheel-size row: designations per size, with a note when a tyre width was assumed. A row
+/// whose cells single spaces joined ([`rejoin`]) is cut one wheel per size, with a note, or,
+/// when it holds another number of wheels, left out with a note: never one wheel for every
+/// size when the row held several.
 fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSlot, log: &mut Log) {
-    let text = &row.label.text;
-    let given: Vec<&String> = row.cells.iter().filter(|c| !c.trim().is_empty()).collect();
-    let cells: Vec<String> = match given.as_slice() {
-        [one] if sizes.len() > 1 && row.cells.len() == 1 => vec![(*one).clone(); sizes.len()],
-        _ => row.cells.clone(),
+    let (text, cells) = match rejoin(&row.label.text, &row.cells, sizes.len()) {
+        Rejoined::Kept => (row.label.text.clone(), one_or_each(&row.cells, sizes.len())),
+        Rejoined::Cut(name, cells) => {
+            log.note(
+                &name,
+                "the wheel sizes were parted by single spaces; read one per size, from the left"
+                    .into(),
+            );
+            (name, cells)
+        }
+        Rejoined::Unplaced(name, k) => {
+            let n = sizes.len();
+            log.note(
+                &name,
+                format!(
+                    "{k} wheel sizes parted by single spaces for {n} sizes: which size each belongs to is not known, so none was used; set the wheels under Wheels and fork"
+                ),
+            );
+            return;
+        }
     };
+    let text = &text;
     let mut assumed = false;
     for (size, cell) in sizes.iter_mut().zip(&cells) {
         if cell.trim().is_empty() {
@@ -586,5 +605,14 @@ fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSlot, log: &m
     }
     if assumed {
         log.note(text, default_note());
+    }
+}
+
+/// A wheel row's cells, one per size: a lone cell stands for every size.
+fn one_or_each(cells: &[String], n: usize) -> Vec<String> {
+    let given: Vec<&String> = cells.iter().filter(|c| !c.trim().is_empty()).collect();
+    match given.as_slice() {
+        [one] if n > 1 && cells.len() == 1 => vec![(*one).clone(); n],
+        _ => cells.to_vec(),
     }
 }

@@ -4,6 +4,7 @@
 //! word in it (the first may be the size column's "Size"). Among several such splits the one
 //! with the longest first labels wins.
 
+use super::cell::Mark;
 use super::label::{classify, is_tight, Kind};
 use std::collections::BTreeSet;
 
@@ -53,6 +54,22 @@ pub fn split_header(text: &str, cells: usize) -> Option<Vec<String>> {
         }
     }
     None
+}
+
+/// A units row copied with single spaces ("mm mm deg mm"), in a table of `cells` cells a row
+/// with sizes as rows: one unit word per measurement column, the size column's cell blank.
+/// `None` unless every word is a unit and there is exactly one per column after the first
+/// (with fewer, which columns they belong to is not known).
+pub fn split_units_row(text: &str, cells: usize) -> Option<Vec<String>> {
+    let words: Vec<&str> = text.split_whitespace().collect();
+    let units = words.len() >= 2
+        && words.len() + 1 == cells
+        && words.iter().all(|w| Mark::from_word(w).is_some());
+    units.then(|| {
+        std::iter::once(String::new())
+            .chain(words.iter().map(|w| (*w).to_string()))
+            .collect()
+    })
 }
 
 impl Search<'_> {
@@ -115,5 +132,17 @@ mod tests {
         // Many words that combine in many ways: the search stays small and finds no split.
         let long = "Head tube angle ".repeat(20);
         assert_eq!(split_header(&long, 30), None);
+    }
+
+    #[test]
+    fn a_single_spaced_units_row_is_split_when_it_has_one_unit_per_column() {
+        assert_eq!(
+            split_units_row("cm cm deg mm", 5).unwrap(),
+            ["", "cm", "cm", "deg", "mm"]
+        );
+        // One unit short: which column has none is not known.
+        assert_eq!(split_units_row("cm cm deg", 5), None);
+        assert_eq!(split_units_row("All values in mm", 5), None);
+        assert_eq!(split_units_row("mm", 2), None);
     }
 }

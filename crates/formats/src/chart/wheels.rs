@@ -98,6 +98,68 @@ fn one(t: &str) -> Option<(String, bool)> {
         .filter(|(d, _)| accepted(d))
 }
 
+/// A wheel row whose cells single spaces joined (`Wheel size 27.5" 27.5" 27.5" / 29" 29"`
+/// read as the label `Wheel size 27.5" 27.5" 27.5" /` and two cells), read again.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum Rejoined {
+    /// Nothing was joined: the row's cells are its wheels.
+    Kept,
+    /// One wheel per size, from the left: the label's name and the cells.
+    Cut(String, Vec<String>),
+    /// Not one wheel per size: the label's name and how many wheels the row holds.
+    Unplaced(String, usize),
+}
+
+/// Reads a wheel row again when single spaces joined its cells: words after the label's name
+/// (the first word that starts with a digit and every word after it) or a cell holding
+/// several wheels. Its wheels ([`wheel_groups`]) are one per size when there are exactly
+/// `sizes` of them, each a wheel; else which size each belongs to is not known.
+pub fn rejoin(label: &str, cells: &[String], sizes: usize) -> Rejoined {
+    let words: Vec<&str> = label.split_whitespace().collect();
+    let at = words
+        .iter()
+        .position(|w| w.starts_with(|c: char| c.is_ascii_digit()))
+        .filter(|at| *at > 0) // a label that starts with a number ("29er wheels") is a name
+        .unwrap_or(words.len());
+    let (name, spilled) = words.split_at(at);
+    let several = cells.iter().any(|c| wheel_groups(c).len() > 1);
+    if spilled.is_empty() && !several {
+        return Rejoined::Kept;
+    }
+    let text = spilled
+        .iter()
+        .copied()
+        .chain(cells.iter().map(String::as_str))
+        .collect::<Vec<&str>>()
+        .join(" ");
+    let groups = wheel_groups(&text);
+    let name = name.join(" ");
+    if groups.len() == sizes && groups.iter().all(|g| parse_wheel_cell(g).is_some()) {
+        Rejoined::Cut(name, groups)
+    } else {
+        Rejoined::Unplaced(name, groups.len())
+    }
+}
+
+/// The wheels of a text of single spaces: words joined where a `/`, `&` or `x` links them
+/// (`27.5" / 29"`, `700 x 28c`), a lone unit joined to the number before it.
+pub fn wheel_groups(text: &str) -> Vec<String> {
+    let mut groups: Vec<String> = Vec::new();
+    let mut linked = false;
+    for t in super::grid::join_units(text) {
+        let link = matches!(t.as_str(), "/" | "&" | "x" | "X" | "×");
+        match groups.last_mut() {
+            Some(g) if linked || link || t.starts_with('/') => {
+                g.push(' ');
+                g.push_str(&t);
+            }
+            _ => groups.push(t.clone()),
+        }
+        linked = link || t.ends_with('/');
+    }
+    groups
+}
+
 /// The default widths of [`DEFAULTS`] in words, for the notes that say one was assumed (the
 /// chart importer's and the form's, `crate::form_units`).
 pub const DEFAULT_WIDTHS: &str = "29 and 27.5: 2.4 in; 700c: 32 mm; 650b: 47 mm";
@@ -133,5 +195,38 @@ mod tests {
         assert_eq!(both("700x35c"), Some((s("700x35c"), s("700x35c"), false)));
         assert_eq!(both("31"), None);
         assert_eq!(both(""), None);
+    }
+
+    #[test]
+    fn a_wheel_row_joined_by_single_spaces_is_read_again() {
+        let cells = |c: &[&str]| c.iter().map(|s| s.to_string()).collect::<Vec<String>>();
+        assert_eq!(
+            wheel_groups("27.5\" 27.5\" / 29\" 700 x 28c 27.5\"/ 29\""),
+            ["27.5\"", "27.5\" / 29\"", "700 x 28c", "27.5\"/ 29\""]
+        );
+        assert_eq!(
+            rejoin("Wheel size 27.5\" 27.5\" /", &cells(&["29\"", "29\""]), 3),
+            Rejoined::Cut(
+                "Wheel size".into(),
+                cells(&["27.5\"", "27.5\" / 29\"", "29\""])
+            )
+        );
+        assert_eq!(
+            rejoin("Wheel size 27.5\" 27.5\" /", &cells(&["29\"", "29\""]), 4),
+            Rejoined::Unplaced("Wheel size".into(), 3)
+        );
+        // One cell holding several wheels.
+        assert_eq!(
+            rejoin("Wheels", &cells(&["650b 700c"]), 2),
+            Rejoined::Cut("Wheels".into(), cells(&["650b", "700c"]))
+        );
+        assert_eq!(
+            rejoin("Wheel size", &cells(&["29\"", "27.5\" / 29\""]), 2),
+            Rejoined::Kept
+        );
+        assert_eq!(
+            rejoin("29er wheels", &cells(&["29\"", "29\""]), 2),
+            Rejoined::Kept
+        );
     }
 }
