@@ -121,6 +121,13 @@ for (const [name, width, height] of SIZES) {
     assert.equal(await page.locator('#results tr.def-row[data-def-for="trail_mm"]').count(), 1);
     await page.locator('#results tr[data-key="trail_mm"] button.term').first().click();
     assert.equal(await page.locator('#results tr.def-row[data-def-for="trail_mm"]').count(), 0);
+    // A tap on the number itself explains it too, and hovering it shows the same sentence.
+    const number = page.locator('#results tr[data-key="trail_mm"] td[data-col="solved"], #results tr[data-key="trail_mm"] td').first();
+    assert.match(await number.evaluate((td) => td.closest('tr').title), /steering axis/);
+    await number.click();
+    assert.equal(await page.locator('#results tr.def-row[data-def-for="trail_mm"]').count(), 1);
+    await number.click();
+    assert.equal(await page.locator('#results tr.def-row[data-def-for="trail_mm"]').count(), 0);
     // Keyboard: focus a term and press Enter; focus an input and see its definition.
     await page.locator('#results tr[data-key="stack_mm"] button.term').first().focus();
     await page.keyboard.press('Enter');

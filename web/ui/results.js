@@ -66,7 +66,7 @@ function frameBlock(bike, notes, catalogue) {
       cls: `${r ? 'given' : ''}${bad ? ' inconsistent' : ''}`,
       get cells() {
         return [
-          ['given', r ? `${bad ? '⚠ ' : ''}${format(key, r.given)}` : '–'],
+          ['given', r ? format(key, r.given) : '–'], // a disagreeing value's ⚠ is by its name (style.css)
           ['stock', format(key, bike.stock[key])],
           ['ridden', format(key, bike.ridden[key])],
         ];
@@ -184,7 +184,7 @@ function buildTable(b, words, rows) {
     // Each number in a box of its own (span.v) that Chromium lays out alone (style.css).
     const boxes = r.cells.map(([, text]) => el('span', { class: 'v' }, text));
     const tds = r.cells.map(([col], i) => el('td', { 'data-col': col, class: 'num', role: 'cell' }, boxes[i]));
-    const tr = el('tr', { 'data-key': r.key, class: r.cls, role: 'row' }, el('th', { scope: 'row', role: 'rowheader' }, ...term(r.key, scope, words)), ...tds);
+    const tr = el('tr', { 'data-key': r.key, class: r.cls, role: 'row', title: words.get(r.key)?.definition ?? '' }, el('th', { scope: 'row', role: 'rowheader' }, ...term(r.key, scope, words)), ...tds);
     const row = { first: tr, last: tr, refs: [[tr, 'class'], ...boxes.map((box) => [box, 'text'])] };
     body.append(tr);
     if (r.note) {
@@ -212,8 +212,7 @@ function buildItems(b, refs) {
     (b.type === 'warnings' && i.cls === 'note' ? minor : main).append(li);
   }
   const title = b.type === 'checks' ? 'Fit and safety checks' : 'Warnings and cautions';
-  // The warnings list is a place the phone's strip of key numbers links to (ui/strip.js).
-  const box = el('div', b.type === 'warnings' ? { class: b.type, id: 'warnings' } : { class: b.type });
+  const box = el('div', { class: b.type, id: b.type }); // places the strip links to (ui/strip.js)
   if (main.children.length) box.append(el('h3', {}, title), main);
   if (minor.children.length) {
     box.append(el('details', { class: 'notes' },
@@ -360,7 +359,8 @@ export function renderResults(container, bike, notes, catalogue, words, painter,
 /** Tapping a name shows or hides its definition row (the state survives re-rendering). */
 export function wireDefinitions(container, words) {
   container.addEventListener('click', (ev) => {
-    const btn = ev.target.closest('button.term');
+    // A tap on a row's number explains it as a tap on its name does.
+    const btn = ev.target.closest('button.term') ?? ev.target.closest('tr[data-key]')?.querySelector('button.term');
     if (!btn) return;
     const key = btn.dataset.term;
     const id = `${btn.dataset.scope}|${key}`;

@@ -1,6 +1,6 @@
 // The strip of key numbers on a phone: while a person types in the form, the drawing and the
 // tables are far above, so a bar at the top of the screen shows the ridden bike's key numbers and
-// the count of cautions, written by every edit (style.css shows it only on a narrow screen with
+// the count of warnings, written by every edit (style.css shows it only on a narrow screen with
 // the focus in the form: <html class="form-focus">). Names come from the glossary's short names,
 // the catalogue and the glossary (Rust).
 
@@ -21,6 +21,13 @@ export function createStrip(strip, words, short, form) {
   form.addEventListener('focusin', () => root.classList.add('form-focus'));
   form.addEventListener('focusout', (e) => {
     if (!form.contains(e.relatedTarget)) root.classList.remove('form-focus');
+  });
+  // Only while the focused field is on the screen: scrolled up to the drawing with the keyboard
+  // still open, the strip would cover the page (style.css: <html class="field-seen">).
+  const seen = new IntersectionObserver(([e]) => root.classList.toggle('field-seen', e.isIntersecting));
+  form.addEventListener('focusin', (e) => {
+    seen.disconnect();
+    seen.observe(e.target);
   });
 
   const cells = new Map();
@@ -70,11 +77,13 @@ export function createStrip(strip, words, short, form) {
       const shown = Number.isFinite(v) ? text(key, v) : '–';
       if (cell.textContent !== shown) cell.textContent = shown;
     }
-    const n = (bike.warnings ?? []).filter((w) => w.code.startsWith('caution')).length;
-    const said = n ? `${n} caution${n > 1 ? 's' : ''}` : 'No cautions';
+    // Cautions, disagreeing numbers and fit checks outside their range: all a person should read.
+    const listed = (bike.warnings ?? []).filter((w) => w.code.startsWith('caution') || w.code === 'inconsistent').length;
+    const n = listed + (bike.checks ?? []).filter((c) => c.within === false).length;
+    const said = n ? `${n} warning${n > 1 ? 's' : ''}` : 'No warnings';
     if (cautions.textContent !== said) cautions.textContent = said;
     cautions.classList.toggle('some', n > 0);
-    const to = n ? '#warnings' : '#results-title'; // the cautions are in the warnings list
+    const to = listed ? '#warnings' : n ? '#checks' : '#results-title';
     if (cautions.getAttribute('href') !== to) cautions.setAttribute('href', to);
   };
 }
