@@ -77,6 +77,8 @@ function writeForm(fields) {
   return Object.keys(fields).filter((name) => !form.elements.namedItem(name));
 }
 
+let asking = false; // the frame numbers were cleared and the listing has not read since
+
 // A new listing starts blank: the demo's frame numbers (some under "More frame numbers") would
 // otherwise be read with the person's own and could disagree with them.
 const clearFrame = document.createElement('button');
@@ -88,6 +90,7 @@ clearFrame.addEventListener('click', () => {
   for (const c of form.elements) if (c.name === 'label' || c.name?.startsWith('frame.')) c.value = '';
   typed = null;
   heldForm = 0;
+  asking = true;
   showFilled(form);
   update();
   form.elements.namedItem('frame.reach_mm')?.focus();
@@ -139,22 +142,33 @@ function update(event) {
   const errors = result.field_errors ?? [];
   if (errors.length || !result.report.bikes?.length) {
     const problems = errors.length ? errors : result.report.errors ?? [];
+    // The status under the drawing names the fields in error, each a link to its box.
+    const fieldLinks = (lead, tail) => {
+      const names = [...new Set(problems.map((e) => e.field))].filter((n) => labels.has(n));
+      const links = names.map((n) => Object.assign(document.createElement('a'), { href: `#${form.elements.namedItem(n)?.id}`, textContent: labels.get(n) }));
+      status.replaceChildren(lead, ...links.flatMap((a, i) => (i ? [', ', a] : [a])), tail);
+    };
+    // A listing cleared to start again: its blank fields are asked for under the drawing, not
+    // marked, until the listing reads.
+    const blank = (e) => !form.elements.namedItem(e.field)?.value.trim();
+    const asked = asking && errors.some(blank);
     const show = () => {
       sayProblems = null;
-      const unplaced = showErrors(form, problems);
-      status.textContent = unplaced.length
-        ? unplaced.join(' ')
-        : 'Fix the marked field; the drawing and numbers show the last good values.';
+      const unplaced = showErrors(form, asked ? problems.filter((e) => !blank(e)) : problems);
+      if (unplaced.length) status.textContent = unplaced.join(' ');
+      else if (asked) fieldLinks('Type the listing\'s numbers, at least ', '; until then the drawing and numbers show the last good bike.');
+      else fieldLinks('Fix ', '; the drawing and numbers show the last good values.');
     };
     // A number half typed ("4" of "470") is said only after a pause in typing, or when the
     // person leaves the field; any other problem at once. The last good result stays meanwhile.
-    const typing = oneField && errors.length && errors.every((e) => e.field === typedIn.name);
+    const typing = oneField && errors.length && errors.every((e) => e.field === typedIn.name || (asked && blank(e)));
     if (typing) {
       sayProblems = show;
       problemsLater = setTimeout(show, TYPING_PAUSE_MS);
     } else show();
     return { shown: false, problem: named(problems[0]) };
   }
+  asking = false;
   if (status.textContent) status.textContent = '';
   // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);

@@ -106,6 +106,10 @@ for (const [name, width, height] of SIZES) {
       assert.equal(await page.locator('#drawing svg').innerHTML(), good, 'the last good drawing stays');
       assert.equal(await page.locator('#results').innerHTML(), table, 'the last good numbers stay');
       assert.doesNotMatch(await page.locator('body').textContent(), /NaN|Infinity/);
+      // The line under the drawing names the field, a link to its box (far below on a phone).
+      const label = await page.locator(`label[for="${await input.getAttribute('id')}"]`).textContent();
+      assert.equal(await page.locator('#status').textContent(), `Fix ${label}; the drawing and numbers show the last good values.`);
+      assert.equal(await page.locator('#status a').getAttribute('href'), `#${await input.getAttribute('id')}`);
       await page.fill(`[name="${field}"]`, field === 'wheels.front' ? '29x2.4' : field === 'rider.height_mm' ? '1780' : '65');
     }
     await page.fill('input[name="frame.head_angle_deg"]', '95');
@@ -154,10 +158,19 @@ for (const [name, width, height] of SIZES) {
     assert.deepEqual(left, []);
     assert.equal(await more.textContent(), 'More frame numbers from the listing (9)');
     assert.equal(await page.evaluate(() => document.activeElement?.name), 'frame.reach_mm');
-    assert.match(await page.locator('#f-frame-reach-mm-msg').textContent(), /^Reach is required: enter a length such as 470 mm/);
+    // The blank listing's numbers are asked for under the drawing (each a link to its box), not
+    // marked as errors before the person has typed anything.
+    assert.equal(await page.locator('#bike-form [aria-invalid="true"]').count(), 0);
+    assert.equal(await page.locator('#status').textContent(),
+      "Type the listing's numbers, at least Head tube angle, Reach, Stack; until then the drawing and numbers show the last good bike.");
+    assert.equal(await page.locator('#status a').first().getAttribute('href'), '#f-frame-head-angle-deg');
     assert.equal(await page.locator('#drawing svg').innerHTML(), good, 'the last good drawing stays');
-    // A listing's own numbers: the page solves them alone, with nothing to disagree with.
+    // A listing's own numbers: the page solves them alone, with nothing to disagree with. Typing
+    // reach and leaving it marks no blank field.
     await page.fill('input[name="frame.reach_mm"]', '480');
+    await page.keyboard.press('Tab');
+    await page.waitForTimeout(900); // past the typing pause (web/app.js)
+    assert.equal(await page.locator('#bike-form [aria-invalid="true"]').count(), 0);
     await page.fill('input[name="frame.stack_mm"]', '630');
     await page.fill('input[name="frame.head_angle_deg"]', '64');
     await waitCell(page, 'reach_mm', 480, 0.06);
