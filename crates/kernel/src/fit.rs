@@ -63,7 +63,7 @@ pub fn knee_flexion(deg: f64) -> Check {
     with(
         band("knee_flexion_bdc", deg, "°", Some(25.0), Some(35.0)),
         format!("Seated knee bend at bottom dead centre is {deg:.0}°; 25°–35° is recommended against overuse injury (a review suggests 25°–30°)."),
-        "Peveler et al. 2005, J. Exercise Physiology online 8(1), tracing to Holmes, Pruitt & Whalen 1994 [read]; Bini, Hume & Croft 2011, Sports Med. 41 [read, abstract]",
+        "Peveler et al. 2005, J. Exercise Physiology online 8(1), tracing to Holmes, Pruitt & Whalen 1994; Bini, Hume & Croft 2011, Sports Med. 41 (abstract)",
     )
 }
 
@@ -75,7 +75,7 @@ pub fn saddle_height_inseam(saddle_height: f64, inseam: f64) -> Check {
     with(
         c,
         format!("Saddle height {saddle_height:.0} mm; 0.883 × inseam gives {target:.0} mm."),
-        "Peveler et al. 2005, J. Exercise Physiology online 8(1) [read]",
+        "Peveler et al. 2005, J. Exercise Physiology online 8(1)",
     )
 }
 
@@ -93,7 +93,7 @@ pub fn saddle_pedal_inseam(saddle_to_pedal: f64, inseam: f64) -> Check {
     with(
         c,
         format!("Saddle top to pedal spindle {saddle_to_pedal:.0} mm; 1.09 × inseam gives {target:.0} mm."),
-        "Hamley & Thomas 1967 [memory]; factor read in Peveler et al. 2005 [read]",
+        "Hamley & Thomas 1967 (from memory); factor in Peveler et al. 2005",
     )
 }
 
@@ -107,7 +107,7 @@ pub fn torso_angle(deg: f64, drop_bar: bool) -> Check {
     with(
         band("torso_angle", deg, "°", min, max),
         format!("Seated torso angle {deg:.0}° to horizontal; {what}."),
-        "common practice [practice]",
+        "common practice",
     )
 }
 
@@ -116,7 +116,7 @@ pub fn front_load(pct: f64) -> Check {
     with(
         band("iso_4210_front_load", pct, "%", Some(25.0), None),
         format!("Front wheel carries {pct:.0} % of the weight seated; ISO 4210-2 asks at least 25 % with the saddle fully rearward (here: at the given saddle position)."),
-        "ISO 4210-2 §4.7.5 [read]",
+        "ISO 4210-2 §4.7.5",
     )
 }
 
@@ -125,7 +125,7 @@ pub fn toe_clearance(mm: f64) -> Check {
     with(
         band("toe_clearance", mm, "mm", Some(89.0), None),
         format!("Toe to front tyre at straight ahead: {mm:.0} mm (negative: the shoe overlaps the tyre). US rules ask 89 mm for pedals without foot retention; toe overlap needs care at low speed."),
-        "16 CFR 1512.17(d) [read]",
+        "16 CFR 1512.17(d)",
     )
 }
 
@@ -134,6 +134,6 @@ pub fn pedal_strike(deg: f64) -> Check {
     with(
         band("pedal_strike_lean", deg, "°", Some(25.0), None),
         format!("With the crank down the pedal touches the ground at {deg:.0}° of lean; US rules ask 25°."),
-        "16 CFR 1512.17(c) [read]",
+        "16 CFR 1512.17(c)",
     )
 }

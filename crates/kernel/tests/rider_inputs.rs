@@ -234,7 +234,10 @@ fn checks_with_sources() {
     assert_eq!(get("toe_clearance").min, Some(89.0));
     assert!(get("toe_clearance").source.contains("1512.17(d)"));
     assert_eq!(get("pedal_strike_lean").min, Some(25.0));
-    assert!(get("torso_angle").source.contains("[practice]"));
+    assert!(get("torso_angle").source.contains("common practice"));
+    // Sources are shown to people: plain words, a recalled one marked so, no bracketed tags.
+    assert!(get("saddle_to_pedal_109_inseam").source.contains("Hamley & Thomas 1967 (from memory)"));
+    assert!(b.checks.iter().all(|c| !c.source.contains('[')));
 }
 
 /// A saddle setback not given is the post's offset (the saddle centred over the clamp): the
