@@ -118,6 +118,15 @@ function named(problem) {
   return label && !text.toLowerCase().includes(label.toLowerCase()) ? `${label}: ${text}` : text;
 }
 
+// A frame length typed with its own unit ("47,5 cm", "18.7in") is said in mm beside its field
+// (the box's unit reads mm): the published value as the kernel read it.
+function unitNotes(bike) {
+  const fields = formFields();
+  return Object.entries(bike.residuals ?? {})
+    .filter(([key]) => key.endsWith('_mm') && /[a-z"'″]/i.test(fields[`frame.${key}`]?.replace(/mm\s*$/i, '')))
+    .map(([key, r]) => ({ field: `frame.${key}`, message: `Read as ${+r.given.toFixed(1)} mm.` }));
+}
+
 // Returns what the page now shows: { shown: true } when the edit was drawn, else
 // { shown: false, problem } with the first problem in a sentence (the chart box says it).
 function update(event) {
@@ -170,6 +179,7 @@ function update(event) {
   }
   asking = false;
   if (status.textContent) status.textContent = '';
+  showNotes(form, unitNotes(result.report.bikes[0]));
   // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
   showStrip(result.report.bikes[0]);

@@ -137,7 +137,20 @@ for (const [name, width, height] of SIZES) {
     assert.equal(await input.getAttribute('aria-invalid'), null, 'a note, not an error');
     assert.match(await input.getAttribute('aria-describedby'), /f-frame-reach-mm-msg/);
     await shot(page, `${SHOTS}/page-${name}-unit-read.png`, {}, page.locator('.field:has(input[name="frame.reach_mm"])'));
-    // Typed in mm again: the note goes.
+    // Typed with its own unit: the length in mm is said beside the box, whose unit reads mm.
+    // Source: 1 in = 25.4 mm exactly (international yard and pound agreement, 1959): 18.7 in =
+    // 474.98 mm, said to the tenth.
+    await page.fill('input[name="frame.reach_mm"]', '18.7in');
+    await waitCell(page, 'reach_mm', 474.98, 0.06);
+    assert.equal(await msg.textContent(), 'Read as 475 mm.');
+    await page.fill('input[name="frame.reach_mm"]', '47.25 cm');
+    await waitCell(page, 'reach_mm', 472.5, 0.06);
+    assert.equal(await msg.textContent(), 'Read as 472.5 mm.');
+    assert.equal(await msg.getAttribute('class'), 'msg note');
+    // Typed in mm again (with or without its mark): the note goes.
+    await page.fill('input[name="frame.reach_mm"]', '471 mm');
+    await waitCell(page, 'reach_mm', 471, 0.06);
+    assert.equal(await msg.textContent(), '');
     await page.fill('input[name="frame.reach_mm"]', '470');
     await waitCell(page, 'reach_mm', 470, 0.06);
     assert.equal(await msg.textContent(), '');
