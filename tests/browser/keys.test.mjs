@@ -157,3 +157,25 @@ test('desk: a click on the drawing does not give it the keys (only Tab does): th
   assert.deepEqual(problems, []);
   await context.close();
 });
+
+test('desk: from the top, the keyboard reaches the chart box and the inputs by the page\'s links, shown when focused', T, async () => {
+  const { page, context, problems } = await openPage(env, { width: 1280, height: 800 });
+  const focused = () => page.evaluate(() => ({ text: document.activeElement.textContent, id: document.activeElement.id }));
+  await page.keyboard.press('Tab');
+  assert.equal((await focused()).text, 'Skip to the inputs');
+  await page.keyboard.press('Tab');
+  assert.equal((await focused()).text, 'Numbers');
+  // Hidden until focused, then on the screen and not clipped.
+  const box = await page.locator('.jump a', { hasText: 'Numbers' }).boundingBox();
+  assert.ok(box && box.width > 40 && box.height >= 44 && box.y >= 0, JSON.stringify(box));
+  assert.equal(await page.locator('.jump').evaluate((n) => getComputedStyle(n).clipPath), 'none');
+  await page.keyboard.press('Tab');
+  assert.equal((await focused()).text, 'Paste a chart');
+  await page.keyboard.press('Enter');
+  await page.keyboard.press('Tab');
+  assert.equal((await focused()).id, 'chart-text', 'the next Tab is in the chart box, not 60 names later');
+  // Left, the links hide again.
+  assert.notEqual(await page.locator('.jump').evaluate((n) => getComputedStyle(n).clipPath), 'none');
+  assert.deepEqual(problems, []);
+  await context.close();
+});
