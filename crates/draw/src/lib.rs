@@ -1,7 +1,8 @@
 //! framewise drawing: a bike report's outline → an SVG document (the `svg` crate).
 //!
 //! **Invariant:** no geometry is computed here; every point comes from the kernel's
-//! [`framewise_kernel::Outline`]. The kernel is y-up; the only y flip is [`flip`].
+//! [`framewise_kernel::Outline`] (the stock ghost only moved up or down to stand on the ridden
+//! bike's ground, [`ghost`]). The kernel is y-up; the only y flip is [`flip`].
 //!
 //! The document carries both rider postures, both centres of mass, the stock ghost and the
 //! dimension labels; the page shows or hides them with classes on the drawing's container
@@ -21,6 +22,7 @@
 
 mod dims;
 mod figure;
+mod ghost;
 pub mod model;
 pub mod num;
 mod parts;
@@ -124,14 +126,15 @@ pub fn drawing(scene: &Scene) -> Drawing {
 /// in the scene's own fit: the page passes the view box of the drawing it shows.
 pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let o = scene.ridden;
+    let (stock, stock_bb) = ghost::on_ground(scene.stock, o.ground_y);
     let view = view::steady(shown, view::fit(scene));
     let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![
         PathData::new()
             .line([min_x, o.ground_y], [max_x, o.ground_y])
             .node("ground".into(), "ground"),
-        parts::bike(scene.stock, "ghost"),
-        parts::bike(o, "ridden"),
+        parts::bike(&stock, "ghost", stock_bb),
+        parts::bike(o, "ridden", [0.0, 0.0]),
     ];
     for (fig, com, limits, posture) in [
         (&o.rider_seated, o.com_seated, scene.seated, "seated"),

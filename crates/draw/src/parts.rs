@@ -130,9 +130,9 @@ impl Parts<'_> {
     }
 }
 
-/// One bike as a group with the given class (`ridden` or `ghost`), which also prefixes keys.
-/// The ghost is its two tyres and one outline part.
-pub fn bike(o: &Outline, layer: &str) -> Node {
+/// One bike as a group with the given class (`ridden` or `ghost`), which also prefixes keys,
+/// its BB at `bb`. The ghost is its two tyres and one outline part.
+pub fn bike(o: &Outline, layer: &str, bb: Xy) -> Node {
     let ghost = layer == "ghost";
     let mut p = Parts {
         layer,
@@ -149,7 +149,7 @@ pub fn bike(o: &Outline, layer: &str) -> Node {
     p.frame(o);
     p.cockpit(o);
     p.seat(o);
-    p.add("bb", "bb", PathData::new().circle([0.0, 0.0], BB_R));
+    p.add("bb", "bb", PathData::new().circle(bb, BB_R));
     if let Some(c) = &o.cranks {
         p.crank(
             c.pedal_near,

@@ -745,3 +745,54 @@ fn the_view_box_holds_the_grip_label_of_a_grip_far_forward() {
     let fit = crate::view::fit(&scene(&forward, &n));
     assert!(fit.max_x() >= end && fit.max_x() < end + 50.0, "{fit:?}");
 }
+
+/// Source: this crate's ghost rule (ghost.rs): a sagged bike's BB is nearer the ground, here by
+/// 20 mm (ground at −320 against the stock −340); the ghost is moved up 20 mm so its tyres touch
+/// the same ground: rear axle 32 + 20 = 52, contacts on −320, the BB at (0, 20).
+#[test]
+fn the_stock_ghost_stands_on_the_ridden_ground() {
+    let stock = full();
+    let (g, bb) = ghost::on_ground(&stock, -320.0);
+    assert_eq!(bb, [0.0, 20.0]);
+    assert_eq!(g.ground_y, -320.0);
+    assert_eq!(g.rear_axle, [-435.0, 52.0]);
+    assert_eq!(g.front_contact, [800.0, -320.0]);
+    assert_eq!(
+        g.rear_axle[1] - g.rear_radius,
+        g.ground_y,
+        "the tyre touches the ground"
+    );
+    assert_eq!(g.cockpit.map(|c| c.grip), Some([465.0, 725.0]));
+    assert_eq!(
+        g.seat.map(|s| s.saddle[1]),
+        stock.seat.map(|s| s.saddle[1] + 20.0)
+    );
+    assert_eq!(
+        g.cranks.map(|c| c.pedal_near[1]),
+        stock.cranks.map(|c| c.pedal_near[1] + 20.0)
+    );
+    let hip = |o: &Outline| o.rider_seated.map(|f| f.hip[1]);
+    assert_eq!(hip(&g), hip(&stock).map(|y| y + 20.0));
+    assert_eq!(
+        ghost::on_ground(&stock, stock.ground_y).0,
+        stock,
+        "no change when the grounds agree"
+    );
+
+    // Drawn: the ghost's BB ring 20 mm above the ridden one (SVG y is down).
+    let mut ridden = bare();
+    ridden.ground_y = -320.0;
+    let n = numbers();
+    let stock = bare();
+    let sc = Scene {
+        stock: &stock,
+        ..scene(&ridden, &n)
+    };
+    let svg = draw(&sc);
+    let ghost_start = svg.find("class=\"bike ghost\"").unwrap_or(0);
+    let ghost_svg = &svg[ghost_start..svg.find("class=\"bike ridden\"").unwrap_or(svg.len())];
+    assert!(
+        ghost_svg.contains("0,-20 0,-20"),
+        "the ghost's BB at y 20 mm: {ghost_svg}"
+    );
+}

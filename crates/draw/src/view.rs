@@ -68,7 +68,8 @@ impl ViewBox {
 /// millimetres usually gives the same box.
 pub fn fit(scene: &Scene) -> ViewBox {
     let (x0, y0, x1, y1) = extent(scene.ridden);
-    let (gx0, gy0, gx1, gy1) = extent(scene.stock);
+    let (gx0, gy0, gx1, gy1) =
+        extent(&crate::ghost::on_ground(scene.stock, scene.ridden.ground_y).0);
     let pad = 80.0;
     let out = |v: f64, up: bool| {
         let q = v / VIEW_STEP_MM;

@@ -236,7 +236,9 @@ fn checks_with_sources() {
     assert_eq!(get("pedal_strike_lean").min, Some(25.0));
     assert!(get("torso_angle").source.contains("common practice"));
     // Sources are shown to people: plain words, a recalled one marked so, no bracketed tags.
-    assert!(get("saddle_to_pedal_109_inseam").source.contains("Hamley & Thomas 1967 (from memory)"));
+    assert!(get("saddle_to_pedal_109_inseam")
+        .source
+        .contains("Hamley & Thomas 1967 (from memory)"));
     assert!(b.checks.iter().all(|c| !c.source.contains('[')));
 }
 
