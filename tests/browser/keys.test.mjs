@@ -39,6 +39,10 @@ test('desk 1280×800: Tab reaches the drawing; + - and the arrows zoom and move 
   assert.equal(focus.color, 'rgb(217, 142, 0)', `the page's focus colour (${focus.focusColor})`);
   assert.match(focus.name, /zoom.*arrows move/, 'its name says what the keys do');
 
+  // A label's height on the screen: zooming in keeps it (style.css divides by --z, the zoom).
+  const labelPx = () => page.locator('#drawing text.label').first().evaluate((t) => t.getBoundingClientRect().height);
+  const labelAtFit = await labelPx();
+
   // + zooms in by 1.25 about the middle: the middle stays where it was.
   const mid = [x + w / 2, y + h / 2];
   const about = (k) => [mid[0] - (w * k) / 2, mid[1] - (h * k) / 2, w * k, h * k];
@@ -46,6 +50,8 @@ test('desk 1280×800: Tab reaches the drawing; + - and the arrows zoom and move 
   near(numbers(await viewBox(page)), about(0.8), '+ zooms in 1.25×');
   await page.keyboard.press('=');
   near(numbers(await viewBox(page)), about(0.64), '= zooms in too');
+  const zoomedLabel = await labelPx();
+  assert.ok(Math.abs(zoomedLabel - labelAtFit) < 0.05 * labelAtFit, `a label ${zoomedLabel} px zoomed 1.5625×, ${labelAtFit} px fitted`);
   await page.keyboard.press('-');
   near(numbers(await viewBox(page)), about(0.8), '- zooms out 1.25×');
   assert.equal(await page.locator('#drawing.zoomed').count(), 1, 'the box knows it is zoomed');
@@ -65,6 +71,7 @@ test('desk 1280×800: Tab reaches the drawing; + - and the arrows zoom and move 
   // 0 fits again: exactly the first view's box.
   await page.keyboard.press('0');
   assert.equal(await viewBox(page), fit, '0 shows the first view again');
+  assert.equal(await labelPx(), labelAtFit, 'fitted, the labels are as first drawn');
   assert.equal(await page.locator('#drawing.zoomed').count(), 0);
   await page.keyboard.press('-');
   assert.notEqual(await viewBox(page), fit);

@@ -26,6 +26,8 @@ export function attachZoom(container, fitButton) {
     if (!s || !view) return;
     if (!s.dataset.fit) s.dataset.fit = s.getAttribute('viewBox');
     s.setAttribute('viewBox', view.map((v) => v.toFixed(1)).join(' '));
+    // Zoomed in, the labels keep their size on the screen (style.css divides theirs by --z).
+    s.style.setProperty('--z', Math.max(s.dataset.fit.split(' ')[2] / view[2], 1).toFixed(3));
   }
 
   function fit() {
@@ -33,6 +35,7 @@ export function attachZoom(container, fitButton) {
     container.classList.remove('zoomed');
     const s = svg();
     if (s?.dataset.fit) s.setAttribute('viewBox', s.dataset.fit);
+    s?.style.removeProperty('--z');
   }
 
   // Screen point → drawing units, for the current viewBox and the element's box.
