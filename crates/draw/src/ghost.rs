@@ -7,11 +7,11 @@
 //! on one ground and the BB's change in height shows (the BB keeps its place along the ground).
 //! A translation only: every point still comes from the kernel's outline.
 
-use framewise_kernel::report::{Leg, RiderFigure, Xy};
+use framewise_kernel::report::Xy;
 use framewise_kernel::Outline;
 
-/// `stock` moved by `ground_y − stock.ground_y` vertically (no change when both grounds agree),
-/// with where its BB now is.
+/// `stock`'s frame and wheels moved by `ground_y − stock.ground_y` vertically (no change when
+/// both grounds agree), with where its BB now is.
 pub fn on_ground(stock: &Outline, ground_y: f64) -> (Outline, Xy) {
     let dy = ground_y - stock.ground_y;
     let m = |p: Xy| [p[0], p[1] + dy];
@@ -31,68 +31,14 @@ pub fn on_ground(stock: &Outline, ground_y: f64) -> (Outline, Xy) {
     ] {
         *p = m(*p);
     }
-    if let Some(c) = &mut o.cockpit {
-        for p in [
-            &mut c.headset_top,
-            &mut c.spacers_top,
-            &mut c.stem_clamp,
-            &mut c.steerer_top,
-            &mut c.bar_clamp,
-            &mut c.grip,
-        ] {
-            *p = m(*p);
-        }
-    }
-    if let Some(s) = &mut o.seat {
-        for p in [
-            &mut s.post_exit,
-            &mut s.post_top,
-            &mut s.saddle,
-            &mut s.saddle_nose,
-            &mut s.saddle_tail,
-        ] {
-            *p = m(*p);
-        }
-    }
-    if let Some(c) = &mut o.cranks {
-        c.pedal_near = m(c.pedal_near);
-        c.pedal_far = m(c.pedal_far);
-    }
-    for f in [&mut o.rider_seated, &mut o.rider_standing]
-        .into_iter()
-        .flatten()
-    {
-        move_figure(f, &m);
-    }
-    for c in [&mut o.com_seated, &mut o.com_standing]
-        .into_iter()
-        .flatten()
-    {
-        *c = m(*c);
-    }
+    // The ghost is the stock frame and wheels alone, as the kernel gives it (no cockpit, seat,
+    // cranks or rider): nothing else is drawn unmoved.
+    (o.cockpit, o.seat, o.cranks) = (None, None, None);
+    (
+        o.rider_seated,
+        o.rider_standing,
+        o.com_seated,
+        o.com_standing,
+    ) = (None, None, None, None);
     (o, m([0.0, 0.0]))
-}
-
-fn move_figure(f: &mut RiderFigure, m: &impl Fn(Xy) -> Xy) {
-    for p in [
-        &mut f.head,
-        &mut f.shoulder,
-        &mut f.elbow,
-        &mut f.hand,
-        &mut f.hip,
-    ] {
-        *p = m(*p);
-    }
-    for Leg {
-        knee,
-        ankle,
-        ball,
-        heel,
-        toe,
-    } in &mut f.legs
-    {
-        for p in [knee, ankle, ball, heel, toe] {
-            *p = m(*p);
-        }
-    }
 }

@@ -762,20 +762,15 @@ fn the_stock_ghost_stands_on_the_ridden_ground() {
         g.ground_y,
         "the tyre touches the ground"
     );
-    assert_eq!(g.cockpit.map(|c| c.grip), Some([465.0, 725.0]));
-    assert_eq!(
-        g.seat.map(|s| s.saddle[1]),
-        stock.seat.map(|s| s.saddle[1] + 20.0)
+    assert_eq!(g.head_top, [470.0, 645.0]);
+    assert!(
+        g.cockpit.is_none() && g.seat.is_none() && g.rider_seated.is_none(),
+        "the stock frame and wheels alone"
     );
+    let frame = bare();
     assert_eq!(
-        g.cranks.map(|c| c.pedal_near[1]),
-        stock.cranks.map(|c| c.pedal_near[1] + 20.0)
-    );
-    let hip = |o: &Outline| o.rider_seated.map(|f| f.hip[1]);
-    assert_eq!(hip(&g), hip(&stock).map(|y| y + 20.0));
-    assert_eq!(
-        ghost::on_ground(&stock, stock.ground_y).0,
-        stock,
+        ghost::on_ground(&frame, frame.ground_y).0,
+        frame,
         "no change when the grounds agree"
     );
 

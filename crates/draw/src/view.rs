@@ -68,8 +68,10 @@ impl ViewBox {
 /// millimetres usually gives the same box.
 pub fn fit(scene: &Scene) -> ViewBox {
     let (x0, y0, x1, y1) = extent(scene.ridden);
-    let (gx0, gy0, gx1, gy1) =
-        extent(&crate::ghost::on_ground(scene.stock, scene.ridden.ground_y).0);
+    // The ghost stands on the ridden ground (ghost.rs): its extent moved with it.
+    let lift = scene.ridden.ground_y - scene.stock.ground_y;
+    let (gx0, gy0, gx1, gy1) = extent(scene.stock);
+    let (gy0, gy1) = (gy0 + lift, gy1 + lift);
     let pad = 80.0;
     let out = |v: f64, up: bool| {
         let q = v / VIEW_STEP_MM;
