@@ -194,7 +194,7 @@ const RAW: &[Field] = &[
     Field { name: "setup.hand_position", group: "cockpit", common: false, label: "Hands on", definition: "Where the hands hold a drop bar for the fit numbers.", kind: Kind::Choice, unit: "", demo: "hoods", choices: &["hoods", "drops", "tops"] },
     f!("setup.saddle_height_mm", "seat", true, Mm, "735", "Saddle height", "From the BB centre to the top of the saddle, along the seat tube axis."),
     f!("setup.crank_mm", "seat", true, Mm, "170", "Crank length", "From the BB axle centre to the pedal spindle centre."),
-    f!("setup.saddle_setback_mm", "seat", true, Mm, "", "Saddle setback", "How far the saddle's sit point sits behind the seat tube axis, horizontally; a setback measured from the BB is the results' Saddle position."),
+    f!("setup.saddle_setback_mm", "seat", true, Mm, "", "Saddle setback", "How far the saddle's sit point sits behind the seat tube axis, horizontally; a setback measured from the BB is the results' Sit point from BB, horizontal."),
     f!("setup.dropper_travel_mm", "seat", true, Mm, "", "Dropper travel", "How far the dropper post goes down; blank for a rigid post."),
     f!("setup.post_offset_mm", "seat", false, Mm, "", "Seatpost offset", "How far the seatpost clamp sits behind the post's axis."),
     f!("setup.saddle_stack_mm", "seat", false, Mm, "", "Saddle stack", "Height of the saddle top above the seatpost clamp."),
