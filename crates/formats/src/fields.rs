@@ -86,7 +86,7 @@ pub static GROUPS: &[Group] = &[
     Group {
         id: "frame",
         title: "Frame numbers from the listing",
-        hint: "Type what the geometry table gives, in mm, cm or inches; leave the rest blank.",
+        hint: "Type what the geometry table gives: mm, cm or inches; a number without its unit is read as mm, or as cm or inches when only they fit. Leave the rest blank.",
     },
     Group {
         id: "wheels",
