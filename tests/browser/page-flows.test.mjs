@@ -58,6 +58,8 @@ for (const [name, width, height] of SIZES) {
   test(`${name}: sag and a longer fork re-pose the bike as the formulas say`, T, async () => {
     const { page, context, problems } = await openPage(env, { width, height });
     const stockGhost = await page.locator('#drawing svg .ghost').innerHTML();
+    const ghostPoints = () => page.$$eval('#drawing svg .ghost polyline', (ps) => ps.map((p) => p.getAttribute('points').split(/[ ,]/).map(Number)));
+    const stockPoints = await ghostPoints();
     await page.fill('input[name="changes.fork_travel_mm"]', '150');
     await page.fill('input[name="changes.front_sag_pct"]', '20');
     let want = reposed(-30);
@@ -67,9 +69,20 @@ for (const [name, width, height] of SIZES) {
     want = reposed(-10);
     await waitCell(page, 'head_angle_deg', want.head, 0.06);
     await waitCell(page, 'wheelbase_mm', want.wheelbase, 0.06);
-    // The stock column and the ghost stay the stock frame.
+    // The stock column and the ghost stay the stock frame: the ghost's shape as it was, only
+    // moved up or down so that its tyres stand on the ridden bike's ground (crates/draw ghost.rs).
     await waitCell(page, 'head_angle_deg', 65, 0.06, 'stock');
-    assert.equal(await page.locator('#drawing svg .ghost').innerHTML(), stockGhost);
+    const moved = await ghostPoints();
+    const dy = moved[0][1] - stockPoints[0][1];
+    assert.equal(moved.length, stockPoints.length);
+    moved.forEach((pts, i) => pts.forEach((v, k) => {
+      const want = stockPoints[i][k] + (k % 2 ? dy : 0);
+      assert.ok(Math.abs(v - want) <= 0.11, `ghost polyline ${i} value ${k}: ${v}, want ${want}`);
+    }));
+    const ground = Number((await page.locator('#drawing svg [data-k="ground"]').getAttribute('points')).split(/[ ,]/)[1]);
+    const tyre = Number((await page.locator('#drawing svg [data-k="ghost-tyre-rear"]').getAttribute('points')).split(/[ ,]/)[1]);
+    const radius = Number(await page.locator('#drawing svg [data-k="ghost-tyre-rear.r"]').getAttribute('r'));
+    assert.ok(Math.abs(tyre + radius - ground) <= 0.11, `the ghost's tyre (${tyre} + ${radius}) on the ground (${ground})`);
     assert.notEqual(await page.locator('#drawing svg .ridden').innerHTML(), stockGhost);
     // A longer fork brings its caution.
     assert.match(await page.locator('#results .warnings').textContent(), /20 mm longer than stock/);

@@ -78,6 +78,12 @@ test('desk: a plain wheel over the drawing scrolls, Ctrl and wheel zooms', T, as
   const svg = page.locator('#drawing svg');
   const fit = await svg.getAttribute('viewBox');
   const box = await svg.boundingBox();
+  // A drag on the whole bike (not zoomed) moves nothing: only a zoomed drawing moves.
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width / 2 + 60, box.y + box.height / 2 + 30, { steps: 4 });
+  await page.mouse.up();
+  assert.equal(await svg.getAttribute('viewBox'), fit, 'a drag does not move the whole bike');
   await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
   await page.mouse.wheel(0, 300);
   await page.waitForTimeout(300);

@@ -92,8 +92,9 @@ export function attachZoom(container, fitButton) {
     const g = gesture();
     if (last && g.n === last.n) {
       if (g.n > 1 && last.dist > 0 && g.dist > 0) zoomAt(g.cx, g.cy, g.dist / last.dist);
-      // One finger on a drawing that is not zoomed is the page's (sideways too): no pan.
-      if (g.n > 1 || e.pointerType !== 'touch' || view) panBy(g.cx - last.cx, g.cy - last.cy);
+      // A drawing that is not zoomed shows the whole bike: one finger on it is the page's
+      // (sideways too), and a mouse drag moves nothing (the hint: drag moves a zoomed drawing).
+      if (g.n > 1 || view) panBy(g.cx - last.cx, g.cy - last.cy);
     }
     last = g;
   });

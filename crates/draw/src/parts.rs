@@ -21,6 +21,8 @@ const GRIP_R: f64 = 16.0;
 /// part, `{layer}-outline`.
 struct Parts<'a> {
     layer: &'a str,
+    /// Where the BB is drawn (the origin, but for a ghost moved onto the ridden ground).
+    bb: Xy,
     out: Vec<Node>,
     merged: Option<PathData>,
 }
@@ -39,7 +41,7 @@ impl Parts<'_> {
 
     /// One crank and its pedal; `names`: the crank's name and class, the pedal's name and class.
     fn crank(&mut self, pedal: Xy, names: [&str; 4]) {
-        let bb = [0.0, 0.0];
+        let bb = self.bb;
         let [crank, crank_class, pedal_name, pedal_class] = names;
         self.add(crank, crank_class, PathData::new().line(bb, pedal));
         self.add(
@@ -83,7 +85,7 @@ impl Parts<'_> {
     }
 
     fn frame(&mut self, o: &Outline) {
-        let bb = [0.0, 0.0];
+        let bb = self.bb;
         // Chainstay, seatstay, top tube and down tube in one run; the seat tube alone.
         let tubes = PathData::new()
             .polyline(&[o.head_bottom, bb, o.rear_axle, o.seat_top, o.head_top])
@@ -136,6 +138,7 @@ pub fn bike(o: &Outline, layer: &str, bb: Xy) -> Node {
     let ghost = layer == "ghost";
     let mut p = Parts {
         layer,
+        bb,
         out: Vec::with_capacity(24),
         merged: ghost.then(PathData::new),
     };
@@ -149,7 +152,7 @@ pub fn bike(o: &Outline, layer: &str, bb: Xy) -> Node {
     p.frame(o);
     p.cockpit(o);
     p.seat(o);
-    p.add("bb", "bb", PathData::new().circle(bb, BB_R));
+    p.add("bb", "bb", PathData::new().circle(p.bb, BB_R));
     if let Some(c) = &o.cranks {
         p.crank(
             c.pedal_near,

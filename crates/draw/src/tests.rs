@@ -787,6 +787,10 @@ fn the_stock_ghost_stands_on_the_ridden_ground() {
     let ghost_start = svg.find("class=\"bike ghost\"").unwrap_or(0);
     let ghost_svg = &svg[ghost_start..svg.find("class=\"bike ridden\"").unwrap_or(svg.len())];
     assert!(
+        !ghost_svg.contains(" 0,0 ") && !ghost_svg.contains("\"0,0 "),
+        "no ghost line still runs to the ridden BB: {ghost_svg}"
+    );
+    assert!(
         ghost_svg.contains("0,-20 0,-20"),
         "the ghost's BB at y 20 mm: {ghost_svg}"
     );
