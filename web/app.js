@@ -155,7 +155,7 @@ function update(event) {
     const fieldLinks = (lead, tail) => {
       const names = [...new Set(problems.map((e) => e.field))].filter((n) => labels.has(n));
       const links = names.map((n) => Object.assign(document.createElement('a'), { href: `#${form.elements.namedItem(n)?.id}`, textContent: labels.get(n) }));
-      status.replaceChildren(lead, ...links.flatMap((a, i) => (i ? [', ', a] : [a])), tail);
+      status.replaceChildren(lead, ...(links.length ? links.flatMap((a, i) => (i ? [', ', a] : [a])) : ['the marked field']), tail);
     };
     // A listing cleared to start again: its blank fields are asked for under the drawing, not
     // marked, until the listing reads.
