@@ -82,6 +82,17 @@ impl Measurement {
     pub fn default_tolerance(&self) -> f64 {
         self.unit.default_tolerance()
     }
+    /// Its plausible range in words: "most bikes: −30 to 85 mm".
+    pub fn most_bikes(&self) -> String {
+        use crate::error::fmt_num;
+        let (lo, hi) = self.plausible;
+        format!(
+            "most bikes: {} to {} {}",
+            fmt_num(lo),
+            fmt_num(hi),
+            self.unit.symbol()
+        )
+    }
 }
 
 macro_rules! m {

@@ -81,6 +81,8 @@ pub struct LeftOut {
     pub predicted: Option<f64>,
     /// Whether every remaining value then agrees: the value is a suspect.
     pub rest_agree: bool,
+    /// The refitted unknowns: the solved frame when this value is a lone misprint.
+    pub x: X,
 }
 
 /// Each row left out in turn, the rest refitted, for the rows whose removal leaves the frame
@@ -111,6 +113,7 @@ pub fn leave_each_out(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec
                 index: row.index,
                 predicted,
                 rest_agree: all_consistent(model, &f.x, &rest, free),
+                x: f.x,
             });
         }
     }
