@@ -283,20 +283,26 @@ pub fn page_words() -> PageWords {
 /// report's `from_others`, not the best fit, which includes the value itself) and the gap, and
 /// what that means. A value marked only because the fit spread the suspects' disagreement over it
 /// says so and names them; a prediction outside the plausible range is never quoted as what the
-/// number should be. A value no other number checks says so. A published standover says it is
-/// not checked.
+/// number should be. A value no other number checks says so.
 pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, String> {
-    let suspects: Vec<String> = bike
+    // "reach and wheelbase", as the kernel's warning says it.
+    let n = bike.residuals.values().filter(|r| r.suspect).count();
+    let mut suspects = String::new();
+    for (k, key) in bike
         .residuals
         .iter()
         .filter(|(_, r)| r.suspect)
-        .map(|(key, _)| in_sentence(lookup(key).map_or(key.as_str(), |m| m.label)))
-        .collect();
-    let suspects: Vec<&str> = suspects.iter().map(String::as_str).collect();
-    let suspects = framewise_kernel::error::join_and(&suspects);
+        .map(|(key, _)| key)
+        .enumerate()
+    {
+        if k > 0 {
+            suspects.push_str(if k + 1 == n { " and " } else { ", " });
+        }
+        suspects.push_str(&in_sentence(lookup(key).map_or(key.as_str(), |m| m.label)));
+    }
     bike.residuals
         .iter()
-        .filter(|(key, r)| !r.consistent || *key == "standover_mm")
+        .filter(|(_, r)| !r.consistent)
         .map(|(key, r)| (key.clone(), residual_note(key, r, &suspects)))
         .collect()
 }
@@ -307,9 +313,6 @@ fn residual_note(key: &str, r: &framewise_kernel::Residual, suspects: &str) -> S
         Some(m) => (m.label, m.unit.symbol() == "°", m.plausible),
         None => (key, false, (f64::MIN, f64::MAX)),
     };
-    if key == "standover_mm" {
-        return "Standover is shown as published and not checked: it depends on the top tube's shape.".into();
-    }
     let fmt = framewise_kernel::error::fmt_disagreement;
     let quote = r
         .from_others

@@ -140,15 +140,6 @@ pub fn fmt_measure(v: f64, unit: crate::catalogue::Unit) -> String {
     }
 }
 
-/// A list in words: "A", "A and B", "A, B and C".
-pub fn join_and(names: &[&str]) -> String {
-    match names {
-        [] => String::new(),
-        [one] => (*one).to_string(),
-        [rest @ .., last] => format!("{} and {last}", rest.join(", ")),
-    }
-}
-
 /// A catalogue label inside a sentence: its first letter in lower case unless the label starts
 /// with an abbreviation ("Head tube angle" → "head tube angle", "BB drop" stays).
 pub fn in_sentence(label: &str) -> String {

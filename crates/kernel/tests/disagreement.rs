@@ -203,7 +203,6 @@ fn one_clear_misprint_is_named_with_what_the_others_give() {
             );
         }
     }
-    assert!(!msg.contains("other marked values"), "{msg}");
 }
 
 #[test]
@@ -224,18 +223,8 @@ fn a_loop_marks_the_values_it_spreads_over_without_quoting_absurd_frames() {
         "{msg}"
     );
     // Several suspects keep the weighted fit: it spreads the 68 mm over the loop, so other values
-    // are marked too; the warning names them as moved only to spread it.
-    let spread: Vec<&str> = b
-        .residuals
-        .iter()
-        .filter(|(_, r)| !r.consistent && !r.suspect)
-        .map(|(k, _)| k.as_str())
-        .collect();
-    assert!(spread.contains(&"head_tube_mm"), "{spread:?}");
-    assert!(
-        msg.contains("The fit moved the other marked values (Chainstay, Fork axle-to-crown, Fork offset, Head tube angle, Head tube length, Lower headset stack) only to spread it."),
-        "{msg}"
-    );
+    // are marked too (their row notes say so, crates/formats/tests/row_notes.rs).
+    assert!(!b.residuals["head_tube_mm"].consistent && !b.residuals["head_tube_mm"].suspect);
     // Source: the catalogue's plausible ranges (head tube 60-250 mm, a2c 340-600 mm): what the
     // others give for the head tube left out (about 354 mm) is no frame, and is never quoted.
     assert!(b.residuals["head_tube_mm"].from_others.unwrap() > 250.0);

@@ -85,17 +85,21 @@ pub struct LeftOut {
     pub x: X,
 }
 
+/// Every row but the `k`-th.
+pub fn without(rows: &[Row], k: usize) -> Vec<Row> {
+    rows.iter()
+        .enumerate()
+        .filter(|(i, _)| *i != k)
+        .map(|(_, r)| *r)
+        .collect()
+}
+
 /// Each row left out in turn, the rest refitted, for the rows whose removal leaves the frame
 /// determined (a row nothing else checks is skipped).
 pub fn leave_each_out(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<LeftOut> {
     let mut out = Vec::new();
     for (k, row) in rows.iter().enumerate() {
-        let rest: Vec<Row> = rows
-            .iter()
-            .enumerate()
-            .filter(|(i, _)| *i != k)
-            .map(|(_, r)| *r)
-            .collect();
+        let rest = without(rows, k);
         let idx: Vec<usize> = rest.iter().map(|r| r.index).collect();
         let tol: Vec<f64> = rest.iter().map(|r| r.tolerance).collect();
         let determined = model

@@ -17,7 +17,7 @@
 //! value itself.
 
 use crate::catalogue::lookup;
-use crate::error::{fmt_disagreement, in_sentence, join_and, Warning};
+use crate::error::{fmt_disagreement, in_sentence, Warning};
 use crate::geometry::MEASURED_KEYS;
 
 /// One given value as the explanation needs it.
@@ -81,23 +81,11 @@ fn disagreement(f: &Finding) -> String {
 pub fn warning(findings: &[Finding], suspects: &[usize], left_out: bool) -> Warning {
     let of = |i: usize| findings.iter().find(|f| f.index == i);
     let named: Vec<&Finding> = suspects.iter().filter_map(|&i| of(i)).collect();
-    let mut msg = match named.as_slice() {
+    let msg = match named.as_slice() {
         [one] => one_suspect(one, left_out),
         [] => no_suspect(findings),
         many => one_loop(many),
     };
-    // The values the fit moved only to spread the suspects' disagreement, as the table marks them.
-    let others: Vec<&str> = findings
-        .iter()
-        .filter(|f| !f.consistent && !f.suspect && !named.is_empty())
-        .map(|f| label(f.index))
-        .collect();
-    if !others.is_empty() {
-        msg.push_str(&format!(
-            " The fit moved the other marked values ({}) only to spread it.",
-            others.join(", ")
-        ));
-    }
     Warning::new("inconsistent", msg)
 }
 
@@ -160,4 +148,13 @@ fn one_loop(members: &[&Finding]) -> String {
 fn steps_off(f: &Finding) -> f64 {
     f.from_others
         .map_or(f64::INFINITY, |p| ((p - f.given) / f.tolerance).abs())
+}
+
+/// "A, B and C".
+fn join_and(names: &[&str]) -> String {
+    match names {
+        [] => String::new(),
+        [one] => (*one).to_string(),
+        [rest @ .., last] => format!("{} and {last}", rest.join(", ")),
+    }
 }

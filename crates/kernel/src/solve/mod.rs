@@ -156,14 +156,12 @@ pub fn solve(
     let diag = diagnosis(&model, &best.x, &rows, &plan.free).ok_or_else(|| no_solution(prefix))?;
     let params = to_params(&diag.x, input.radii);
     let mut warnings = assumption_warnings(&plan, &x0, front);
-    let residuals = diag
-        .findings
-        .iter()
-        .map(|f| {
-            let key = MEASURED_KEYS.get(f.index).copied().unwrap_or("?");
-            (key.to_string(), residual(f))
-        })
-        .collect();
+    // Inserted one by one: collecting into a map sorts, one more sort in the page's wasm.
+    let mut residuals = BTreeMap::new();
+    for f in &diag.findings {
+        let key = MEASURED_KEYS.get(f.index).copied().unwrap_or("?");
+        residuals.insert(key.to_string(), residual(f));
+    }
     warnings.extend(diag.warning);
     warnings.extend(unusual::warning(&model, &diag.x, &rows, &plan.pinned));
     Ok(Solution {
@@ -206,24 +204,26 @@ fn diagnosis(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Diagn
         });
     }
     let left_out = diagnose::leave_each_out(model, x, rows, free);
-    // A suspect is a misprint the rest would mend: what they give for it must be a value a frame
-    // has (inside the catalogue's plausible range), or "off by 241 mm" would be offered for a
-    // 110 mm head tube.
-    let suspects: Vec<&diagnose::LeftOut> = left_out
-        .iter()
-        .filter(|l| l.rest_agree && l.predicted.is_some_and(|p| plausible(l.index, p)))
-        .collect();
+    let mut suspects = Vec::new();
+    for f in &mut findings {
+        let Some(l) = left_out.iter().find(|l| l.index == f.index) else {
+            continue;
+        };
+        if let Some(p) = l.predicted {
+            f.from_others = Some(p);
+            // A suspect is a misprint the rest would mend: what they give for it must be a value
+            // a frame has (inside the catalogue's plausible range), or "off by 241 mm" would be
+            // offered for a 110 mm head tube.
+            f.suspect = l.rest_agree && plausible(l.index, p);
+        }
+        if f.suspect {
+            suspects.push(l);
+        }
+    }
     if let [one] = suspects.as_slice() {
         if let Some(d) = lone_misprint(model, one, rows, free) {
             return Some(d);
         }
-    }
-    for f in &mut findings {
-        let refit = left_out.iter().find(|l| l.index == f.index);
-        if let Some(p) = refit.and_then(|l| l.predicted) {
-            f.from_others = Some(p);
-        }
-        f.suspect = suspects.iter().any(|l| l.index == f.index);
     }
     let named: Vec<usize> = suspects.iter().map(|l| l.index).collect();
     let warning = Some(explain::warning(&findings, &named, false));
@@ -246,12 +246,8 @@ fn lone_misprint(
     if !within_hard_ranges(model, &one.x) {
         return None;
     }
-    let rest: Vec<Row> = rows
-        .iter()
-        .filter(|r| r.index != one.index)
-        .copied()
-        .collect();
-    let checks = diagnose::checks(model, &one.x, &rest, free)?;
+    let k = rows.iter().position(|r| r.index == one.index)?;
+    let checks = diagnose::checks(model, &one.x, &diagnose::without(rows, k), free)?;
     let findings = findings(rows, &model.predict(&one.x)?, &checks, Some(one.index));
     let warning = Some(explain::warning(&findings, &[one.index], true));
     Some(Diagnosis {
@@ -270,30 +266,27 @@ fn findings(
     left_out: Option<usize>,
 ) -> Vec<explain::Finding> {
     let mut checks = checks.iter();
-    rows.iter()
-        .map(|row| {
-            let solved = predicted.get(row.index).copied().unwrap_or(row.value);
-            let out = explain::Finding {
-                index: row.index,
-                given: row.value,
-                solved,
-                tolerance: row.tolerance,
-                from_others: Some(solved),
-                consistent: false,
-                suspect: true,
-            };
-            if left_out == Some(row.index) {
-                return out;
-            }
+    let mut out = Vec::new();
+    for row in rows {
+        let solved = predicted.get(row.index).copied().unwrap_or(row.value);
+        let mut f = explain::Finding {
+            index: row.index,
+            given: row.value,
+            solved,
+            tolerance: row.tolerance,
+            from_others: Some(solved),
+            consistent: false,
+            suspect: true,
+        };
+        if left_out != Some(row.index) {
             let c = checks.next();
-            explain::Finding {
-                from_others: c.and_then(|c| c.from_others),
-                consistent: c.is_none_or(|c| c.consistent),
-                suspect: false,
-                ..out
-            }
-        })
-        .collect()
+            f.from_others = c.and_then(|c| c.from_others);
+            f.consistent = c.is_none_or(|c| c.consistent);
+            f.suspect = false;
+        }
+        out.push(f);
+    }
+    out
 }
 
 /// Whether `v` lies in the plausible range of measurement `index` (true for a key outside the
