@@ -286,19 +286,20 @@ pub fn page_words() -> PageWords {
 /// number should be. A value no other number checks says so.
 pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, String> {
     // "reach and wheelbase", as the kernel's warning says it.
-    let n = bike.residuals.values().filter(|r| r.suspect).count();
     let mut suspects = String::new();
-    for (k, key) in bike
-        .residuals
-        .iter()
-        .filter(|(_, r)| r.suspect)
-        .map(|(key, _)| key)
-        .enumerate()
-    {
-        if k > 0 {
-            suspects.push_str(if k + 1 == n { " and " } else { ", " });
+    let mut last = "";
+    for (key, r) in &bike.residuals {
+        if r.suspect {
+            if !last.is_empty() {
+                suspects.push_str(if suspects.is_empty() { "" } else { ", " });
+                suspects.push_str(&in_sentence(last));
+            }
+            last = lookup(key).map_or(key.as_str(), |m| m.label);
         }
-        suspects.push_str(&in_sentence(lookup(key).map_or(key.as_str(), |m| m.label)));
+    }
+    if !last.is_empty() {
+        suspects.push_str(if suspects.is_empty() { "" } else { " and " });
+        suspects.push_str(&in_sentence(last));
     }
     bike.residuals
         .iter()
