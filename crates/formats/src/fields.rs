@@ -5,6 +5,7 @@
 //! ([`framewise_kernel::CATALOGUE`]); everything else is defined here. The page builds its form and
 //! its explanations from [`page_words`] and adds no wording of its own to numbers.
 
+use framewise_kernel::error::in_sentence;
 use framewise_kernel::glossary::{Term, TERMS};
 use framewise_kernel::lookup;
 use serde::Serialize;
@@ -277,37 +278,64 @@ pub fn page_words() -> PageWords {
 }
 
 /// One sentence per published value that disagrees with the others (`consistent == false`):
-/// what was published, what the *other* published numbers alone make it (the report's
-/// `from_others`, not the best fit, which includes the value itself) and the gap, and what that
-/// means. A value no other number checks says so instead of quoting a prediction.
+/// for a suspect (a likely misprint, [`framewise_kernel::Residual::suspect`]), or any marked value
+/// when there is none, what was published, what the *other* published numbers alone make it (the
+/// report's `from_others`, not the best fit, which includes the value itself) and the gap, and
+/// what that means. A value marked only because the fit spread the suspects' disagreement over it
+/// says so and names them; a prediction outside the plausible range is never quoted as what the
+/// number should be. A value no other number checks says so.
 pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, String> {
+    // "reach and wheelbase", as the kernel's warning says it.
+    let mut suspects = String::new();
+    let mut last = "";
+    for (key, r) in &bike.residuals {
+        if r.suspect {
+            if !last.is_empty() {
+                suspects.push_str(if suspects.is_empty() { "" } else { ", " });
+                suspects.push_str(&in_sentence(last));
+            }
+            last = lookup(key).map_or(key.as_str(), |m| m.label);
+        }
+    }
+    if !last.is_empty() {
+        suspects.push_str(if suspects.is_empty() { "" } else { " and " });
+        suspects.push_str(&in_sentence(last));
+    }
     bike.residuals
         .iter()
         .filter(|(_, r)| !r.consistent)
-        .map(|(key, r)| (key.clone(), residual_note(key, r)))
+        .map(|(key, r)| (key.clone(), residual_note(key, r, &suspects)))
         .collect()
 }
 
-fn residual_note(key: &str, r: &framewise_kernel::Residual) -> String {
-    let (label, degrees) = match lookup(key) {
-        Some(m) => (m.label, m.unit.symbol() == "°"),
-        None => (key, false),
+/// The note of one row; `suspects` names the suspects ("" when none).
+fn residual_note(key: &str, r: &framewise_kernel::Residual, suspects: &str) -> String {
+    let (label, degrees, plausible) = match lookup(key) {
+        Some(m) => (m.label, m.unit.symbol() == "°", m.plausible),
+        None => (key, false, (f64::MIN, f64::MAX)),
     };
     let fmt = framewise_kernel::error::fmt_disagreement;
-    match r.from_others {
-        Some(other) => {
-            let [given, other, away] = fmt(r.given, other, degrees);
-            format!(
-                "{label} is published as {given} but the other published numbers make it {other}, {away} away, more than rounding explains: this value or one it is checked against is probably a misprint or measured another way."
-            )
-        }
-        None => {
-            let [given, solved, _] = fmt(r.given, r.solved, degrees);
-            format!(
-                "{label} is published as {given}, which no other published number checks, yet the fitted frame makes it {solved}: check it for a typing error."
-            )
-        }
+    let quote = r
+        .from_others
+        .filter(|p| (plausible.0..=plausible.1).contains(p) && (r.suspect || suspects.is_empty()));
+    if let Some(other) = quote {
+        let [given, other, away] = fmt(r.given, other, degrees);
+        return format!(
+            "{label} is published as {given} but the other published numbers make it {other}, {away} away, more than rounding explains: this value or one it is checked against is probably a misprint or measured another way."
+        );
     }
+    let [given, solved, _] = fmt(r.given, r.solved, degrees);
+    if r.from_others.is_none() {
+        return format!(
+            "{label} is published as {given}, which no other published number checks, yet the fitted frame makes it {solved}: check it for a typing error."
+        );
+    }
+    let of = if suspects.is_empty() {
+        String::new()
+    } else {
+        format!(" only to spread the disagreement of {suspects}")
+    };
+    format!("{label} is published as {given}; the fit moved it to {solved}{of} (see the warnings).")
 }
 
 #[cfg(test)]

@@ -82,6 +82,17 @@ impl Measurement {
     pub fn default_tolerance(&self) -> f64 {
         self.unit.default_tolerance()
     }
+    /// Its plausible range in words: "most bikes: −30 to 85 mm".
+    pub fn most_bikes(&self) -> String {
+        use crate::error::fmt_num;
+        let (lo, hi) = self.plausible;
+        format!(
+            "most bikes: {} to {} {}",
+            fmt_num(lo),
+            fmt_num(hi),
+            self.unit.symbol()
+        )
+    }
 }
 
 macro_rules! m {
@@ -138,7 +149,7 @@ pub static CATALOGUE: &[Measurement] = &[
     m!("trail_mm", "Trail", Mm, 50.0, 160.0, -50.0, 300.0,
        "On the ground, horizontal distance from where the steering axis meets it back to the front tyre's contact point."),
     m!("standover_mm", "Standover", Mm, 600.0, 900.0, 300.0, 1200.0,
-       "Height of the top tube above the ground where the rider stands over the bike (as published; not derived)."),
+       "Height of the top tube above the ground where the rider stands over the bike; shown as published and not checked, as it depends on the top tube's shape."),
 ];
 
 /// The catalogue entry for `key`, if it is a frame measurement.

@@ -128,13 +128,11 @@ fn implausible(m: &Measurement, value: f64) -> Warning {
     Warning::new(
         "implausible",
         format!(
-            "{} of {} {} is unusual (most bikes: {} to {} {}); check it.",
+            "{} of {} {} is unusual ({}); check it.",
             m.label,
             fmt_num(value),
             m.unit.symbol(),
-            fmt_num(m.plausible.0),
-            fmt_num(m.plausible.1),
-            m.unit.symbol()
+            m.most_bikes()
         ),
     )
 }
@@ -332,6 +330,7 @@ fn evaluate_bike(
                 residual: 0.0,
                 consistent: true,
                 from_others: None,
+                suspect: false,
             },
         );
     }

@@ -92,7 +92,7 @@ pub fn check_rider(
     );
     let mass = c.range(
         f("mass_kg"),
-        limit("rider mass", 20.0, 250.0, "kg"),
+        limit("body mass", 20.0, 250.0, "kg"),
         r.mass_kg,
     );
     let inseam = c.range(
@@ -192,7 +192,7 @@ pub fn check_rider(
     let mass = mass.unwrap_or_else(|| {
         warnings.push(Warning::new(
             "assumed",
-            format!("rider mass not given: assumed {DEFAULT_RIDER_MASS_KG} kg."),
+            format!("body mass not given: assumed {DEFAULT_RIDER_MASS_KG} kg."),
         ));
         DEFAULT_RIDER_MASS_KG
     });

@@ -192,3 +192,52 @@ fn an_a2c_nothing_fixes_fits_a_wide_tyre_with_a_suspension_fork() {
         );
     }
 }
+
+fn solved_frame_caution(sol: &Solution) -> Option<&str> {
+    sol.warnings
+        .iter()
+        .find(|w| w.code == "caution_solved_frame")
+        .map(|w| w.message.as_str())
+}
+
+#[test]
+fn a_solved_frame_no_bike_has_is_cautioned_naming_the_stand_in_fork() {
+    // The user review: reach 475, stack 475, head angle 65 and nothing else, 29x2.4 tyres. The
+    // stand-ins (said in the `underdetermined` warning): head tube 110 mm, lower stack 0, offset
+    // 44 mm, a2c = radius + 190 mm. By §8a the BB is 115 mm above the axles:
+    let h = 65f64.to_radians();
+    let drop = 475.0 - (110.0 + TRAIL_R + 190.0) * h.sin() + 44.0 * h.cos();
+    assert!((drop + 115.41).abs() < 0.01, "{drop}");
+    let frame = [
+        ("reach_mm", 475.0),
+        ("stack_mm", 475.0),
+        ("head_angle_deg", 65.0),
+    ];
+    let sol = run(&frame, TRAIL_R, Some(2.4 * 25.4));
+    assert!(
+        (sol.params.bb_drop - drop).abs() < 0.01,
+        "{}",
+        sol.params.bb_drop
+    );
+    // Ranges: the catalogue's plausible ones (BB drop −30 to 85 mm, BB height 240 to 380 mm);
+    // BB height = radius − drop = 371.96 + 115.41 = 487 mm.
+    assert_eq!(
+        solved_frame_caution(&sol),
+        Some(
+            "The solved frame is unusual: BB drop −115 mm (most bikes: −30 to 85 mm), BB height \
+             487 mm (most bikes: 240 to 380 mm). The stand-in fork is the likely cause: enter Fork \
+             axle-to-crown."
+        )
+    );
+    // With a published rigid fork of 400 mm: drop = 475 − 510 sin 65° + 44 cos 65° = 31 mm, a
+    // frame bikes have: no caution.
+    let mut with_fork = frame.to_vec();
+    with_fork.push(("fork_a2c_mm", 400.0));
+    let sol = run(&with_fork, TRAIL_R, Some(2.4 * 25.4));
+    assert!(
+        (sol.params.bb_drop - 31.38).abs() < 0.01,
+        "{}",
+        sol.params.bb_drop
+    );
+    assert_eq!(solved_frame_caution(&sol), None);
+}

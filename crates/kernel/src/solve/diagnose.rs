@@ -81,6 +81,17 @@ pub struct LeftOut {
     pub predicted: Option<f64>,
     /// Whether every remaining value then agrees: the value is a suspect.
     pub rest_agree: bool,
+    /// The refitted unknowns: the solved frame when this value is a lone misprint.
+    pub x: X,
+}
+
+/// Every row but the `k`-th.
+pub fn without(rows: &[Row], k: usize) -> Vec<Row> {
+    rows.iter()
+        .enumerate()
+        .filter(|(i, _)| *i != k)
+        .map(|(_, r)| *r)
+        .collect()
 }
 
 /// Each row left out in turn, the rest refitted, for the rows whose removal leaves the frame
@@ -88,12 +99,7 @@ pub struct LeftOut {
 pub fn leave_each_out(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec<LeftOut> {
     let mut out = Vec::new();
     for (k, row) in rows.iter().enumerate() {
-        let rest: Vec<Row> = rows
-            .iter()
-            .enumerate()
-            .filter(|(i, _)| *i != k)
-            .map(|(_, r)| *r)
-            .collect();
+        let rest = without(rows, k);
         let idx: Vec<usize> = rest.iter().map(|r| r.index).collect();
         let tol: Vec<f64> = rest.iter().map(|r| r.tolerance).collect();
         let determined = model
@@ -111,6 +117,7 @@ pub fn leave_each_out(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Vec
                 index: row.index,
                 predicted,
                 rest_agree: all_consistent(model, &f.x, &rest, free),
+                x: f.x,
             });
         }
     }

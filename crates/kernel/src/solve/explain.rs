@@ -3,7 +3,8 @@
 //!
 //! Three cases, from the suspects of [`super::diagnose::leave_each_out`] (the values whose removal
 //! lets the rest agree):
-//! - one suspect: it is named, with what the other numbers give for it;
+//! - one suspect: it is named, with what the other numbers give for it, and said to be left out
+//!   of the solved frame (weight zero, `super::lone_misprint`);
 //! - several: the values form one loop that does not close (say reach, head angle, fork and
 //!   chainstay against a published wheelbase). Any one of them would close it, so they are named
 //!   once, each with the change that would do it, and the sentence says the numbers cannot tell
@@ -34,6 +35,8 @@ pub struct Finding {
     pub from_others: Option<f64>,
     /// Whether it agrees with the rest.
     pub consistent: bool,
+    /// Whether it is a suspect (see [`super::Residual::suspect`]).
+    pub suspect: bool,
 }
 
 fn key(index: usize) -> &'static str {
@@ -47,59 +50,56 @@ fn label(index: usize) -> &'static str {
 }
 
 /// `[given, predicted, gap]` as text (whole mm or tenths of a degree, see [`fmt_disagreement`]);
-/// `None` when nothing else checks the value or the two read alike.
+/// `None` when nothing else checks the value, the prediction is no value a frame has (outside the
+/// plausible range: never offered as what the number should be) or the two read alike.
 fn quoted(f: &Finding) -> Option<[String; 3]> {
-    let p = f.from_others?;
+    let p = f.from_others.filter(|&p| super::plausible(f.index, p))?;
     let t = fmt_disagreement(f.given, p, key(f.index).ends_with("_deg"));
     (t[0] != t[1]).then_some(t)
 }
 
-/// "Reach is published as 490 mm but the other numbers give 470 mm, 20 mm away", or for a value
-/// nothing else checks, what the solved frame makes of it.
+/// "Reach is published as 490 mm but the other numbers give 470 mm, 20 mm away", or, for a value
+/// nothing else checks or whose prediction is not quoted ([`quoted`]), what the fit makes of it.
 fn disagreement(f: &Finding) -> String {
     let name = label(f.index);
-    match quoted(f) {
-        Some([given, other, gap]) => {
-            format!("{name} is published as {given} but the other numbers give {other}, {gap} away")
-        }
-        None => {
-            let [given, solved, _] =
-                fmt_disagreement(f.given, f.solved, key(f.index).ends_with("_deg"));
-            format!("{name} is published as {given}, which no other number checks, but the fit makes it {solved}")
-        }
+    if let Some([given, other, gap]) = quoted(f) {
+        return format!(
+            "{name} is published as {given} but the other numbers give {other}, {gap} away"
+        );
     }
+    let [given, solved, _] = fmt_disagreement(f.given, f.solved, key(f.index).ends_with("_deg"));
+    let unchecked = if f.from_others.is_none() {
+        ", which no other number checks,"
+    } else {
+        ","
+    };
+    format!("{name} is published as {given}{unchecked} but the fit makes it {solved}")
 }
 
-/// The warning for inconsistent values (see the module documentation).
-pub fn warning(findings: &[Finding], suspects: &[usize]) -> Warning {
+/// The warning for inconsistent values (see the module documentation); `left_out` when the
+/// one suspect was left out of the solved frame (`super::lone_misprint`).
+pub fn warning(findings: &[Finding], suspects: &[usize], left_out: bool) -> Warning {
     let of = |i: usize| findings.iter().find(|f| f.index == i);
     let named: Vec<&Finding> = suspects.iter().filter_map(|&i| of(i)).collect();
     let msg = match named.as_slice() {
-        [one] => one_suspect(findings, one),
+        [one] => one_suspect(one, left_out),
         [] => no_suspect(findings),
         many => one_loop(many),
     };
     Warning::new("inconsistent", msg)
 }
 
-fn one_suspect(findings: &[Finding], suspect: &Finding) -> String {
-    let mut msg = format!(
-        "The published numbers disagree: {}. Most likely wrong: {}; without it the rest agree.",
+fn one_suspect(suspect: &Finding, left_out: bool) -> String {
+    format!(
+        "The published numbers disagree: {}. Most likely wrong: {}; without it the rest agree{}.",
         disagreement(suspect),
-        label(suspect.index)
-    );
-    let others: Vec<&str> = findings
-        .iter()
-        .filter(|f| !f.consistent && f.index != suspect.index)
-        .map(|f| label(f.index))
-        .collect();
-    if !others.is_empty() {
-        msg.push_str(&format!(
-            " The other marked values ({}) are off only through it.",
-            others.join(", ")
-        ));
-    }
-    msg
+        label(suspect.index),
+        if left_out {
+            ", so the solved frame leaves it out"
+        } else {
+            ""
+        }
+    )
 }
 
 fn no_suspect(findings: &[Finding]) -> String {

@@ -18,6 +18,12 @@
 //! A given value is inconsistent when `|solved − given| > 2.5 × tolerance`, or when what the
 //! other values alone predict for it is further off than that and than rounding explains
 //! (`diagnose`); the warning quotes those predictions (`explain`).
+//!
+//! Robust-fit rule: a value identified as a lone misprint gets weight zero. When exactly one
+//! value's removal lets the rest agree (and what they give for it is plausible), the solved frame
+//! is the refit without it ([`lone_misprint`]); the other values keep their published values.
+//! Several such values form one loop and cannot be told apart: the weighted fit spreads them.
+//! A solved value nothing published gives, outside its plausible range, is cautioned (`unusual`).
 
 mod blame;
 mod diagnose;
@@ -26,6 +32,7 @@ mod fit;
 mod model;
 mod plan;
 mod unknowns;
+mod unusual;
 
 use crate::catalogue::{lookup, Unit};
 use crate::error::{fmt_measure, in_sentence, FieldError, Warning};
@@ -63,6 +70,15 @@ pub struct Residual {
     /// `None` (left out of the JSON, which has no nulls) when no other value checks it.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub from_others: Option<f64>,
+    /// True for a value whose removal lets the rest agree, what they give for it being plausible:
+    /// a likely misprint. Several suspects are one loop that any one of them would close. Left out
+    /// of the JSON when false.
+    #[serde(skip_serializing_if = "is_false")]
+    pub suspect: bool,
+}
+
+fn is_false(b: &bool) -> bool {
+    !*b
 }
 
 /// The solved frame with its diagnostics.
@@ -131,66 +147,146 @@ pub fn solve(
     let plan = plan::plan(&model, &rows, &mut x0, &typical).ok_or_else(|| no_solution(prefix))?;
     let best =
         best_fit(&model, &rows, &plan.free, &x0, &typical).ok_or_else(|| no_solution(prefix))?;
-    let params = to_params(&best.x, input.radii);
-    postcheck(given, (&model, &best.x, &rows, &plan.free), &params, prefix)?;
-    let predicted = model.predict(&best.x).ok_or_else(|| no_solution(prefix))?;
+    postcheck(
+        given,
+        (&model, &best.x, &rows, &plan.free),
+        &to_params(&best.x, input.radii),
+        prefix,
+    )?;
+    let diag = diagnosis(&model, &best.x, &rows, &plan.free).ok_or_else(|| no_solution(prefix))?;
+    let params = to_params(&diag.x, input.radii);
     let mut warnings = assumption_warnings(&plan, &x0, front);
+    // Inserted one by one: collecting into a map sorts, one more sort in the page's wasm.
     let mut residuals = BTreeMap::new();
-    let checks =
-        diagnose::checks(&model, &best.x, &rows, &plan.free).ok_or_else(|| no_solution(prefix))?;
-    let mut findings: Vec<explain::Finding> = rows
-        .iter()
-        .zip(&checks)
-        .map(|(row, c)| explain::Finding {
-            index: row.index,
-            given: row.value,
-            solved: predicted.get(row.index).copied().unwrap_or(row.value),
-            tolerance: row.tolerance,
-            from_others: c.from_others,
-            consistent: c.consistent,
-        })
-        .collect();
-    let disagree = findings.iter().any(|f| !f.consistent);
-    let mut suspects = Vec::new();
-    if disagree {
-        let left_out = diagnose::leave_each_out(&model, &best.x, &rows, &plan.free);
-        for f in &mut findings {
-            let refit = left_out.iter().find(|l| l.index == f.index);
-            if let Some(p) = refit.and_then(|l| l.predicted) {
-                f.from_others = Some(p);
-            }
-        }
-        // A suspect is a misprint the rest would mend: what they give for it must be a value
-        // a frame has (inside the catalogue's plausible range), or "off by 241 mm" would be
-        // offered for a 110 mm head tube.
-        suspects = left_out
-            .iter()
-            .filter(|l| l.rest_agree && l.predicted.is_some_and(|p| plausible(l.index, p)))
-            .map(|l| l.index)
-            .collect();
-    }
-    for f in &findings {
+    for f in &diag.findings {
         let key = MEASURED_KEYS.get(f.index).copied().unwrap_or("?");
-        residuals.insert(
-            key.to_string(),
-            Residual {
-                given: f.given,
-                solved: f.solved,
-                residual: f.solved - f.given,
-                consistent: f.consistent,
-                from_others: f.from_others,
-            },
-        );
+        residuals.insert(key.to_string(), residual(f));
     }
-    if disagree {
-        warnings.push(explain::warning(&findings, &suspects));
-    }
+    warnings.extend(diag.warning);
+    warnings.extend(unusual::warning(&model, &diag.x, &rows, &plan.pinned));
     Ok(Solution {
         params,
         residuals,
         missing: plan.missing,
         warnings,
     })
+}
+
+fn residual(f: &explain::Finding) -> Residual {
+    Residual {
+        given: f.given,
+        solved: f.solved,
+        residual: f.solved - f.given,
+        consistent: f.consistent,
+        from_others: f.from_others,
+        suspect: f.suspect,
+    }
+}
+
+/// The solved unknowns, one finding per given row, and the `inconsistent` warning if any.
+struct Diagnosis {
+    x: X,
+    findings: Vec<explain::Finding>,
+    warning: Option<Warning>,
+}
+
+/// Checks the fit `x`; when values disagree, refits without each in turn (what the others give
+/// for it, and the suspects). A lone suspect is a misprint and gets weight zero
+/// ([`lone_misprint`]); several suspects (one loop) keep the weighted fit, which spreads them.
+fn diagnosis(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Diagnosis> {
+    let checks = diagnose::checks(model, x, rows, free)?;
+    let mut findings = findings(rows, &model.predict(x)?, &checks, None);
+    if findings.iter().all(|f| f.consistent) {
+        return Some(Diagnosis {
+            x: *x,
+            findings,
+            warning: None,
+        });
+    }
+    let left_out = diagnose::leave_each_out(model, x, rows, free);
+    let mut suspects = Vec::new();
+    for f in &mut findings {
+        let Some(l) = left_out.iter().find(|l| l.index == f.index) else {
+            continue;
+        };
+        if let Some(p) = l.predicted {
+            f.from_others = Some(p);
+            // A suspect is a misprint the rest would mend: what they give for it must be a value
+            // a frame has (inside the catalogue's plausible range), or "off by 241 mm" would be
+            // offered for a 110 mm head tube.
+            f.suspect = l.rest_agree && plausible(l.index, p);
+        }
+        if f.suspect {
+            suspects.push(l);
+        }
+    }
+    if let [one] = suspects.as_slice() {
+        if let Some(d) = lone_misprint(model, one, rows, free) {
+            return Some(d);
+        }
+    }
+    let named: Vec<usize> = suspects.iter().map(|l| l.index).collect();
+    let warning = Some(explain::warning(&findings, &named, false));
+    Some(Diagnosis {
+        x: *x,
+        findings,
+        warning,
+    })
+}
+
+/// The robust-fit rule: a value identified as a lone misprint gets weight zero. The solved frame
+/// is the refit without it, so the other values keep their published values; its own row keeps
+/// its published value and what the others make it. `None` when that refit leaves the hard ranges.
+fn lone_misprint(
+    model: &Model,
+    one: &diagnose::LeftOut,
+    rows: &[Row],
+    free: &[usize],
+) -> Option<Diagnosis> {
+    if !within_hard_ranges(model, &one.x) {
+        return None;
+    }
+    let k = rows.iter().position(|r| r.index == one.index)?;
+    let checks = diagnose::checks(model, &one.x, &diagnose::without(rows, k), free)?;
+    let findings = findings(rows, &model.predict(&one.x)?, &checks, Some(one.index));
+    let warning = Some(explain::warning(&findings, &[one.index], true));
+    Some(Diagnosis {
+        x: one.x,
+        findings,
+        warning,
+    })
+}
+
+/// One finding per row from the solved values and the checks of the rows fitted (every row but
+/// `left_out`, which is the suspect, its solved value being what the others give for it).
+fn findings(
+    rows: &[Row],
+    predicted: &[f64],
+    checks: &[diagnose::Check],
+    left_out: Option<usize>,
+) -> Vec<explain::Finding> {
+    let mut checks = checks.iter();
+    let mut out = Vec::new();
+    for row in rows {
+        let solved = predicted.get(row.index).copied().unwrap_or(row.value);
+        let mut f = explain::Finding {
+            index: row.index,
+            given: row.value,
+            solved,
+            tolerance: row.tolerance,
+            from_others: Some(solved),
+            consistent: false,
+            suspect: true,
+        };
+        if left_out != Some(row.index) {
+            let c = checks.next();
+            f.from_others = c.and_then(|c| c.from_others);
+            f.consistent = c.is_none_or(|c| c.consistent);
+            f.suspect = false;
+        }
+        out.push(f);
+    }
+    out
 }
 
 /// Whether `v` lies in the plausible range of measurement `index` (true for a key outside the
