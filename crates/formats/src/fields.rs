@@ -285,7 +285,7 @@ pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, S
         .iter()
         .filter(|(_, r)| !r.consistent)
         .map(|(key, r)| (key.clone(), residual_note(key, r)))
-        .collect()
+        .fold(BTreeMap::new(), crate::inserted)
 }
 
 fn residual_note(key: &str, r: &framewise_kernel::Residual) -> String {
