@@ -1,4 +1,4 @@
-//! framewise drawing: a bike report's outline → an SVG document (the `svg` crate).
+//! framewise drawing: a bike report's outline → an SVG document (written by `model.rs`).
 //!
 //! **Invariant:** no geometry is computed here; every point comes from the kernel's
 //! [`framewise_kernel::Outline`] (the stock ghost only moved up or down to stand on the ridden

@@ -1,14 +1,11 @@
 //! The drawing model: one tree of groups, polylines and texts, serialised two ways — as an SVG
-//! document (the `svg` crate) and as a patch list of the values that change with the numbers.
+//! document (written here, in the layout of the `svg` crate, which an equivalence test keeps) and as a patch list of the values that change with the numbers.
 //!
 //! Every polyline and text carries a stable key (`data-k`): the set of elements and their keys
 //! depend only on which parts exist (rider, cockpit, seat, cranks, handling limits, dimension
 //! numbers), never on the numbers themselves. [`Drawing::structure`] names that set, so a page
 //! that already shows a drawing of the same structure can apply [`Drawing::patch`] instead of
 //! replacing the document.
-
-use svg::node::element::{Circle, Element as SvgElement, Group, Marker, Polyline, Text, Title};
-use svg::Document;
 
 /// One element of the drawing.
 #[derive(Debug, Clone, PartialEq)]
@@ -110,22 +107,24 @@ impl Drawing {
         &self.view_box
     }
 
-    /// The SVG document (markup for `innerHTML` or a file).
+    /// The SVG document (markup for `innerHTML` or a file), written directly: the layout the
+    /// `svg` crate gave it (attributes in name order, one element a line), without its
+    /// per-element attribute maps, sorting and trait objects (kilobytes of the page's module).
     pub fn svg(&self) -> String {
-        let mut doc = Document::new()
-            .set("viewBox", self.view_box.as_str())
-            .set("class", "bike-drawing")
-            .set("role", "img")
-            .set("aria-label", self.title.as_str())
-            .add(Title::new(self.title.as_str()).set("data-k", TITLE_KEY));
+        let mut out = String::with_capacity(16 * 1024);
+        out.push_str("<svg");
+        attr(&mut out, "aria-label", &self.title);
+        attr(&mut out, "class", "bike-drawing");
+        attr(&mut out, "role", "img");
+        attr(&mut out, "viewBox", &self.view_box);
+        attr(&mut out, "xmlns", "http://www.w3.org/2000/svg");
+        out.push_str(">\n");
+        text_element(&mut out, "title", &[("data-k", TITLE_KEY)], &self.title);
         for n in &self.nodes {
-            doc = match to_svg(n) {
-                Element::G(g) => doc.add(g),
-                Element::L(lines) => lines.into_iter().fold(doc, |d, l| d.add(l)),
-                Element::T(t) => doc.add(t),
-            };
+            write_node(&mut out, n);
         }
-        doc.to_string()
+        out.push_str("\n</svg>");
+        out
     }
 
     /// Every value that depends on the numbers, element by element in document order (a ring's
@@ -198,61 +197,75 @@ impl NameHash {
     }
 }
 
-enum Element {
-    G(Group),
-    /// A part's polylines and rings' markers, added one by one to the parent.
-    L(Vec<SvgElement>),
-    /// A `<text>` as a plain element: its words are written inline (`<text …>words</text>`),
-    /// exactly the text the patch list gives, with no added line breaks.
-    T(svg::node::element::Element),
+/// Appends ` name="value"` with the value escaped as an attribute's (`&`, `<`, `>`, `"`, `'`),
+/// exactly as the `svg` crate wrote it (`&amp;` `&lt;` `&gt;` `&quot;` `&apos;`).
+fn attr(out: &mut String, name: &str, value: &str) {
+    out.push(' ');
+    out.push_str(name);
+    out.push_str("=\"");
+    escape(out, value, true);
+    out.push('"');
 }
 
-fn to_svg(n: &Node) -> Element {
+/// Appends `text` with `&`, `<` and `>` escaped, and with `attribute` also both quotes. The
+/// escaped characters are ASCII, so every cut falls on a character boundary.
+fn escape(out: &mut String, text: &str, attribute: bool) {
+    let mut plain = 0;
+    for (i, b) in text.bytes().enumerate() {
+        let with = match b {
+            b'&' => "&amp;",
+            b'<' => "&lt;",
+            b'>' => "&gt;",
+            b'"' if attribute => "&quot;",
+            b'\'' if attribute => "&apos;",
+            _ => continue,
+        };
+        out.push_str(text.get(plain..i).unwrap_or_default());
+        out.push_str(with);
+        plain = i + 1;
+    }
+    out.push_str(text.get(plain..).unwrap_or_default());
+}
+
+/// Appends an element whose only child is text: `<tag attributes>text</tag>` on one line.
+fn text_element(out: &mut String, tag: &str, attributes: &[(&str, &str)], text: &str) {
+    out.push('<');
+    out.push_str(tag);
+    for (name, value) in attributes {
+        attr(out, name, value);
+    }
+    out.push('>');
+    escape(out, text, false);
+    out.push_str("</");
+    out.push_str(tag);
+    out.push('>');
+}
+
+/// Appends one node's elements, each on a line of its own (a line break before each), in the
+/// layout the `svg` crate gave them: attributes in name order, an element without children
+/// closed with `/>`, a group's children each on their own line and `</g>` on the next.
+fn write_node(out: &mut String, n: &Node) {
     match n {
         Node::Group { class, children } => {
-            let mut g = Group::new().set("class", class.as_str());
+            out.push_str("\n<g");
+            attr(out, "class", class);
+            out.push('>');
+            let empty = out.len();
             for c in children {
-                g = match to_svg(c) {
-                    Element::G(x) => g.add(x),
-                    Element::L(x) => x.into_iter().fold(g, |g, l| g.add(l)),
-                    Element::T(x) => g.add(x),
-                };
+                write_node(out, c);
             }
-            Element::G(g)
+            if out.len() == empty {
+                // No element inside: `<g class="…"/>`.
+                out.pop();
+                out.push_str("/>");
+            } else {
+                out.push_str("\n</g>");
+            }
         }
         Node::Lines { class, lines } => {
-            let mut out = Vec::with_capacity(lines.len());
             for l in lines {
-                let line = Polyline::new().set("data-k", l.key.as_str());
-                let Some(ring) = &l.ring else {
-                    out.push(
-                        line.set("class", class.as_str())
-                            .set("points", l.points.as_str())
-                            .into(),
-                    );
-                    continue;
-                };
-                let id = ring_id(&l.key);
-                let circle = Circle::new()
-                    .set("data-k", ring.key.as_str())
-                    .set("class", class.as_str())
-                    .set("r", ring.r.as_str());
-                out.push(
-                    Marker::new()
-                        .set("id", id.as_str())
-                        .set("markerUnits", "userSpaceOnUse")
-                        .set("overflow", "visible")
-                        .add(circle)
-                        .into(),
-                );
-                out.push(
-                    line.set("class", "at")
-                        .set("points", l.points.as_str())
-                        .set("marker-start", format!("url(#{id})"))
-                        .into(),
-                );
+                write_line(out, class, l);
             }
-            Element::L(out)
         }
         Node::Text {
             key,
@@ -261,16 +274,45 @@ fn to_svg(n: &Node) -> Element {
             x,
             y,
             words,
-        } => Element::T(
-            Text::new(words.as_str())
-                .set("data-k", key.as_str())
-                .set("class", class.as_str())
-                .set("text-anchor", *anchor)
-                .set("x", x.as_str())
-                .set("y", y.as_str())
-                .into(),
-        ),
+        } => {
+            out.push('\n');
+            let attributes = [
+                ("class", class.as_str()),
+                ("data-k", key.as_str()),
+                ("text-anchor", anchor),
+                ("x", x.as_str()),
+                ("y", y.as_str()),
+            ];
+            text_element(out, "text", &attributes, words);
+        }
     }
+}
+
+/// Appends one polyline of a part (`class`), after its ring's marker when it has one.
+fn write_line(out: &mut String, class: &str, l: &Line) {
+    let Some(ring) = &l.ring else {
+        out.push_str("\n<polyline");
+        attr(out, "class", class);
+        attr(out, "data-k", &l.key);
+        attr(out, "points", &l.points);
+        out.push_str("/>");
+        return;
+    };
+    let id = ring_id(&l.key);
+    out.push_str("\n<marker");
+    attr(out, "id", &id);
+    attr(out, "markerUnits", "userSpaceOnUse");
+    attr(out, "overflow", "visible");
+    out.push_str(">\n<circle");
+    attr(out, "class", class);
+    attr(out, "data-k", &ring.key);
+    attr(out, "r", &ring.r);
+    out.push_str("/>\n</marker>\n<polyline");
+    attr(out, "class", "at");
+    attr(out, "data-k", &l.key);
+    attr(out, "marker-start", &format!("url(#{id})"));
+    attr(out, "points", &l.points);
+    out.push_str("/>");
 }
 
 fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {

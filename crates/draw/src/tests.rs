@@ -795,3 +795,142 @@ fn the_stock_ghost_stands_on_the_ridden_ground() {
         "the ghost's BB at y 20 mm: {ghost_svg}"
     );
 }
+
+/// The SVG as the `svg` crate wrote it before the drawing had its own writer (the element tree
+/// of `model.rs` until 2026-12): the reference the writer must match byte for byte.
+mod svg_crate {
+    use crate::model::{ring_id, Drawing, Node, TITLE_KEY};
+    use svg::node::element::{Circle, Element, Group, Marker, Polyline, Text, Title};
+    use svg::Document;
+
+    /// The document as the `svg` crate writes it.
+    pub fn svg(d: &Drawing) -> String {
+        let mut doc = Document::new()
+            .set("viewBox", d.view_box())
+            .set("class", "bike-drawing")
+            .set("role", "img")
+            .set("aria-label", d.title.as_str())
+            .add(Title::new(d.title.as_str()).set("data-k", TITLE_KEY));
+        for n in &d.nodes {
+            for e in elements(n) {
+                doc = doc.add(e);
+            }
+        }
+        doc.to_string()
+    }
+
+    /// One node's elements.
+    fn elements(n: &Node) -> Vec<Element> {
+        match n {
+            Node::Group { class, children } => {
+                let mut g = Group::new().set("class", class.as_str());
+                for e in children.iter().flat_map(elements) {
+                    g = g.add(e);
+                }
+                vec![g.into()]
+            }
+            Node::Lines { class, lines } => {
+                let mut out = Vec::new();
+                for l in lines {
+                    let line = Polyline::new().set("data-k", l.key.as_str());
+                    let Some(ring) = &l.ring else {
+                        out.push(
+                            line.set("class", class.as_str())
+                                .set("points", l.points.as_str())
+                                .into(),
+                        );
+                        continue;
+                    };
+                    let id = ring_id(&l.key);
+                    let circle = Circle::new()
+                        .set("data-k", ring.key.as_str())
+                        .set("class", class.as_str())
+                        .set("r", ring.r.as_str());
+                    out.push(
+                        Marker::new()
+                            .set("id", id.as_str())
+                            .set("markerUnits", "userSpaceOnUse")
+                            .set("overflow", "visible")
+                            .add(circle)
+                            .into(),
+                    );
+                    out.push(
+                        line.set("class", "at")
+                            .set("points", l.points.as_str())
+                            .set("marker-start", format!("url(#{id})"))
+                            .into(),
+                    );
+                }
+                out
+            }
+            Node::Text {
+                key,
+                class,
+                anchor,
+                x,
+                y,
+                words,
+            } => vec![Text::new(words.as_str())
+                .set("data-k", key.as_str())
+                .set("class", class.as_str())
+                .set("text-anchor", *anchor)
+                .set("x", x.as_str())
+                .set("y", y.as_str())
+                .into()],
+        }
+    }
+}
+
+#[test]
+fn the_svg_writer_writes_what_the_svg_crate_wrote() {
+    let (n, mut n2) = (numbers(), numbers());
+    n2.insert("stack_mm".into(), 641.0);
+    let (a, b, c) = (full(), moved(), bare());
+    let mut odd = scene(&b, &n2);
+    // Every character either writer escapes, in the title and the label's text.
+    odd.label = "Other <bike> & \"rider\" 'n' > é";
+    let mut drawings = vec![
+        drawing(&scene(&a, &n)),
+        drawing(&odd),
+        drawing(&scene(&c, &n)),
+    ];
+    // A group with nothing in it, an empty text and words to escape in a text and a class.
+    let mut d = drawing(&scene(&a, &n));
+    d.nodes.push(Node::Group {
+        class: "empty".into(),
+        children: vec![],
+    });
+    d.nodes.push(Node::Group {
+        class: "a&b".into(),
+        children: vec![
+            Node::Text {
+                key: "t1".into(),
+                class: "dim".into(),
+                anchor: "middle",
+                x: "1".into(),
+                y: "-2.5".into(),
+                words: String::new(),
+            },
+            Node::Text {
+                key: "t2".into(),
+                class: "dim".into(),
+                anchor: "end",
+                x: "0".into(),
+                y: "0".into(),
+                words: "a < b & 'c' \"d\"".into(),
+            },
+            Node::Group {
+                class: "inner".into(),
+                children: vec![],
+            },
+        ],
+    });
+    drawings.push(d);
+    for d in &drawings {
+        assert_eq!(d.svg(), svg_crate::svg(d));
+    }
+    assert!(drawings[1]
+        .svg()
+        .contains("aria-label=\"Side view of Other &lt;bike&gt; &amp; &quot;rider&quot; &apos;n&apos; &gt; é\""));
+    assert!(drawings[3].svg().contains("<g class=\"empty\"/>"));
+}

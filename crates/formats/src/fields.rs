@@ -305,7 +305,7 @@ pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, S
         .iter()
         .filter(|(_, r)| !r.consistent)
         .map(|(key, r)| (key.clone(), residual_note(key, r, &suspects)))
-        .collect()
+        .fold(BTreeMap::new(), crate::inserted)
 }
 
 /// The note of one row; `suspects` names the suspects ("" when none).

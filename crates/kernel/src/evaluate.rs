@@ -6,7 +6,7 @@
 use crate::assembly;
 use crate::catalogue::{all_keys, lookup, Measurement};
 use crate::error::{fmt_num, FieldError, Warning};
-use crate::geometry::{FrameParams, Geometry, Radii};
+use crate::geometry::{FrameParams, Geometry, Radii, MEASURED_KEYS};
 use crate::memo::SolveMemo;
 use crate::pose::{pose, ChangeSet};
 use crate::report::{BikeReport, Numbers, Outline, Report, REPORT_VERSION};
@@ -366,11 +366,17 @@ fn evaluate_bike(
     finite_or_error(report, prefix).map(|r| (r, ctx))
 }
 
+/// The numbers of [`Geometry::measure`], keyed for the report. Built by inserting, not by
+/// `collect`: a map collected from an iterator sorts a vector first, and each key type sorted
+/// puts one more copy of the standard library's stable sort in the page's module.
 fn to_numbers(g: &Geometry) -> Numbers {
-    g.measure()
-        .into_iter()
-        .map(|(k, v)| (k.into(), v))
-        .collect()
+    let mut out = Numbers::new();
+    for (k, v) in MEASURED_KEYS.iter().zip(g.measure_values()) {
+        if let Some(v) = v {
+            out.insert((*k).into(), v);
+        }
+    }
+    out
 }
 
 /// Each change applied alone to the stock frame: its effect on every number.
@@ -429,10 +435,13 @@ fn change_effects(
         }
         let (p, _) = pose(params, radii, &cs);
         let m = to_numbers(&p.geometry);
-        let delta: Numbers = m
-            .iter()
-            .filter_map(|(k, v)| stock.get(k).map(|s| (k.clone(), v - s)))
-            .collect();
+        // Inserted, not collected (see `to_numbers`).
+        let mut delta = Numbers::new();
+        for (k, v) in &m {
+            if let Some(s) = stock.get(k) {
+                delta.insert(k.clone(), v - s);
+            }
+        }
         out.insert(name.to_string(), delta);
     }
     out

@@ -104,7 +104,7 @@ mod tests {
 
     #[test]
     fn a_hostile_label_from_a_link_is_inert_in_the_drawing() {
-        // The label is shown in the drawing's <title> and aria-label: the svg crate must escape it.
+        // The label is shown in the drawing's <title> and aria-label: the drawing's writer must escape it.
         for label in [
             "<script>alert(1)</script>",
             "\"><img src=x onerror=alert(1)>",
