@@ -92,19 +92,39 @@ function msgFor(control) {
 
 // The controls showErrors marked: clearing them needs no search of the form on every edit.
 const marked = new Set();
+let stale = null; // the messages an edit cleared and has not written again (see clearMessages)
 
-/** Clears every message and invalid mark. */
+/**
+ * Clears every message and invalid mark: those the same edit writes again (showErrors,
+ * showNotes) are left as they are, the rest cleared once it is done (a microtask), so a note that
+ * stands across edits costs no layout of the form on each one.
+ */
 export function clearMessages() {
-  for (const c of marked) {
-    c.removeAttribute('aria-invalid');
-    c.setAttribute('aria-describedby', `${c.id}-def`);
-    const m = msgFor(c);
-    if (m) {
-      m.textContent = '';
-      m.classList.remove('note');
-    }
-  }
+  if (!stale) queueMicrotask(settle);
+  stale = new Set([...(stale ?? []), ...marked]);
   marked.clear();
+}
+
+function settle() {
+  for (const c of stale ?? []) write(c, '', false, false);
+  stale = null;
+}
+
+/** Sets a field's message (only what changed); `note`: not an error. */
+function write(c, text, note, invalid) {
+  const m = msgFor(c);
+  if (!m) return false;
+  if (m.textContent !== text) m.textContent = text;
+  m.classList.toggle('note', note);
+  const described = text ? `${m.id} ${c.id}-def` : `${c.id}-def`;
+  if (c.getAttribute('aria-describedby') !== described) c.setAttribute('aria-describedby', described);
+  if (invalid) c.setAttribute('aria-invalid', 'true');
+  else if (c.hasAttribute('aria-invalid')) c.removeAttribute('aria-invalid');
+  if (text) {
+    marked.add(c);
+    stale?.delete(c);
+  }
+  return true;
 }
 
 /** Puts each error beside its field; returns the messages that have no field on the form. */
@@ -112,12 +132,7 @@ export function showErrors(form, errors) {
   const unplaced = [];
   for (const e of errors) {
     const c = form.elements.namedItem(e.field);
-    const m = c && msgFor(c);
-    if (!m) { unplaced.push(e.message); continue; }
-    m.textContent = e.message;
-    c.setAttribute('aria-invalid', 'true');
-    marked.add(c);
-    c.setAttribute('aria-describedby', `${m.id} ${c.id}-def`);
+    if (!c || !write(c, e.message, false, true)) { unplaced.push(e.message); continue; }
     const more = c.closest('details');
     if (more) more.open = true;
   }
@@ -128,12 +143,7 @@ export function showErrors(form, errors) {
 export function showNotes(form, notes) {
   for (const n of notes) {
     const c = form.elements.namedItem(n.field);
-    const m = c && msgFor(c);
-    if (!m) continue;
-    m.textContent = n.message;
-    m.classList.add('note');
-    marked.add(c);
-    c.setAttribute('aria-describedby', `${m.id} ${c.id}-def`);
+    if (c) write(c, n.message, true, false);
   }
 }
 
