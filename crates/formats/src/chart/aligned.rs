@@ -298,12 +298,7 @@ fn place_units(line: &str, row: &mut Row, columns: &[Span]) {
 
 #[cfg(test)]
 mod tests {
-    use super::super::grid::{split, Grid};
-
-    fn grid(text: &str) -> Grid {
-        let lines: Vec<String> = text.lines().map(String::from).collect();
-        split(&lines)
-    }
+    use super::super::grid::grid;
 
     #[test]
     fn cells_parted_by_one_space_are_cut_at_the_columns() {

@@ -232,12 +232,7 @@ fn put_in_columns(row: &mut Row, start: usize, cols: &[usize]) {
 
 #[cfg(test)]
 mod tests {
-    use super::super::grid::{split, Grid};
-
-    fn grid(text: &str) -> Grid {
-        let lines: Vec<String> = text.lines().map(String::from).collect();
-        split(&lines)
-    }
+    use super::super::grid::grid;
 
     #[test]
     fn a_blank_cell_in_an_aligned_table_stays_under_its_size() {

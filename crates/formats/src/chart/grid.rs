@@ -289,14 +289,16 @@ fn label_and_values(tokens: &[String]) -> Vec<String> {
     cells
 }
 
+/// The grid of a pasted text, for the chart modules' tests.
+#[cfg(test)]
+pub(super) fn grid(text: &str) -> Grid {
+    let lines: Vec<String> = text.lines().map(String::from).collect();
+    split(&lines)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
-
-    fn grid(text: &str) -> Grid {
-        let lines: Vec<String> = text.lines().map(String::from).collect();
-        split(&lines)
-    }
 
     #[test]
     fn separators() {
