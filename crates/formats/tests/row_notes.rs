@@ -175,3 +175,25 @@ fn messages_about_the_body_mass_use_the_forms_label() {
         b.warnings
     );
 }
+
+/// Source: the form's words (fields.rs): the rider's height field is labelled "Height", and the
+/// messages about it say so, as does the note of a height estimated from the inseam.
+#[test]
+fn messages_about_the_height_use_the_forms_label() {
+    assert_eq!(field("rider.height_mm").unwrap().label, "Height");
+    let r = form(&[("rider.height_mm", "3000")]);
+    let e = r
+        .errors
+        .iter()
+        .find(|e| e.field == "rider.height_mm")
+        .unwrap();
+    assert!(e.message.starts_with("Height "), "{}", e.message);
+    let b = bike(&[("rider.height_mm", "")]);
+    assert!(
+        b.warnings
+            .iter()
+            .any(|w| w.message.starts_with("height not given: estimated ")),
+        "{:?}",
+        b.warnings
+    );
+}

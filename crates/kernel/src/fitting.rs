@@ -87,7 +87,7 @@ pub fn check_rider(
     let f = |k: &'static str| Path("rider", k);
     let height = c.range(
         f("height_mm"),
-        limit("rider height", 900.0, 2300.0, "mm"),
+        limit("height", 900.0, 2300.0, "mm"),
         r.height_mm,
     );
     let mass = c.range(
@@ -177,7 +177,7 @@ pub fn check_rider(
             let h = i / INSEAM_RATIO;
             warnings.push(Warning::new(
                 "assumed",
-                format!("rider height not given: estimated {h:.0} mm from the inseam."),
+                format!("height not given: estimated {h:.0} mm from the inseam."),
             ));
             h
         }
