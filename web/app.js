@@ -159,7 +159,7 @@ function update(event) {
     };
     // A listing cleared to start again: its blank fields are asked for under the drawing, not
     // marked, until the listing reads.
-    const blank = (e) => !form.elements.namedItem(e.field)?.value.trim();
+    const blank = (e) => form.elements.namedItem(e.field)?.value.trim() === '';
     const asked = asking && errors.some(blank);
     const show = () => {
       sayProblems = null;
