@@ -33,6 +33,31 @@ for (const width of [320, 345, 360]) {
   });
 }
 
+// The tables' names on a phone: a table of one or two value columns gives its names more of the
+// row, so that no name there runs to three lines (they did at 38 %: "Sit point from BB,
+// horizontal mm"); the frame's table (three value columns) keeps its numbers whole.
+for (const width of [320, 360]) {
+  test(`${width} px: names in the one- and two-value tables take at most two lines`, { timeout: 60000 }, async () => {
+    const { page, problems } = await openPage(env, { width, height: 740 });
+    await page.evaluate(() => document.documentElement.setAttribute('data-render-all', ''));
+    const m = await page.evaluate(() => {
+      const lines = (th) => {
+        const b = th.querySelector('button.term');
+        return Math.round(b.getBoundingClientRect().height / parseFloat(getComputedStyle(b).lineHeight));
+      };
+      const of = (sel) => [...document.querySelectorAll(sel)].map((th) => [th.closest('tr').dataset.key, lines(th)]);
+      const cut = [...document.querySelectorAll('.numbers td.num .v')].filter((v) => v.scrollWidth > v.clientWidth + 1)
+        .map((v) => v.textContent);
+      return { narrow: of('.numbers.one-value th[scope="row"], .numbers.two-values th[scope="row"]'), cut };
+    });
+    assert.ok(m.narrow.length >= 30, `names in the one- and two-value tables: ${m.narrow.length}`);
+    const long = m.narrow.filter(([, n]) => n > 2);
+    assert.deepEqual(long, [], 'no name of three lines or more');
+    assert.deepEqual(m.cut, [], 'every number shown whole');
+    assert.deepEqual(problems, []);
+  });
+}
+
 // A phone held sideways: the whole drawing is in sight on first view, beside the masthead and the
 // toolbar (each a column on its left, so the drawing's box is as tall as the screen and its labels
 // as large as on a phone held upright: labels.test.mjs), and the targets stay ≥ 44 px.

@@ -196,7 +196,10 @@ function buildTable(b, words, rows) {
     rows.push(row);
     if (open.has(`${scope}|${r.key}`)) body.append(defRow(r.key, words, b.cols.length));
   }
-  return el('table', { class: 'numbers', role: 'table' }, el('caption', {}, b.caption), el('thead', { role: 'rowgroup' }, head), body);
+  // A table of one or two value columns gives its names more of the row (on a phone, a name of
+  // two lines rather than three).
+  const cls = b.cols.length === 2 ? 'numbers one-value' : b.cols.length === 3 ? 'numbers two-values' : 'numbers';
+  return el('table', { class: cls, role: 'table' }, el('caption', {}, b.caption), el('thead', { role: 'rowgroup' }, head), body);
 }
 
 function buildItems(b, refs) {
