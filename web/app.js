@@ -36,7 +36,9 @@ const zoom = attachZoom(drawing, document.getElementById('fit-view'));
 const showDrawing = createDrawingWriter(drawing, wasm, zoom); // web/ui/drawing.js
 wireDefinitions(results, definitions);
 explainLabels(drawing, document.getElementById('drawing-def'), definitions); // the drawing's numbers
-const showStrip = createStrip(document.getElementById('strip'), definitions, new Map(words.short_labels), form); // key numbers on a phone
+const strip = document.getElementById('strip');
+const showStrip = createStrip(strip, definitions, new Map(words.short_labels), form); // key numbers on a phone
+painter.watch(strip); // hidden at a desk and unless a field is being typed in: written when shown
 
 // A posture whose figure the kernel left out (a limb out of reach) is drawn without its rider
 // (and without its centre of mass, so its handling numbers have none): its reasons (the kernel's
@@ -182,7 +184,8 @@ function update(event) {
   showNotes(form, unitNotes(result.report.bikes[0]));
   // The tables, then the drawing (made when written); neither reads a place from the page.
   renderResults(results, result.report.bikes[0], result.notes, catalogue, definitions, painter);
-  showStrip(result.report.bikes[0]);
+  const bike = result.report.bikes[0];
+  painter.paint(strip, () => showStrip(bike));
   showPostureNote(result.report.bikes[0]);
   painter.paint(drawing, showDrawing);
   share.update(wasm.last_link); // the address follows the page once typing pauses
