@@ -92,6 +92,10 @@ pub struct Solution {
     pub missing: Vec<String>,
     /// Assumptions made and inconsistencies found.
     pub warnings: Vec<Warning>,
+    /// The keys of the suspects ([`Residual::suspect`]) in the order the `inconsistent` warning
+    /// names them: the likelier misprints first (fewest of their own rounding steps from what the
+    /// others give), ties in key order. Empty when there is none.
+    pub suspects: Vec<String>,
 }
 
 /// Factor on the tolerance past which a residual is inconsistent.
@@ -164,11 +168,17 @@ pub fn solve(
     }
     warnings.extend(diag.warning);
     warnings.extend(unusual::warning(&model, &diag.x, &rows, &plan.pinned));
+    let suspects = diag
+        .suspects
+        .iter()
+        .filter_map(|&i| MEASURED_KEYS.get(i).map(|k| k.to_string()))
+        .collect();
     Ok(Solution {
         params,
         residuals,
         missing: plan.missing,
         warnings,
+        suspects,
     })
 }
 
@@ -183,11 +193,13 @@ fn residual(f: &explain::Finding) -> Residual {
     }
 }
 
-/// The solved unknowns, one finding per given row, and the `inconsistent` warning if any.
+/// The solved unknowns, one finding per given row, the `inconsistent` warning if any, and the
+/// suspects in the order it names them.
 struct Diagnosis {
     x: X,
     findings: Vec<explain::Finding>,
     warning: Option<Warning>,
+    suspects: Vec<usize>,
 }
 
 /// Checks the fit `x`; when values disagree, refits without each in turn (what the others give
@@ -201,6 +213,7 @@ fn diagnosis(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Diagn
             x: *x,
             findings,
             warning: None,
+            suspects: Vec::new(),
         });
     }
     let left_out = diagnose::leave_each_out(model, x, rows, free);
@@ -225,12 +238,14 @@ fn diagnosis(model: &Model, x: &X, rows: &[Row], free: &[usize]) -> Option<Diagn
             return Some(d);
         }
     }
-    let named: Vec<usize> = suspects.iter().map(|l| l.index).collect();
+    let mut named: Vec<usize> = suspects.iter().map(|l| l.index).collect();
+    explain::in_named_order(&findings, &mut named);
     let warning = Some(explain::warning(&findings, &named, false));
     Some(Diagnosis {
         x: *x,
         findings,
         warning,
+        suspects: named,
     })
 }
 
@@ -254,6 +269,7 @@ fn lone_misprint(
         x: one.x,
         findings,
         warning,
+        suspects: vec![one.index],
     })
 }
 
