@@ -183,7 +183,7 @@ fn one_clear_misprint_is_named_with_what_the_others_give() {
     for (a, b) in quoted_pairs(&msg) {
         assert_ne!(a, b, "{msg}");
     }
-    // Source: the solver's robust-fit rule (DEVELOPERS.md, `solve::lone_misprint`): a lone
+    // Source: the solver's robust-fit rule (DEVELOPERS.md, `solve::robust::lone_misprint`): a lone
     // misprint gets weight zero, so the solved frame is the frame solved without it.
     let alone = without(&extra, "reach_mm");
     for (k, v) in &alone.stock {

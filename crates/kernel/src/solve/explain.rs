@@ -4,7 +4,7 @@
 //! Three cases, from the suspects of [`super::diagnose::leave_each_out`] (the values whose removal
 //! lets the rest agree):
 //! - one suspect: it is named, with what the other numbers give for it, and said to be left out
-//!   of the solved frame (weight zero, `super::lone_misprint`);
+//!   of the solved frame (weight zero, `super::robust::lone_misprint`);
 //! - several: the values form one loop that does not close (say reach, head angle, fork and
 //!   chainstay against a published wheelbase). Any one of them would close it, so they are named
 //!   once, each with the change that would do it, and the sentence says the numbers cannot tell
@@ -91,7 +91,7 @@ pub fn in_named_order(findings: &[Finding], suspects: &mut [usize]) {
 
 /// The warning for inconsistent values (see the module documentation); `suspects` in the order
 /// to name them ([`in_named_order`]); `left_out` when the one suspect was left out of the solved
-/// frame (`super::lone_misprint`).
+/// frame (`super::robust::lone_misprint`).
 pub fn warning(findings: &[Finding], suspects: &[usize], left_out: bool) -> Warning {
     let of = |i: usize| findings.iter().find(|f| f.index == i);
     let named: Vec<&Finding> = suspects.iter().filter_map(|&i| of(i)).collect();

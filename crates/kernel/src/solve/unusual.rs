@@ -10,12 +10,12 @@
 //! - the stand-in fork as the likely cause: its axle-to-crown stands for forks from about 340 to
 //!   600 mm, so it alone can put a frame out of range (a 150 mm suspension fork under a low stack
 //!   puts the BB 115 mm above the axles);
-//! - the stand-in rear centre, with its length, as something the values it moves also depend on,
-//!   never as the cause: a stand-in of 415 or 435 mm cannot put them out of range by itself. The
-//!   chainstay `√(rc² + drop²)` stays inside 380–470 mm for any BB drop inside the hard range
-//!   (`√(435² + 160²) = 463.5 mm`, 150 mm and its slack), and the wheelbase = front centre + rear
-//!   centre leaves 950–1350 mm only with a front centre outside most bikes' 550–900 mm
-//!   (`950 − 435 = 515 mm`, `1350 − 435 = 915 mm`).
+//! - the stand-in rear centre, with its length, as something the values it moves also depend
+//!   on, never as the cause: a stand-in of 415 or 435 mm cannot put them out of range by itself.
+//!   The chainstay `√(rc² + drop²)` stays inside 380–470 mm for any BB drop inside the hard
+//!   range (`√(435² + 160²) = 463.5 mm`, 150 mm and its slack), and the wheelbase = front
+//!   centre + rear centre leaves 950–1350 mm only with a front centre outside most bikes'
+//!   550–900 mm (`950 − 435 = 515 mm`, `1350 − 435 = 915 mm`).
 
 use super::model::{Model, Row};
 use super::unknowns::{ix, X};
