@@ -44,9 +44,12 @@ mod blanks;
 pub mod cell;
 mod grid;
 pub mod label;
+mod lines;
 mod log;
+mod orient;
 mod rows;
 mod segment;
+mod unit_columns;
 pub mod wheels;
 
 use framewise_kernel::WheelsInput;
