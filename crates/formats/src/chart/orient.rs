@@ -10,7 +10,7 @@ use super::cell::{is_value_token, parse_cell, strip_footnotes, Cell, Mark};
 use super::grid::{is_size_token, Grid};
 use super::label::{classify, Kind};
 use super::log::{shorten, Log};
-use super::rows::{place_short, Short};
+use super::short_rows::{place_short, Short};
 use super::{ChartError, MAX_SIZES};
 use std::collections::BTreeMap;
 
