@@ -282,20 +282,20 @@ pub fn page_words() -> PageWords {
 /// when there is none, what was published, what the *other* published numbers alone make it (the
 /// report's `from_others`, not the best fit, which includes the value itself) and the gap, and
 /// what that means. A value marked only because the fit spread the suspects' disagreement over it
-/// says so and names them; a prediction outside the plausible range is never quoted as what the
-/// number should be. A value no other number checks says so.
+/// says so and names them, in the order the kernel's `inconsistent` warning names them; a
+/// prediction outside the plausible range is never quoted as what the number should be. A value
+/// no other number checks says so.
 pub fn residual_notes(bike: &framewise_kernel::BikeReport) -> BTreeMap<String, String> {
-    // "reach and wheelbase", as the kernel's warning says it.
+    // "wheelbase and reach": the names and the order of the kernel's warning
+    // ([`framewise_kernel::BikeReport::suspects`]).
     let mut suspects = String::new();
     let mut last = "";
-    for (key, r) in &bike.residuals {
-        if r.suspect {
-            if !last.is_empty() {
-                suspects.push_str(if suspects.is_empty() { "" } else { ", " });
-                suspects.push_str(&in_sentence(last));
-            }
-            last = lookup(key).map_or(key.as_str(), |m| m.label);
+    for key in &bike.suspects {
+        if !last.is_empty() {
+            suspects.push_str(if suspects.is_empty() { "" } else { ", " });
+            suspects.push_str(&in_sentence(last));
         }
+        last = lookup(key).map_or(key.as_str(), |m| m.label);
     }
     if !last.is_empty() {
         suspects.push_str(if suspects.is_empty() { "" } else { " and " });

@@ -359,6 +359,7 @@ fn evaluate_bike(
         checks: Vec::new(),
         cockpit_parts: None,
         warnings,
+        suspects: solution.suspects,
         outline: outline(&ridden_geom, rf, rr),
         stock_outline: outline(&stock_geom, sf, sr),
     };

@@ -57,6 +57,11 @@ pub struct BikeReport {
     pub cockpit_parts: Option<PartsSearch>,
     /// Assumptions, inconsistencies, cautions.
     pub warnings: Vec<Warning>,
+    /// The keys of the residuals marked `suspect`, in the order the `inconsistent` warning names
+    /// them ([`crate::solve::Solution::suspects`]), for words that name them too (the page's row
+    /// notes). Not in the JSON: each residual says whether it is a suspect.
+    #[serde(skip)]
+    pub suspects: Vec<String>,
     /// Points for the drawing, in ridden axes (BB at the origin, y up, mm).
     pub outline: Outline,
     /// The stock frame's points, for the ghost behind the ridden one (stock axes, BB at origin).

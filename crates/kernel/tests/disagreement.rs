@@ -183,7 +183,7 @@ fn one_clear_misprint_is_named_with_what_the_others_give() {
     for (a, b) in quoted_pairs(&msg) {
         assert_ne!(a, b, "{msg}");
     }
-    // Source: the solver's robust-fit rule (DEVELOPERS.md, `solve::lone_misprint`): a lone
+    // Source: the solver's robust-fit rule (DEVELOPERS.md, `solve::robust::lone_misprint`): a lone
     // misprint gets weight zero, so the solved frame is the frame solved without it.
     let alone = without(&extra, "reach_mm");
     for (k, v) in &alone.stock {
@@ -193,6 +193,7 @@ fn one_clear_misprint_is_named_with_what_the_others_give() {
         reach.suspect && (reach.solved - others).abs() < 1e-9,
         "{reach:?}"
     );
+    assert_eq!(b.suspects, ["reach_mm"]);
     // The others keep their published values (the demo frame's own numbers, rounded): unmarked.
     for (k, r) in &b.residuals {
         if k != "reach_mm" {
@@ -229,4 +230,41 @@ fn a_loop_marks_the_values_it_spreads_over_without_quoting_absurd_frames() {
     // others give for the head tube left out (about 354 mm) is no frame, and is never quoted.
     assert!(b.residuals["head_tube_mm"].from_others.unwrap() > 250.0);
     assert!(!msg.contains("354"), "{msg}");
+}
+
+#[test]
+fn the_suspects_are_listed_in_the_order_the_warning_names_them() {
+    // The loop of the test above with the wheelbase published to the centimetre (tolerance
+    // 10 mm): about 68 mm is 6.8 of its rounding steps and 68 of the reach's (1 mm), so the
+    // wheelbase is named first, the likelier misprint (solve/explain.rs `in_named_order`).
+    let b = bike(&[("wheelbase_mm", json!({ "value": 1300, "tolerance": 10 }))]);
+    let marked: Vec<&str> = b
+        .residuals
+        .iter()
+        .filter(|(_, r)| r.suspect)
+        .map(|(k, _)| k.as_str())
+        .collect();
+    assert_eq!(marked, ["reach_mm", "wheelbase_mm"]);
+    let steps = |k: &str, tol: f64| {
+        let r = b.residuals[k];
+        ((r.from_others.unwrap() - r.given) / tol).abs()
+    };
+    assert!(
+        steps("wheelbase_mm", 10.0) < steps("reach_mm", 1.0),
+        "{:?}",
+        b.residuals
+    );
+    assert_eq!(b.suspects, ["wheelbase_mm", "reach_mm"]);
+    let msg = inconsistent(&b);
+    assert!(
+        msg.contains("wheelbase and reach do not fit one frame together"),
+        "{msg}"
+    );
+    let (wb, reach) = (
+        msg.find("wheelbase by ").unwrap(),
+        msg.find("reach by ").unwrap(),
+    );
+    assert!(wb < reach, "{msg}");
+    // With no suspect the list is empty (a lone misprint's: one_clear_misprint_… above).
+    assert!(bike(&[]).suspects.is_empty());
 }

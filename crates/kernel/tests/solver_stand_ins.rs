@@ -241,3 +241,66 @@ fn a_solved_frame_no_bike_has_is_cautioned_naming_the_stand_in_fork() {
     );
     assert_eq!(solved_frame_caution(&sol), None);
 }
+
+#[test]
+fn a_wheelbase_out_of_range_names_the_stand_in_rear_centre_it_depends_on() {
+    // An invented long-travel frame in its largest size: the whole front published, nothing of
+    // the rear, 29x2.4 tyres. The rear centre stands in at a trail bike's 435 mm (said in the
+    // `underdetermined` warning). By §8a, with equal wheels (axles level, lower stack 0 by its
+    // prior):
+    //   front centre = reach + (head_tube + a2c)·cos h + offset·sin h
+    //                = 540 + 720 cos 61° + 44 sin 61° = 927.55 mm,
+    //   wheelbase    = front centre + rear centre = 927.55 + 435 = 1362.55 mm.
+    let h = 61f64.to_radians();
+    let front_centre = 540.0 + (130.0 + 590.0) * h.cos() + 44.0 * h.sin();
+    assert!((front_centre - 927.55).abs() < 0.01, "{front_centre}");
+    let frame = [
+        ("reach_mm", 540.0),
+        ("stack_mm", 650.0),
+        ("head_angle_deg", 61.0),
+        ("head_tube_mm", 130.0),
+        ("fork_a2c_mm", 590.0),
+        ("fork_offset_mm", 44.0),
+    ];
+    let sol = run(&frame, TRAIL_R, Some(2.4 * 25.4));
+    assert!((sol.params.rear_centre - 435.0).abs() < 1e-9);
+    let wheelbase = sol_number(&sol, "wheelbase_mm", TRAIL_R);
+    assert!(
+        (wheelbase - (front_centre + 435.0)).abs() < 0.01,
+        "{wheelbase}"
+    );
+    // Both leave the catalogue's plausible ranges (front centre 550 to 900 mm, wheelbase 950 to
+    // 1350 mm). The rear centre moves only the wheelbase, and the front centre is out of range
+    // without it: the stand-in is named as what the wheelbase also depends on, with its length
+    // and the measurement that replaces it, not as the cause. Labels inside the sentence are in
+    // lower case.
+    assert_eq!(
+        solved_frame_caution(&sol),
+        Some(
+            "The solved frame is unusual: front centre 928 mm (most bikes: 550 to 900 mm), \
+             wheelbase 1363 mm (most bikes: 950 to 1350 mm). The wheelbase also depends on the \
+             stand-in rear centre of 435 mm: enter Chainstay."
+        )
+    );
+    // With a published chainstay of 445 mm the rear centre is this frame's, √(445² − drop²)
+    // with drop = stack − (head_tube + a2c)·sin h + offset·cos h = 41.61 mm (§8a): 443.05 mm,
+    // the wheelbase 1370.6 mm. Still unusual, but no stand-in is named.
+    let drop = 650.0 - (130.0 + 590.0) * h.sin() + 44.0 * h.cos();
+    let rc = (445.0f64.powi(2) - drop.powi(2)).sqrt();
+    assert!((rc - 443.05).abs() < 0.01, "{rc}");
+    let mut with_chainstay = frame.to_vec();
+    with_chainstay.push(("chainstay_mm", 445.0));
+    let sol = run(&with_chainstay, TRAIL_R, Some(2.4 * 25.4));
+    let wheelbase = sol_number(&sol, "wheelbase_mm", TRAIL_R);
+    assert!(
+        (wheelbase - (front_centre + rc)).abs() < 0.01,
+        "{wheelbase}"
+    );
+    assert_eq!(
+        solved_frame_caution(&sol),
+        Some(
+            "The solved frame is unusual: front centre 928 mm (most bikes: 550 to 900 mm), \
+             wheelbase 1371 mm (most bikes: 950 to 1350 mm)."
+        )
+    );
+}

@@ -44,9 +44,15 @@ mod blanks;
 pub mod cell;
 mod grid;
 pub mod label;
+mod lines;
 mod log;
+mod orient;
+mod row_units;
 mod rows;
 mod segment;
+mod short_rows;
+mod unit_columns;
+mod wheel_row;
 pub mod wheels;
 
 use framewise_kernel::WheelsInput;

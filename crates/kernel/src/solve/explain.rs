@@ -4,7 +4,7 @@
 //! Three cases, from the suspects of [`super::diagnose::leave_each_out`] (the values whose removal
 //! lets the rest agree):
 //! - one suspect: it is named, with what the other numbers give for it, and said to be left out
-//!   of the solved frame (weight zero, `super::lone_misprint`);
+//!   of the solved frame (weight zero, `super::robust::lone_misprint`);
 //! - several: the values form one loop that does not close (say reach, head angle, fork and
 //!   chainstay against a published wheelbase). Any one of them would close it, so they are named
 //!   once, each with the change that would do it, and the sentence says the numbers cannot tell
@@ -76,8 +76,22 @@ fn disagreement(f: &Finding) -> String {
     format!("{name} is published as {given}{unchecked} but the fit makes it {solved}")
 }
 
-/// The warning for inconsistent values (see the module documentation); `left_out` when the
-/// one suspect was left out of the solved frame (`super::lone_misprint`).
+/// Puts the suspects (measurement indices) in the order the warning and the row notes name
+/// them: the values needing the fewest of their own rounding steps of change first (the likelier
+/// misprints), ties in the order given (the published values' key order, a stable sort).
+pub fn in_named_order(findings: &[Finding], suspects: &mut [usize]) {
+    let steps = |i: &usize| {
+        findings
+            .iter()
+            .find(|f| f.index == *i)
+            .map_or(f64::INFINITY, steps_off)
+    };
+    super::sort_short(suspects, |a, b| steps(a) < steps(b));
+}
+
+/// The warning for inconsistent values (see the module documentation); `suspects` in the order
+/// to name them ([`in_named_order`]); `left_out` when the one suspect was left out of the solved
+/// frame (`super::robust::lone_misprint`).
 pub fn warning(findings: &[Finding], suspects: &[usize], left_out: bool) -> Warning {
     let of = |i: usize| findings.iter().find(|f| f.index == i);
     let named: Vec<&Finding> = suspects.iter().filter_map(|&i| of(i)).collect();
@@ -114,12 +128,9 @@ fn no_suspect(findings: &[Finding]) -> String {
     )
 }
 
-/// Several suspects: one loop of values that does not close, said once, the values needing the
-/// fewest rounding steps of change first (the likelier misprints).
+/// Several suspects: one loop of values that does not close, said once, the members in the
+/// order given ([`in_named_order`]).
 fn one_loop(members: &[&Finding]) -> String {
-    let mut members = members.to_vec();
-    // Ties in chart order (a stable sort).
-    super::sort_short(&mut members, |a, b| steps_off(a) < steps_off(b));
     // The names inside the sentence: "chainstay, reach and wheelbase", "BB drop" as written.
     let names: Vec<String> = members
         .iter()
