@@ -164,24 +164,23 @@ pub fn words_of(key: &str, v: f64) -> String {
     format!("{name} {}{unit}", num(v, 0))
 }
 
-/// The dimension group of one outline, its rows below the ground `below`, its labels at `spots`.
-pub fn dimensions(o: &Outline, n: &Numbers, below: &Below, spots: &Spots) -> Node {
+/// The dimension group of one outline, its rows below the ground `below`, its labels placed in
+/// `spots` (a dimension the report lacks has no label there, and no line).
+pub fn dimensions(o: &Outline, below: &Below, mut spots: Spots) -> Node {
     let mut lines = PathData::new();
     let mut labels = Vec::new();
     for dim in dims_of(o, below) {
-        let Some(v) = n.get(dim.key) else { continue };
-        let Some(spot) = spots.dim(dim.key) else {
+        let Some(l) = spots.take_dim(dim.key) else {
             continue;
         };
-        let words = words_of(dim.key, *v);
         lines = lines.line(dim.a, dim.b);
         labels.push(Node::Group {
             class: join(&["dim dim-", dim.key]),
             children: vec![text(
                 join(&["dim-", dim.key]),
-                spot.at,
-                words,
-                spot.anchor,
+                l.spot.at,
+                l.words,
+                l.spot.anchor.svg(),
                 "label dim-label",
             )],
         });

@@ -3,7 +3,6 @@
 use crate::layout::LimitSpots;
 use crate::model::Node;
 use crate::shapes::{join, num, text, PathData};
-use crate::Limits;
 use framewise_kernel::report::{Leg, RiderFigure, Xy};
 use framewise_kernel::Outline;
 
@@ -69,9 +68,9 @@ pub fn slope_words(front: bool, deg: f64) -> String {
     format!("{what} {}°", num(deg, 0))
 }
 
-/// The centre of mass, its lines to both contact points, and the limits written on them at
-/// their spots ([`crate::layout`]).
-pub fn com(c: Xy, o: &Outline, limits: &Limits, spots: &LimitSpots, posture: &str) -> Node {
+/// The centre of mass, its lines to both contact points, and the limits written on them, placed
+/// by [`crate::layout`] (braking, climb, descent, as the posture has them).
+pub fn com(c: Xy, o: &Outline, spots: LimitSpots, posture: &str) -> Node {
     let k = |name: &str| join(&[posture, "-", name]);
     let mut kids = vec![
         PathData::new()
@@ -87,26 +86,20 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, spots: &LimitSpots, posture: &st
             .node(k("com-cross"), "com-cross"),
     ];
     let class = "label com-label";
-    if let (Some(b), Some(s)) = (limits.braking_g, spots.braking) {
-        kids.push(text(k("braking"), s.at, braking_words(b), s.anchor, class));
-    }
-    if let (Some(d), Some(s)) = (limits.climb_deg, spots.climb) {
-        kids.push(text(
-            k("climb"),
-            s.at,
-            slope_words(false, d),
-            s.anchor,
-            class,
-        ));
-    }
-    if let (Some(d), Some(s)) = (limits.descent_deg, spots.descent) {
-        kids.push(text(
-            k("descent"),
-            s.at,
-            slope_words(true, d),
-            s.anchor,
-            class,
-        ));
+    for (what, label) in [
+        ("braking", spots.braking),
+        ("climb", spots.climb),
+        ("descent", spots.descent),
+    ] {
+        if let Some(l) = label {
+            kids.push(text(
+                k(what),
+                l.spot.at,
+                l.words,
+                l.spot.anchor.svg(),
+                class,
+            ));
+        }
     }
     Node::Group {
         class: "com".into(),

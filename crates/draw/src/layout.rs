@@ -10,8 +10,10 @@
 
 use crate::dims::{self, Below, Dim};
 use crate::place::{
-    box_rect, cost, width_em, Board, Candidate, Obstacle, Rect, Shape, Spot, ASCENT_EM, DESCENT_EM,
-    HALO_MM,
+    box_rect, cost, width_em,
+    Anchor::{self, End, Middle, Start},
+    Board, Candidate, Obstacle, Rect, Scratch, Shape, Spot, ASCENT_EM, DESCENT_EM, HALO_MM,
+    STRAY_PER_MM,
 };
 use crate::{Scene, ViewBox, LABEL_EM_MAX_MM as EM};
 use framewise_kernel::report::{RiderFigure, Xy};
@@ -36,7 +38,7 @@ fn level(y: f64) -> f64 {
     y - (ASCENT_EM - DESCENT_EM) / 2.0 * EM
 }
 
-fn cand(at: Xy, anchor: &'static str, stray: f64) -> Candidate {
+fn cand(at: Xy, anchor: Anchor, stray: f64) -> Candidate {
     Candidate {
         spot: Spot { at, anchor },
         stray,
@@ -51,22 +53,31 @@ fn snap(p: Xy) -> Xy {
     p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
 }
 
-/// The spots of one posture's handling labels.
-#[derive(Debug, Clone, Copy, Default)]
-pub struct LimitSpots {
-    /// "braking limit …".
-    pub braking: Option<Spot>,
-    /// "descent …°".
-    pub descent: Option<Spot>,
-    /// "climb …°".
-    pub climb: Option<Spot>,
+/// A label placed: its spot and its words.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Placed {
+    /// Where it goes.
+    pub spot: Spot,
+    /// What it says.
+    pub words: String,
 }
 
-/// Every label's spot.
+/// One posture's handling labels.
+#[derive(Debug, Clone, Default)]
+pub struct LimitSpots {
+    /// "braking limit …".
+    pub braking: Option<Placed>,
+    /// "descent …°".
+    pub descent: Option<Placed>,
+    /// "climb …°".
+    pub climb: Option<Placed>,
+}
+
+/// Every label, placed.
 #[derive(Debug, Clone, Default)]
 pub struct Spots {
-    /// The dimension labels: key (`reach_mm` …) and spot.
-    pub dims: Vec<(&'static str, Spot)>,
+    /// The dimension labels: key (`reach_mm` …) and label.
+    pub dims: Vec<(&'static str, Placed)>,
     /// The seated limits.
     pub seated: LimitSpots,
     /// The standing limits.
@@ -74,9 +85,10 @@ pub struct Spots {
 }
 
 impl Spots {
-    /// The spot of a dimension label.
-    pub fn dim(&self, key: &str) -> Option<Spot> {
-        self.dims.iter().find(|(k, _)| *k == key).map(|(_, s)| *s)
+    /// The dimension label of a key, taken out.
+    pub fn take_dim(&mut self, key: &str) -> Option<Placed> {
+        let i = self.dims.iter().position(|(k, _)| *k == key)?;
+        Some(self.dims.swap_remove(i).1)
     }
 }
 
@@ -144,21 +156,34 @@ fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
     }
 }
 
-/// The stock ghost's thin dashed outline: its tubes, fork and tyres.
-fn ghost(g: &Outline, bb: Xy, out: &mut Vec<Obstacle>) {
-    for (a, b) in [
-        (g.head_bottom, bb),
-        (bb, g.rear_axle),
-        (g.rear_axle, g.seat_top),
-        (g.seat_top, g.head_top),
-        (bb, g.seat_top),
-        (g.head_top, g.crown),
-        (g.fork_leg_top, g.front_axle),
+/// The stock ghost's thin dashed outline: its tubes, fork and tyres, where they are not under
+/// the ridden bike's (with no changes the ghost lies under the ridden bike, hidden).
+fn ghost(g: &Outline, g_bb: Xy, o: &Outline, out: &mut Vec<Obstacle>) {
+    let same = |a: Xy, b: Xy| (a[0] - b[0]).abs() < 2.0 && (a[1] - b[1]).abs() < 2.0;
+    let bb = [0.0, 0.0];
+    for ((a, b), (ra, rb)) in [
+        ((g.head_bottom, g_bb), (o.head_bottom, bb)),
+        ((g_bb, g.rear_axle), (bb, o.rear_axle)),
+        ((g.rear_axle, g.seat_top), (o.rear_axle, o.seat_top)),
+        ((g.seat_top, g.head_top), (o.seat_top, o.head_top)),
+        ((g_bb, g.seat_top), (bb, o.seat_top)),
+        ((g.head_top, g.crown), (o.head_top, o.crown)),
+        (
+            (g.fork_leg_top, g.front_axle),
+            (o.fork_leg_top, o.front_axle),
+        ),
     ] {
-        out.push(seg(a, b, THIN_HALF, cost::THIN));
+        if !(same(a, ra) && same(b, rb)) {
+            out.push(seg(a, b, THIN_HALF, cost::THIN));
+        }
     }
-    for (c, r) in [(g.rear_axle, g.rear_radius), (g.front_axle, g.front_radius)] {
-        out.push(ring(c, r, THIN_HALF, cost::THIN));
+    for (c, r, rc, rr) in [
+        (g.rear_axle, g.rear_radius, o.rear_axle, o.rear_radius),
+        (g.front_axle, g.front_radius, o.front_axle, o.front_radius),
+    ] {
+        if !(same(c, rc) && (r - rr).abs() < 2.0) {
+            out.push(ring(c, r, THIN_HALF, cost::THIN));
+        }
     }
 }
 
@@ -200,23 +225,24 @@ pub const BUTTON_MM: f64 = 4.2 * EM;
 
 /// Candidates on the sides of a point `p` of a slanted line, `d` the line's direction: beside
 /// the line on the sides it leaves free (for a line up to the right, above-left and
-/// below-right), then level with the point on either side, each at three distances.
+/// below-right), then level with the point on either side; each [`GAP`] off the line and 60 mm
+/// farther (each millimetre farther a stray of [`STRAY_PER_MM`]).
 fn beside(p: Xy, d: Xy, stray: f64, out: &mut Vec<Candidate>) {
     let up_right = d[0] * d[1] > 0.0;
-    for (k, far) in [0.0, 40.0, 100.0].into_iter().enumerate() {
+    for far in [0.0, 60.0] {
         let g = GAP + far;
-        let s = stray + k as f64;
+        let s = stray + STRAY_PER_MM * far;
         let (x_right, x_left) = (p[0] + g, p[0] - g);
         let (y_up, y_down) = (above(p[1], g), below(p[1], g));
         if up_right {
-            out.push(cand([x_left, y_up], "end", s));
-            out.push(cand([x_right, y_down], "start", s));
+            out.push(cand([x_left, y_up], End, s));
+            out.push(cand([x_right, y_down], Start, s));
         } else {
-            out.push(cand([x_right, y_up], "start", s));
-            out.push(cand([x_left, y_down], "end", s));
+            out.push(cand([x_right, y_up], Start, s));
+            out.push(cand([x_left, y_down], End, s));
         }
-        out.push(cand([x_right, level(p[1])], "start", s + 1.0));
-        out.push(cand([x_left, level(p[1])], "end", s + 1.0));
+        out.push(cand([x_right, level(p[1])], Start, s + 1.0));
+        out.push(cand([x_left, level(p[1])], End, s + 1.0));
     }
 }
 
@@ -236,8 +262,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             let y = rows.wheelbase_baseline();
             let m = (a[0] + b[0]) / 2.0;
             for k in steps(8) {
-                v.push(cand([m - 50.0 * k, y], "middle", 0.3 * k));
-                v.push(cand([m + 50.0 * k, y], "middle", 0.3 * k));
+                v.push(cand([m - 50.0 * k, y], Middle, 0.3 * k));
+                v.push(cand([m + 50.0 * k, y], Middle, 0.3 * k));
             }
         }
         "trail_mm" => {
@@ -249,20 +275,20 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
                 rows.wheelbase_baseline()
             };
             let (l, r) = (a[0].min(b[0]), a[0].max(b[0]));
-            v.push(cand([l, y], "start", 0.0));
-            v.push(cand([r, y], "end", 1.0));
-            v.push(cand([(l + r) / 2.0, y], "middle", 1.0));
+            v.push(cand([l, y], Start, 0.0));
+            v.push(cand([r, y], End, 1.0));
+            v.push(cand([(l + r) / 2.0, y], Middle, 1.0));
             for k in steps(8).skip(1) {
-                v.push(cand([l - 50.0 * k, y], "start", 0.5 * k));
-                v.push(cand([r + 50.0 * k, y], "start", 1.0 + 0.5 * k));
+                v.push(cand([l - 50.0 * k, y], Start, 0.5 * k));
+                v.push(cand([r + 50.0 * k, y], Start, 1.0 + 0.5 * k));
             }
         }
         "bb_height_mm" if rows.bb_height => {
             // Under the ground, its line ending on it: centred on the line, else moved back.
             let y = rows.upper_baseline();
             for k in steps(10) {
-                v.push(cand([a[0] - 40.0 * k, y], "middle", 0.3 * k));
-                v.push(cand([a[0] + 40.0 * k, y], "middle", 0.5 * k));
+                v.push(cand([a[0] - 40.0 * k, y], Middle, 0.3 * k));
+                v.push(cand([a[0] + 40.0 * k, y], Middle, 0.5 * k));
             }
         }
         "bb_height_mm" => {
@@ -276,8 +302,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             {
                 for k in steps(6) {
                     let s = 2.0 * row as f64 + 0.3 * k;
-                    v.push(cand([m - 40.0 * k, y], "middle", s));
-                    v.push(cand([m + 40.0 * k, y], "middle", s));
+                    v.push(cand([m - 40.0 * k, y], Middle, s));
+                    v.push(cand([m + 40.0 * k, y], Middle, s));
                 }
             }
         }
@@ -288,12 +314,12 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             let tyre_top = o.front_axle[1] + o.front_radius + 15.0;
             let mid = level((b[1] + tyre_top) / 2.0);
             for k in steps(8) {
-                v.push(cand([x, mid + 20.0 * k], "start", 0.3 * k));
-                v.push(cand([x, mid - 20.0 * k], "start", 0.3 * k));
+                v.push(cand([x, mid + 20.0 * k], Start, 0.3 * k));
+                v.push(cand([x, mid - 20.0 * k], Start, 0.3 * k));
             }
-            v.push(cand([a[0] - GAP, mid], "end", 2.0));
-            v.push(cand([a[0], above(b[1], GAP)], "middle", 2.0));
-            v.push(cand([x, above(b[1], GAP)], "start", 2.0));
+            v.push(cand([a[0] - GAP, mid], End, 2.0));
+            v.push(cand([a[0], above(b[1], GAP)], Middle, 2.0));
+            v.push(cand([x, above(b[1], GAP)], Start, 2.0));
         }
         "reach_mm" => {
             // Above its line, else below it, else past the head tube, above the line's level
@@ -302,29 +328,31 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             for (k, t) in [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].into_iter().enumerate() {
                 let x = x0 + (x1 - x0) * t;
                 let s = 0.3 * k as f64;
-                v.push(cand([x, above(y, GAP)], "middle", s));
-                v.push(cand([x, below(y, GAP)], "middle", 2.0 + s));
+                v.push(cand([x, above(y, GAP)], Middle, s));
+                v.push(cand([x, below(y, GAP)], Middle, 2.0 + s));
             }
-            v.push(cand([x1, above(y, GAP)], "end", 1.0));
-            v.push(cand([x0, above(y, GAP)], "start", 1.0));
+            v.push(cand([x1, above(y, GAP)], End, 1.0));
+            v.push(cand([x0, above(y, GAP)], Start, 1.0));
             let past = o.head_top[0].max(o.head_bottom[0]) + 20.0 + GAP;
             for k in steps(4) {
                 let s = 2.0 + 0.5 * k;
                 let x = past + 30.0 * k;
-                v.push(cand([x, above(y, GAP)], "start", s));
-                v.push(cand([x, level(y)], "start", s + 0.5));
+                v.push(cand([x, above(y, GAP)], Start, s));
+                v.push(cand([x, level(y)], Start, s + 0.5));
             }
-            v.push(cand([x0 - GAP, level(y)], "end", 3.0));
+            v.push(cand([x0 - GAP, level(y)], End, 3.0));
             // Past the cockpit (a long stem, a drop bar's hoods).
             if let Some(c) = &o.cockpit {
                 let past = [c.steerer_top, c.bar_clamp, c.grip]
                     .iter()
                     .fold(past, |m, p| m.max(p[0] + 16.0 + GAP));
+                // Each millimetre past the head tube top a stray.
+                let s = 3.0 + STRAY_PER_MM * (past - x1);
                 for (k, yb) in [level(y), above(y, GAP), below(y, GAP)]
                     .into_iter()
                     .enumerate()
                 {
-                    v.push(cand([past, yb], "start", 3.0 + 0.5 * k as f64));
+                    v.push(cand([past, yb], Start, s + 0.5 * k as f64));
                 }
             }
         }
@@ -333,8 +361,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             let x = b[0] + dims::GRIP_LABEL_AHEAD;
             let y = b[1] + dims::GRIP_LABEL_RISE;
             for k in steps(8) {
-                v.push(cand([x, y + 20.0 * k], "start", 0.3 * k));
-                v.push(cand([x, y - 20.0 * k], "start", 0.3 * k));
+                v.push(cand([x, y + 20.0 * k], Start, 0.3 * k));
+                v.push(cand([x, y - 20.0 * k], Start, 0.3 * k));
             }
             let d = [b[0] - a[0], b[1] - a[1]];
             for (k, t) in [0.8, 0.65, 0.5].into_iter().enumerate() {
@@ -347,8 +375,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
 }
 
 /// The candidates of a slope limit on its tip line from the centre of mass `c` to a contact
-/// under the axle `axle` (wheel of rim radius `rim`): beside the line, from its middle outwards;
-/// then inside the wheel, under the hub or over it (where the line crosses the wheel); on the
+/// under the axle `axle`: beside the line, from its middle outwards; then inside the wheel,
+/// under the hub or over it (the line crosses the wheel on its way to the contact); on the
 /// [`LABEL_STEP_MM`] grid.
 fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(128);
@@ -360,8 +388,8 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
         let dx = 30.0 * f64::from(k);
         let s = 1.0 + 0.3 * f64::from(k);
         for x in [axle[0] - dx, axle[0] + dx] {
-            v.push(cand([x, below(axle[1], 10.0 + GAP)], "middle", s));
-            v.push(cand([x, above(axle[1], 10.0 + GAP)], "middle", s + 1.0));
+            v.push(cand([x, below(axle[1], 10.0 + GAP)], Middle, s));
+            v.push(cand([x, above(axle[1], 10.0 + GAP)], Middle, s + 1.0));
         }
     }
     for x in &mut v {
@@ -371,20 +399,22 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
 }
 
 /// The candidates of the braking limit, written by the centre of mass `c`: right of it and a
-/// little above, else higher or farther right, else left of it, else under it, on the
-/// [`LABEL_STEP_MM`] grid.
+/// little above, else higher or farther right (each millimetre farther a stray of
+/// [`STRAY_PER_MM`]), else left of it, else under it, on the [`LABEL_STEP_MM`] grid.
 fn braking_candidates(c: Xy) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(128);
     for i in 0..=4 {
         for j in 0..=7 {
             let (fi, fj) = (f64::from(i), f64::from(j));
             let y = c[1] + 30.0 + 50.0 * fj;
-            let s = 0.1 * (fi + fj);
-            v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), "start", s));
-            v.push(cand(snap([c[0] - 40.0 - 100.0 * fi, y]), "end", s + 1.0));
+            // How far its box's corner lies from the mark's edge.
+            let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
+            let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
+            v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s));
+            v.push(cand(snap([c[0] - 40.0 - 100.0 * fi, y]), End, s + 1.0));
             if j < 4 {
                 let y = c[1] - 30.0 - ASCENT_EM * EM - 50.0 * fj;
-                v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), "start", s + 2.0));
+                v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s + 2.0));
             }
         }
     }
@@ -397,7 +427,7 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
     let mut shapes = Vec::with_capacity(96);
     bike(o, &mut shapes);
     let (g, g_bb) = crate::ghost::on_ground(scene.stock, o.ground_y);
-    ghost(&g, g_bb, &mut shapes);
+    ghost(&g, g_bb, o, &mut shapes);
     let view = view_rect(fit);
     shapes.push(seg(
         [view[0], o.ground_y],
@@ -406,6 +436,7 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         cost::THIN,
     ));
     shapes.push(seg(o.head_top, o.steer_ground, THIN_HALF, cost::THIN));
+    shapes.sort_unstable_by(|a, b| b.cost.total_cmp(&a.cost));
     let keep_out = [[view[2] - BUTTON_MM, view[3] - BUTTON_MM, view[2], view[3]]];
     let lines = dims::dims_of(o, below);
     let mut seated_rider = Vec::with_capacity(32);
@@ -417,18 +448,19 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         o.com_standing,
         &mut standing_rider,
     );
-    let board = Board {
+    let mut board = Board {
         view,
         em: EM,
         shapes: &shapes,
         keep_out: &keep_out,
+        scratch: Scratch::default(),
     };
     let riders: Vec<Obstacle> = seated_rider
         .iter()
         .chain(&standing_rider)
         .copied()
         .collect();
-    let (dims, placed) = dim_spots(&board, o, n, below, &lines, riders);
+    let (dims, placed) = dim_spots(&mut board, o, n, below, &lines, riders);
     let dim_lines: Vec<Obstacle> = lines
         .iter()
         .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN))
@@ -440,7 +472,7 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
     .map(|(limits, com, mut rider)| {
         rider.extend(dim_lines.iter());
         com.map_or(LimitSpots::default(), |c| {
-            limit_spots(&board, o, limits, c, &rider, placed.clone())
+            limit_spots(&mut board, o, limits, c, &rider, placed.clone())
         })
     })
     .into_iter();
@@ -454,13 +486,13 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
 /// The dimension labels' spots, below the ground first, then the frame's, then BB to grip,
 /// each keeping off both riders (`riders`) and the other dimension lines; and their text boxes.
 fn dim_spots(
-    board: &Board,
+    board: &mut Board,
     o: &Outline,
     n: &framewise_kernel::report::Numbers,
     below: &Below,
     lines: &[Dim],
     riders: Vec<Obstacle>,
-) -> (Vec<(&'static str, Spot)>, Vec<Rect>) {
+) -> (Vec<(&'static str, Placed)>, Vec<Rect>) {
     let order = [
         "bb_height_mm",
         "wheelbase_mm",
@@ -478,7 +510,8 @@ fn dim_spots(
         .filter_map(|k| lines.iter().find(|l| l.key == *k))
     {
         let Some(v) = n.get(d.key) else { continue };
-        let width = width_em(&dims::words_of(d.key, *v));
+        let words = dims::words_of(d.key, *v);
+        let width = width_em(&words);
         extra.truncate(rider_count);
         extra.extend(
             lines
@@ -486,14 +519,9 @@ fn dim_spots(
                 .filter(|l| l.key != d.key)
                 .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN)),
         );
-        let target = Shape::Seg {
-            a: d.a,
-            b: d.b,
-            half: 0.0,
-        };
-        let spot = board.choose(width, target, &dim_candidates(o, below, d), &extra, &placed);
+        let spot = board.choose(width, &dim_candidates(o, below, d), &extra, &placed);
         placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        spots.push((d.key, spot));
+        spots.push((d.key, Placed { spot, words }));
     }
     (spots, placed)
 }
@@ -502,7 +530,7 @@ fn dim_spots(
 /// posture's rider and tip lines, and the dimension lines) and the boxes `placed` (the
 /// dimension labels', shown or not).
 fn limit_spots(
-    board: &Board,
+    board: &mut Board,
     o: &Outline,
     limits: &crate::Limits,
     c: Xy,
@@ -511,35 +539,26 @@ fn limit_spots(
 ) -> LimitSpots {
     let mut s = LimitSpots::default();
     if let Some(b) = limits.braking_g {
-        let width = width_em(&crate::figure::braking_words(b));
-        let mark = Shape::Disc { c, r: 28.0 };
-        let spot = board.choose(width, mark, &braking_candidates(c), extra, &placed);
+        let words = crate::figure::braking_words(b);
+        let width = width_em(&words);
+        let spot = board.choose(width, &braking_candidates(c), extra, &placed);
         placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        s.braking = Some(spot);
+        s.braking = Some(Placed { spot, words });
     }
     for (deg, contact, axle, front) in [
         (limits.descent_deg, o.front_contact, o.front_axle, true),
         (limits.climb_deg, o.rear_contact, o.rear_axle, false),
     ] {
         let Some(deg) = deg else { continue };
-        let width = width_em(&crate::figure::slope_words(front, deg));
-        let line = Shape::Seg {
-            a: c,
-            b: contact,
-            half: 0.0,
-        };
-        let spot = board.choose(
-            width,
-            line,
-            &tip_candidates(c, contact, axle),
-            extra,
-            &placed,
-        );
+        let words = crate::figure::slope_words(front, deg);
+        let width = width_em(&words);
+        let spot = board.choose(width, &tip_candidates(c, contact, axle), extra, &placed);
         placed.push(box_rect(spot.at, spot.anchor, width, EM));
+        let placed = Some(Placed { spot, words });
         if front {
-            s.descent = Some(spot);
+            s.descent = placed;
         } else {
-            s.climb = Some(spot);
+            s.climb = placed;
         }
     }
     s

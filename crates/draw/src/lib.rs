@@ -131,7 +131,7 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let (stock, stock_bb) = ghost::on_ground(scene.stock, o.ground_y);
     let fit = view::fit(scene);
     let below = dims::Below::of(o, scene.numbers);
-    let spots = layout::spots(scene, &below, &fit);
+    let mut spots = layout::spots(scene, &below, &fit);
     let view = view::steady(shown, fit);
     let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![
@@ -141,19 +141,17 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
         parts::bike(&stock, "ghost", stock_bb),
         parts::bike(o, "ridden", [0.0, 0.0]),
     ];
-    for (fig, com, limits, at, posture) in [
+    for (fig, com, at, posture) in [
         (
             &o.rider_seated,
             o.com_seated,
-            scene.seated,
-            spots.seated,
+            std::mem::take(&mut spots.seated),
             "seated",
         ),
         (
             &o.rider_standing,
             o.com_standing,
-            scene.standing,
-            spots.standing,
+            std::mem::take(&mut spots.standing),
             "standing",
         ),
     ] {
@@ -162,14 +160,14 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
             children.push(figure::rider(f, posture));
         }
         if let Some(c) = com {
-            children.push(figure::com(c, o, &limits, &at, posture));
+            children.push(figure::com(c, o, at, posture));
         }
         nodes.push(Node::Group {
             class: shapes::join(&["posture ", posture]),
             children,
         });
     }
-    nodes.push(dims::dimensions(o, scene.numbers, &below, &spots));
+    nodes.push(dims::dimensions(o, &below, spots));
     Drawing {
         view_box: view.attr(),
         view,

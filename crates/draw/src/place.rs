@@ -1,12 +1,14 @@
 //! Label placement: each label goes to the cheapest of its candidate spots, where a spot costs
-//! what its box crosses (a tube or a tyre much, a limb less, a thin dashed line little) plus how
-//! far it strays from the label's first choice; another label's box, or the view box's edge, is
-//! never crossed while a spot that keeps clear of them exists.
+//! what its ink crosses (a frame tube, the fork or a tyre most, a limb less, a thin dashed line
+//! little, [`cost`]) plus how far it strays from the label's first choice and from what it
+//! belongs to ([`Candidate::stray`]). Another label's box, the view box's edge and the corner
+//! under the page's Fit button are never crossed while a spot that keeps clear of them exists.
 //!
-//! A label's box is estimated from its words ([`width_em`], [`ink_rect`], [`box_rect`]) in the largest type the page uses
-//! ([`crate::LABEL_EM_MAX_MM`]); in smaller type the box shrinks towards the same anchor and
-//! stays inside the larger one, so a spot clear in the largest type is clear in every size.
-//! Everything here is in kernel axes (y up): drawing layout, not bike geometry.
+//! A label's ink and box are estimated from its words ([`width_em`], [`ink_rect`],
+//! [`box_rect`]) in the largest type the page uses ([`crate::LABEL_EM_MAX_MM`]); in smaller type
+//! they shrink towards the same anchor point and stay inside the larger ones, so a spot clear in
+//! the largest type is clear in every size. Everything here is in kernel axes (y up): drawing
+//! layout, not bike geometry.
 
 use framewise_kernel::report::Xy;
 
@@ -27,7 +29,7 @@ fn advance_em(c: char) -> f64 {
         0.837, 0.850, 0.733, 0.850, 0.770, 0.720, 0.682, 0.812, 0.774, 1.103, 0.771, 0.724, 0.725,
     ];
     let at = |table: &[f64; 26], base: char| {
-        let i = u32::from(c) - u32::from(base);
+        let i = u32::from(c).checked_sub(u32::from(base))?;
         usize::try_from(i).ok().and_then(|i| table.get(i)).copied()
     };
     match c {
@@ -62,9 +64,31 @@ pub const BOX_DESCENT_EM: f64 = 0.24;
 /// `.bike-drawing .label` in web/style.css): what a label's box keeps off lines and other boxes.
 pub const HALO_MM: f64 = 9.0;
 
+/// Which point of a label's words its anchor point is (SVG's `text-anchor`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Anchor {
+    /// The words' start (left end).
+    Start,
+    /// Their middle.
+    Middle,
+    /// Their end (right end).
+    End,
+}
+
+impl Anchor {
+    /// The `text-anchor` value.
+    pub fn svg(self) -> &'static str {
+        match self {
+            Anchor::Start => "start",
+            Anchor::Middle => "middle",
+            Anchor::End => "end",
+        }
+    }
+}
+
 /// The ink of a label `width` em wide ([`width_em`]) in type of `em` mm, its baseline's anchor
-/// point at `at` (`start`, `middle` or `end` of the words, as SVG's `text-anchor`).
-pub fn ink_rect(at: Xy, anchor: &str, width: f64, em: f64) -> Rect {
+/// point at `at`.
+pub fn ink_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
     let x0 = left(at[0], anchor, width * em);
     [
         x0,
@@ -75,7 +99,7 @@ pub fn ink_rect(at: Xy, anchor: &str, width: f64, em: f64) -> Rect {
 }
 
 /// The text box of the same label ([`BOX_ASCENT_EM`], [`BOX_DESCENT_EM`]).
-pub fn box_rect(at: Xy, anchor: &str, width: f64, em: f64) -> Rect {
+pub fn box_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
     let x0 = left(at[0], anchor, width * em);
     [
         x0,
@@ -86,11 +110,29 @@ pub fn box_rect(at: Xy, anchor: &str, width: f64, em: f64) -> Rect {
 }
 
 /// The left end of words `w` wide anchored at `x`.
-fn left(x: f64, anchor: &str, w: f64) -> f64 {
+fn left(x: f64, anchor: Anchor, w: f64) -> f64 {
     match anchor {
-        "middle" => x - w / 2.0,
-        "end" => x - w,
-        _ => x,
+        Anchor::Middle => x - w / 2.0,
+        Anchor::End => x - w,
+        Anchor::Start => x,
+    }
+}
+
+/// The larger of two numbers (a comparison: `f64::max` can be a library call).
+fn mx(a: f64, b: f64) -> f64 {
+    if a > b {
+        a
+    } else {
+        b
+    }
+}
+
+/// The smaller of two numbers.
+fn mn(a: f64, b: f64) -> f64 {
+    if a < b {
+        a
+    } else {
+        b
     }
 }
 
@@ -106,34 +148,19 @@ pub fn overlap(a: Rect, b: Rect) -> bool {
 
 /// Distance from a point to a rectangle (0 inside).
 pub fn point_rect(p: Xy, r: Rect) -> f64 {
-    let dx = (r[0] - p[0]).max(p[0] - r[2]).max(0.0);
-    let dy = (r[1] - p[1]).max(p[1] - r[3]).max(0.0);
+    let dx = mx(mx(r[0] - p[0], p[0] - r[2]), 0.0);
+    let dy = mx(mx(r[1] - p[1], p[1] - r[3]), 0.0);
     (dx * dx + dy * dy).sqrt()
-}
-
-/// Distance from a point to the segment `a`–`b`.
-fn point_seg(p: Xy, a: Xy, b: Xy) -> f64 {
-    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
-    let len2 = dx * dx + dy * dy;
-    let t = if len2 > 0.0 {
-        (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / len2).clamp(0.0, 1.0)
-    } else {
-        0.0
-    };
-    {
-        let (ex, ey) = (p[0] - a[0] - t * dx, p[1] - a[1] - t * dy);
-        (ex * ex + ey * ey).sqrt()
-    }
 }
 
 /// Whether the segment `a`–`b` passes through the rectangle (touching counts): their boxes
 /// overlap and the rectangle's corners do not all lie on one side of the segment's line (the
 /// separating axes of a segment and a rectangle).
 fn seg_hits_rect(a: Xy, b: Xy, r: Rect) -> bool {
-    if a[0].max(b[0]) < r[0]
-        || a[0].min(b[0]) > r[2]
-        || a[1].max(b[1]) < r[1]
-        || a[1].min(b[1]) > r[3]
+    if mx(a[0], b[0]) < r[0]
+        || mn(a[0], b[0]) > r[2]
+        || mx(a[1], b[1]) < r[1]
+        || mn(a[1], b[1]) > r[3]
     {
         return false;
     }
@@ -146,20 +173,6 @@ fn seg_hits_rect(a: Xy, b: Xy, r: Rect) -> bool {
         side(r[0], r[3]),
     ];
     !(s.iter().all(|&v| v > 0.0) || s.iter().all(|&v| v < 0.0))
-}
-
-/// Distance from the segment `a`–`b` to a rectangle (0 when it passes through): for two convex
-/// shapes apart, the nearest pair has a corner of one on the other.
-pub fn seg_rect(a: Xy, b: Xy, r: Rect) -> f64 {
-    if seg_hits_rect(a, b, r) {
-        return 0.0;
-    }
-    let corners = [[r[0], r[1]], [r[2], r[1]], [r[2], r[3]], [r[0], r[3]]];
-    let ends = point_rect(a, r).min(point_rect(b, r));
-    corners
-        .iter()
-        .map(|&c| point_seg(c, a, b))
-        .fold(ends, f64::min)
 }
 
 /// A drawn shape a label keeps off.
@@ -193,15 +206,6 @@ pub enum Shape {
 }
 
 impl Shape {
-    /// Distance from the shape's centre line (or its disc) to the rectangle.
-    pub fn distance(&self, r: Rect) -> f64 {
-        match *self {
-            Shape::Seg { a, b, .. } => seg_rect(a, b, r),
-            Shape::Disc { c, r: radius } => (point_rect(c, r) - radius).max(0.0),
-            Shape::Ring { c, r: radius, .. } => (point_rect(c, r) - radius).max(0.0),
-        }
-    }
-
     /// Whether the shape comes within `m` of the rectangle (a segment's test counts the
     /// rectangle's corners as square, up to 0.41 of `m` and the half width more).
     pub fn meets(&self, r: Rect, m: f64) -> bool {
@@ -211,11 +215,11 @@ impl Shape {
             Shape::Seg { a, b, half } => seg_hits_rect(a, b, grow(r, half + m)),
             Shape::Disc { c, r: radius } => point_rect(c, r) < radius + m,
             Shape::Ring { c, r: radius, half } => {
-                let far = [[r[0], r[1]], [r[2], r[1]], [r[2], r[3]], [r[0], r[3]]]
-                    .iter()
-                    .map(|p| (p[0] - c[0]).powi(2) + (p[1] - c[1]).powi(2))
-                    .fold(0.0, f64::max);
-                point_rect(c, r) < radius + half + m && far > (radius - half - m).max(0.0).powi(2)
+                // The farthest corner, squared: the larger offset on each axis.
+                let dx = mx(c[0] - r[0], r[2] - c[0]);
+                let dy = mx(c[1] - r[1], r[3] - c[1]);
+                let inner = mx(radius - half - m, 0.0);
+                point_rect(c, r) < radius + half + m && dx * dx + dy * dy > inner * inner
             }
         }
     }
@@ -238,8 +242,6 @@ pub mod cost {
     pub const RIM: f64 = 20.0;
     /// A thin line.
     pub const THIN: f64 = 3.0;
-    /// Overlapping another label or leaving the view box: never, while a clear spot exists.
-    pub const NEVER: f64 = 1.0e6;
 }
 
 /// A shape, what crossing it costs, and the box within which a label's ink meets it.
@@ -259,8 +261,8 @@ impl Obstacle {
     pub fn new(shape: Shape, cost: f64) -> Self {
         let (lo, hi, m) = match shape {
             Shape::Seg { a, b, half } => (
-                [a[0].min(b[0]), a[1].min(b[1])],
-                [a[0].max(b[0]), a[1].max(b[1])],
+                [mn(a[0], b[0]), mn(a[1], b[1])],
+                [mx(a[0], b[0]), mx(a[1], b[1])],
                 half,
             ),
             Shape::Ring { c, r, half } => (c, c, r + half),
@@ -279,13 +281,13 @@ impl Obstacle {
     }
 }
 
-/// A label's spot: its anchor point (on the baseline) and SVG `text-anchor`.
+/// A label's spot: its anchor point (on the baseline) and which point of the words it is.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Spot {
     /// The anchor point, kernel axes.
     pub at: Xy,
-    /// `start`, `middle` or `end`.
-    pub anchor: &'static str,
+    /// Which point of the words `at` is.
+    pub anchor: Anchor,
 }
 
 /// A candidate spot and the cost of straying there from the label's first choice.
@@ -293,11 +295,13 @@ pub struct Spot {
 pub struct Candidate {
     /// The spot.
     pub spot: Spot,
-    /// The cost of straying ([`cost`]'s scale: a thin line crossed is 3).
+    /// The cost of straying there, on [`cost`]'s scale (a thin line crossed is 3): from the
+    /// label's first choice, and [`STRAY_PER_MM`] a millimetre farther from what it belongs to.
     pub stray: f64,
 }
 
-/// What labels keep off, the view box and the type size.
+/// What labels keep off, the view box and the type size; and buffers reused from one label
+/// to the next.
 pub struct Board<'a> {
     /// The view box, kernel axes.
     pub view: Rect,
@@ -307,97 +311,133 @@ pub struct Board<'a> {
     pub shapes: &'a [Obstacle],
     /// Places no label's box may overlap (under the page's buttons).
     pub keep_out: &'a [Rect],
+    /// Reused: the candidates' order and inks.
+    pub scratch: Scratch,
+}
+
+/// A buffer [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
+#[derive(Default)]
+pub struct Scratch {
+    order: Vec<(u16, Rect)>,
 }
 
 impl Board<'_> {
-    /// The cheapest of `candidates` for a label `width` em wide that belongs to `target`
-    /// (its line or mark), keeping off `extra` shapes (the label's own posture's rider and
-    /// lines) and `placed` (the boxes of the labels it may be seen with). Each candidate's stray
-    /// grows by [`STRAY_PER_MM`] for each millimetre its box lies farther than [`NEAR_MM`] from
-    /// the target; of equal costs the first wins. The first candidate when there is none.
+    /// The cheapest of `candidates` for a label `width` em wide, keeping off `extra` shapes (the
+    /// label's own posture's rider and lines) and `placed` (the text boxes, [`box_rect`], of the
+    /// labels it may be seen with), and inside the view box and off [`Board::keep_out`]; of
+    /// equal costs, one of the least stray. The first candidate when none keeps inside and off
+    /// the other labels.
     pub fn choose(
-        &self,
+        &mut self,
         width: f64,
-        target: Shape,
         candidates: &[Candidate],
         extra: &[Obstacle],
         placed: &[Rect],
     ) -> Spot {
-        let tried: Vec<(f64, Rect, Spot)> = candidates
-            .iter()
-            .map(|c| {
-                let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
-                let far = (target.distance(r) - NEAR_MM).max(0.0);
-                (c.stray + STRAY_PER_MM * far, r, c.spot)
-            })
-            .collect();
-        // Only the shapes within reach of some candidate.
-        let all = tried
-            .iter()
-            .fold([f64::MAX, f64::MAX, f64::MIN, f64::MIN], |u, (_, r, _)| {
-                [
-                    u[0].min(r[0]),
-                    u[1].min(r[1]),
-                    u[2].max(r[2]),
-                    u[3].max(r[3]),
-                ]
-            });
-        let mut near: Vec<&Obstacle> = self
-            .shapes
-            .iter()
-            .chain(extra)
-            .filter(|o| overlap(o.reach, all))
-            .collect();
-        // The costliest first: a candidate is dropped as soon as it costs more than the best.
-        near.sort_unstable_by(|a, b| b.cost.total_cmp(&a.cost));
-        let mut best: Option<(f64, Spot)> = None;
-        for (stray, r, spot) in tried {
-            if best.is_some_and(|(b, _)| stray >= b) {
+        let first = candidates.first().map(|c| c.spot);
+        // The least stray first, by a counting sort on whole quarters of a point (a tenth of the
+        // work of sorting the floats): once a candidate's quarter costs as much as the best, so
+        // does every later one's. With each candidate, its ink.
+        let quarter = |c: &Candidate| {
+            let q = c.stray * 4.0;
+            if q >= (QUARTERS - 1) as f64 {
+                QUARTERS - 1
+            } else if q > 0.0 {
+                q as usize
+            } else {
+                0
+            }
+        };
+        let mut starts = [0u16; QUARTERS + 1];
+        for c in candidates {
+            if let Some(n) = starts.get_mut(quarter(c) + 1) {
+                *n += 1;
+            }
+        }
+        for i in 1..starts.len() {
+            let before = starts.get(i - 1).copied().unwrap_or(0);
+            if let Some(n) = starts.get_mut(i) {
+                *n += before;
+            }
+        }
+        let order = &mut self.scratch.order;
+        order.clear();
+        order.resize(candidates.len(), (0, [0.0; 4]));
+        let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
+        for (i, c) in candidates.iter().enumerate() {
+            let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
+            all = [
+                mn(all[0], r[0]),
+                mn(all[1], r[1]),
+                mx(all[2], r[2]),
+                mx(all[3], r[3]),
+            ];
+            if let Some(at) = starts.get_mut(quarter(c)) {
+                if let Some(slot) = order.get_mut(usize::from(*at)) {
+                    *slot = (i as u16, r);
+                }
+                *at += 1;
+            }
+        }
+        // Only the shapes within reach of some candidate (the costliest first, as given: a
+        // candidate is dropped as soon as it costs more than the best).
+        let mut near: Vec<&Obstacle> = Vec::with_capacity(64);
+        near.extend(
+            self.shapes
+                .iter()
+                .chain(extra)
+                .filter(|o| overlap(o.reach, all)),
+        );
+        let mut best = (f64::INFINITY, first);
+        for &(i, r) in order.iter() {
+            let Some(c) = candidates.get(usize::from(i)) else {
+                continue;
+            };
+            if quarter(c) as f64 / 4.0 >= best.0 {
+                break;
+            }
+            if c.stray >= best.0 {
                 continue;
             }
-            let mut total = stray;
+            let spot = c.spot;
             let b = box_rect(spot.at, spot.anchor, width, self.em);
             let inside = b[0] >= self.view[0]
                 && b[1] >= self.view[1]
                 && b[2] <= self.view[2]
                 && b[3] <= self.view[3];
+            let halo = grow(b, HALO_MM);
             if !inside
                 || self.keep_out.iter().any(|k| overlap(b, *k))
-                || placed.iter().any(|p| overlap(grow(b, HALO_MM), *p))
+                || placed.iter().any(|p| overlap(halo, *p))
             {
-                total += cost::NEVER;
+                continue;
             }
-            for o in &near {
-                if best.is_some_and(|(b, _)| total >= b) {
+            let mut total = c.stray;
+            for o in near.iter() {
+                if total >= best.0 {
                     break;
                 }
                 if o.meets(r) {
                     total += o.cost;
                 }
             }
-            if best.is_none_or(|(b, _)| total < b) {
-                best = Some((total, spot));
+            if total < best.0 {
+                best = (total, Some(spot));
             }
         }
-        best.map_or(
-            candidates.first().map_or(
-                Spot {
-                    at: [0.0, 0.0],
-                    anchor: "start",
-                },
-                |c| c.spot,
-            ),
-            |(_, s)| s,
-        )
+        best.1.unwrap_or(Spot {
+            at: [0.0, 0.0],
+            anchor: Anchor::Start,
+        })
     }
 }
 
-/// How far a label's box may lie from its line or mark at no cost, mm: the gap a label keeps
-/// from its line and its halo.
-pub const NEAR_MM: f64 = 30.0;
+/// How many quarter points of stray the candidates are sorted into ([`Board::choose`]): up
+/// to 32 points, more is sorted last.
+const QUARTERS: usize = 128;
 
-/// The cost of each millimetre farther: 60 mm (a thin line's worth) per 3 points, so a label
-/// moves about 600 mm rather than cross a limb, never so far as to leave its line for a tube.
+/// The stray cost of each millimetre a label lies farther from what it belongs to: 60 mm per
+/// thin line crossed ([`cost::THIN`]), 600 mm per limb ([`cost::LIMB`]).
 pub const STRAY_PER_MM: f64 = 0.05;
 
 #[cfg(test)]
@@ -407,22 +447,34 @@ mod tests {
     #[test]
     fn segments_and_rectangles() {
         let r = [0.0, 0.0, 10.0, 5.0];
-        assert_eq!(
-            seg_rect([-5.0, 2.0], [15.0, 2.0], r),
-            0.0,
+        assert!(
+            seg_hits_rect([-5.0, 2.0], [15.0, 2.0], r),
             "straight through"
         );
-        assert_eq!(seg_rect([2.0, 8.0], [8.0, 8.0], r), 3.0, "above, parallel");
-        assert_eq!(
-            seg_rect([13.0, 9.0], [20.0, 9.0], r),
-            5.0,
-            "off the corner (3, 4)"
+        assert!(seg_hits_rect([2.0, 2.0], [3.0, 3.0], r), "inside");
+        assert!(
+            !seg_hits_rect([10.0, 6.0], [11.0, 5.0], r),
+            "0.7 off the corner (10, 5)"
         );
-        assert!((seg_rect([12.0, 0.0], [16.0, 8.0], r) - 2.0).abs() < 1e-12);
-        // A diagonal passing the corner (10, 5) at a distance of √2 / 2.
-        let d = seg_rect([10.0, 6.0], [11.0, 5.0], r);
-        assert!((d - 0.5_f64.sqrt()).abs() < 1e-12, "{d}");
+        assert!(!seg_hits_rect([2.0, 8.0], [8.0, 8.0], r), "above, parallel");
+        // Its box overlaps the rectangle's, but it passes the corner (10, 5) above and right.
+        assert!(
+            !seg_hits_rect([9.0, 7.0], [13.0, 4.0], r),
+            "past the corner"
+        );
+        assert!(
+            seg_hits_rect([9.0, 5.5], [13.0, 2.5], r),
+            "cutting the corner"
+        );
         assert_eq!(point_rect([5.0, 2.0], r), 0.0);
+        assert_eq!(point_rect([13.0, 9.0], r), 5.0, "off the corner by (3, 4)");
+        let tube = Shape::Seg {
+            a: [-5.0, 8.0],
+            b: [15.0, 8.0],
+            half: 2.0,
+        };
+        assert!(!tube.meets(r, 0.5), "3 mm above, 2.5 mm reach");
+        assert!(tube.meets(r, 1.5), "3.5 mm reach");
     }
 
     #[test]
@@ -458,16 +510,17 @@ mod tests {
             },
             cost::FRAME,
         )];
-        let board = Board {
+        let mut board = Board {
             view: [-1000.0, -1000.0, 1000.0, 1000.0],
             em: 10.0,
             shapes: &shapes,
             keep_out: &[],
+            scratch: Scratch::default(),
         };
         let at = |x: f64, stray: f64| Candidate {
             spot: Spot {
                 at: [x, 0.0],
-                anchor: "start",
+                anchor: Anchor::Start,
             },
             stray,
         };
@@ -479,11 +532,7 @@ mod tests {
             at(980.0, 0.5),
         ];
         let placed = [[25.0, -5.0, 40.0, 5.0]];
-        let near = Shape::Disc {
-            c: [0.0, 0.0],
-            r: 2000.0,
-        };
-        let s = board.choose(3.0, near, &c, &[], &placed);
+        let s = board.choose(3.0, &c, &[], &placed);
         assert_eq!(s.at, [200.0, 0.0], "the last runs out of the view box");
     }
 }
