@@ -384,12 +384,20 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
     for (k, t) in [0.5, 0.35, 0.65, 0.2, 0.8].into_iter().enumerate() {
         beside(lerp(c, contact, t), d, 0.5 * k as f64, &mut v);
     }
+    // Inside the wheel, where nothing beside the line is clear: under the hub (and lower, under
+    // a chainstay sloping from the hub), or over it; centred on the axle or moved along.
     for k in 0..=4 {
-        let dx = 30.0 * f64::from(k);
-        let s = 1.0 + 0.3 * f64::from(k);
+        let dx = 40.0 * f64::from(k);
         for x in [axle[0] - dx, axle[0] + dx] {
-            v.push(cand([x, below(axle[1], 10.0 + GAP)], Middle, s));
-            v.push(cand([x, above(axle[1], 10.0 + GAP)], Middle, s + 1.0));
+            for (j, drop) in [0.0, 40.0, 80.0].into_iter().enumerate() {
+                let s = 4.0 + 0.3 * f64::from(k) + 0.5 * j as f64;
+                v.push(cand([x, below(axle[1], 10.0 + GAP + drop)], Middle, s));
+            }
+            v.push(cand(
+                [x, above(axle[1], 10.0 + GAP)],
+                Middle,
+                5.0 + 0.3 * f64::from(k),
+            ));
         }
     }
     for x in &mut v {
