@@ -6,7 +6,8 @@
 // times the drawing's scale (CSS px per mm). Its bounding box is about 1.16 em tall (the font's
 // ascent and descent), so the old 9.5 px type on a 360 px phone measured an 11 px box.
 // Before the phone type: 64 mm everywhere, 9.5 px (box 11 px) at 360×740, 14.1 px (box 16 px)
-// at 1280×800.
+// at 1280×800. Before the labels were placed (crates/draw layout.rs): up to 80 mm, 11.9 px at
+// 360×740, 10 px at 568×320, and reach on the top tube, descent on the fork and front tyre.
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';

@@ -39,13 +39,16 @@ use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::{BikeReport, Outline};
 use shapes::PathData;
 
-/// The labels' type size on a desk, mm of drawing (`.bike-drawing .label` in web/style.css).
+/// The labels' type size on a desk, mm of drawing (`.bike-drawing .label` in web/style.css):
+/// about 14 px in the demo's 496 px tall drawing at 1280×800.
 pub const LABEL_EM_MM: f64 = 61.0;
 
 /// The largest type size the page sets the labels in, mm of drawing: on a small drawing the page
-/// makes them larger, so that they stay about 12 px on the screen (80 mm on a 360 px phone,
-/// web/style.css). Labels are placed so that they keep off each other at every size from
-/// [`LABEL_EM_MM`] to this one (tests.rs).
+/// makes them larger, so that they stay about 12 px on the screen (about 79 mm on a 360 px
+/// phone, 86 mm in the 304 px tall drawing of a 568×320 phone held sideways, web/style.css).
+/// Labels are placed for this size ([`layout`]): in smaller type each stays inside its spot, so
+/// they keep off the bike and each other at every size from [`LABEL_EM_MM`] to this one
+/// (tests/labels.rs).
 pub const LABEL_EM_MAX_MM: f64 = 86.0;
 
 /// The handling limits written on the centre-of-mass lines, for one posture.
