@@ -2,7 +2,9 @@
 //! thin line between kernel points with its number from the report (hidden unless the page
 //! shows them). The lines are one part; each label keeps its own group `dim dim-{key}`.
 
+use crate::layout::Spots;
 use crate::model::Node;
+use crate::place::{width_em, ASCENT_EM, BOX_DESCENT_EM, HALO_MM};
 use crate::shapes::{join, num, text, PathData};
 use framewise_kernel::glossary::short_label;
 use framewise_kernel::report::{Numbers, Xy};
@@ -11,16 +13,16 @@ use framewise_kernel::Outline;
 /// How far a dimension line stands off the part it measures, mm of drawing.
 const OFF: f64 = 70.0;
 
-/// How far the wheelbase line lies below the ground, mm: below the trail line (half [`OFF`]),
-/// with room under it for the labels of both (see [`BELOW_LINE`]).
-const WHEELBASE_DROP: f64 = 60.0;
+/// How far the trail line lies below the ground, mm (half [`OFF`]).
+const TRAIL_DROP: f64 = OFF / 2.0;
 
-/// The wheelbase and trail labels' baseline below the wheelbase line, mm: the ascenders of the
-/// largest type (0.76 × [`crate::LABEL_EM_MAX_MM`], 61 mm), the labels' halo
-/// (`stroke-width: 18` in web/style.css) and a gap, so that no halo cuts the line; the type's
-/// box, 0.2 em under the baseline, stays inside the view box (at least 160 mm below the ground,
-/// [`crate::view::fit`]).
-const BELOW_LINE: f64 = 80.0;
+/// The gap between a row of labels' ink and the line above it, mm: the labels' halo
+/// ([`HALO_MM`]) and a little more, so that no halo cuts the line.
+const UNDER_LINE: f64 = HALO_MM + 6.0;
+
+/// The largest type's ink above its baseline and text box below it, mm.
+const ASCENT: f64 = ASCENT_EM * crate::LABEL_EM_MAX_MM;
+const BOX_DESCENT: f64 = BOX_DESCENT_EM * crate::LABEL_EM_MAX_MM;
 
 /// The BB-to-grip label's baseline above the grip, mm (its start is [`GRIP_LABEL_AHEAD`] ahead
 /// of the grip).
@@ -29,124 +31,156 @@ pub const GRIP_LABEL_RISE: f64 = 30.0;
 /// The BB-to-grip label's start ahead of the grip, mm.
 pub const GRIP_LABEL_AHEAD: f64 = 40.0;
 
-/// The BB-to-grip label's width, estimated for the largest type, mm: "BB to grip 1000", 15
-/// characters at 0.6 em each (the estimate tests.rs uses) of [`crate::LABEL_EM_MAX_MM`]. The
-/// view box reaches past its end ([`crate::view::fit`]): on a bike whose grip is far forward (a
-/// road bike's hoods) the label would otherwise run off the drawing's edge.
-pub const GRIP_LABEL_WIDTH: f64 = 15.0 * 0.6 * crate::LABEL_EM_MAX_MM;
-
-/// One dimension: the line from `a` to `b` and the label at `at`.
-struct Dim {
-    key: &'static str,
-    a: Xy,
-    b: Xy,
-    at: Xy,
-    anchor: &'static str,
+/// The BB-to-grip label's width in the largest type, mm. The view box reaches past its end
+/// ([`crate::view::fit`]): on a bike whose grip is far forward (a road bike's hoods) the label
+/// would otherwise run off the drawing's edge.
+pub fn grip_label_width(n: &Numbers) -> f64 {
+    let v = n.get("bb_to_grip_mm").copied().unwrap_or(1000.0);
+    width_em(&words_of("bb_to_grip_mm", v)) * crate::LABEL_EM_MAX_MM
 }
 
-/// Where each label goes, chosen so that on the demo bike (and bikes like it) no label lies on a
-/// tyre or on another label in any type size the page uses, [`crate::LABEL_EM_MM`] to
-/// [`crate::LABEL_EM_MAX_MM`] (tested in `tests.rs` and tests/browser/labels.test.mjs): reach
-/// above its line; stack beside its line, halfway between the head tube top and the front tyre;
-/// wheelbase and trail below the ground, trail from the front contact forward (centred under its
-/// short line, it met the wheelbase label on a road bike); BB height low between the wheels,
-/// centred between the axles like the wheelbase, its line ending on it (the widest room between
-/// the tyres: beside the foot of its line, the largest type reached the front tyre); BB-to-grip
-/// beyond the grip.
-fn dims_of(o: &Outline) -> Vec<Dim> {
-    let t = o.head_top;
-    let gy = o.ground_y;
-    let ry = t[1];
-    let sx = t[0] + OFF * 2.0;
-    let wy = gy - WHEELBASE_DROP;
-    let (r, f) = (o.rear_axle[0], o.front_axle[0]);
-    let ty = gy - OFF / 2.0;
-    let (c, s) = (o.front_contact[0], o.steer_ground[0]);
-    // The top of the front tyre, stroke included, and the baseline that centres a label
-    // between it and the head tube top.
-    let tyre_top = o.front_axle[1] + o.front_radius + TYRE_HALF_STROKE;
-    let stack_y = (t[1] + tyre_top) / 2.0 - LABEL_MID;
-    let d = |key, a, b, at, anchor| Dim {
-        key,
-        a,
-        b,
-        at,
-        anchor,
+/// Where the labels below the ground go. The trail line lies just below the ground and the
+/// wheelbase line under it, its label in a row under it, the trail label in that row from the
+/// front contact forward. BB height's label goes low between the tyres, on the ground line if
+/// need be; where it does not fit there in the largest type (a short wheelbase, large wheels),
+/// it goes under the ground below its line, with the trail label, in a row of its own above the
+/// wheelbase line, which moves down a row.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Below {
+    /// Whether BB height's label goes below the ground.
+    pub bb_height: bool,
+    ground: f64,
+}
+
+impl Below {
+    /// The rows of an outline, for BB height's words from `n`.
+    pub fn of(o: &Outline, n: &Numbers) -> Self {
+        let v = n.get("bb_height_mm").copied().unwrap_or(0.0);
+        let w = width_em(&words_of("bb_height_mm", v)) * crate::LABEL_EM_MAX_MM;
+        Below {
+            bb_height: !fits_between_tyres(o, w),
+            ground: o.ground_y,
+        }
+    }
+
+    /// The trail line's height.
+    pub fn trail_y(&self) -> f64 {
+        self.ground - TRAIL_DROP
+    }
+
+    /// The baseline of the row under the trail line (BB height and trail), when there is one:
+    /// its ink [`UNDER_LINE`] under the trail line.
+    pub fn upper_baseline(&self) -> f64 {
+        self.trail_y() - UNDER_LINE - ASCENT
+    }
+
+    /// The wheelbase line's height: under the trail line, or under the upper row.
+    pub fn wheelbase_y(&self) -> f64 {
+        if self.bb_height {
+            self.upper_baseline() - BOX_DESCENT - UNDER_LINE
+        } else {
+            self.ground - TRAIL_DROP - 20.0
+        }
+    }
+
+    /// The baseline of the row under the wheelbase line.
+    pub fn wheelbase_baseline(&self) -> f64 {
+        self.wheelbase_y() - UNDER_LINE - ASCENT
+    }
+
+    /// How far below the ground the lowest label's text box reaches, mm.
+    pub fn depth(&self) -> f64 {
+        self.ground - (self.wheelbase_baseline() - BOX_DESCENT)
+    }
+}
+
+/// Whether a label `w` mm wide in the largest type fits between the tyres, centred between the
+/// axles with its ink centred on the ground line (the lowest of its spots there): the room
+/// between the tyres' outer edges (stroke and halo included) at the ink's top.
+fn fits_between_tyres(o: &Outline, w: f64) -> bool {
+    let top = o.ground_y + ASCENT / 2.0 + HALO_MM;
+    let half = |axle: Xy, r: f64| {
+        let (big, dy) = (r + 15.0 + HALO_MM, axle[1] - top);
+        if dy >= big {
+            0.0
+        } else {
+            (big * big - dy * dy).sqrt()
+        }
     };
+    let room = (o.front_axle[0] - half(o.front_axle, o.front_radius))
+        - (o.rear_axle[0] + half(o.rear_axle, o.rear_radius));
+    room >= w
+}
+
+/// One dimension: its key and its line from `a` to `b`.
+pub struct Dim {
+    /// The report's key.
+    pub key: &'static str,
+    /// One end of the line.
+    pub a: Xy,
+    /// The other end.
+    pub b: Xy,
+}
+
+/// The dimension lines: reach at the head tube top's height from above the BB to it; stack
+/// [`OFF`] twice ahead of the head tube top, from the BB's height up; wheelbase below the
+/// ground between the axles; BB height [`OFF`] behind the BB, from the ground up (from its
+/// label's top when that is below the ground); trail just below the ground from the front
+/// contact to the steering axis's foot; BB to grip from the BB to the grip. Their labels are
+/// placed by [`crate::layout`].
+pub fn dims_of(o: &Outline, below: &Below) -> Vec<Dim> {
+    let t = o.head_top;
+    let sx = t[0] + OFF * 2.0;
+    let wy = below.wheelbase_y();
+    let ty = below.trail_y();
+    let (c, s) = (o.front_contact[0], o.steer_ground[0]);
+    let foot = if below.bb_height {
+        below.upper_baseline() + ASCENT
+    } else {
+        o.ground_y
+    };
+    let d = |key, a, b| Dim { key, a, b };
     let mut v = vec![
-        d(
-            "reach_mm",
-            [0.0, ry],
-            [t[0], ry],
-            [t[0] / 2.0, ry + 25.0],
-            "middle",
-        ),
-        d(
-            "stack_mm",
-            [sx, 0.0],
-            [sx, t[1]],
-            [sx + 20.0, stack_y],
-            "start",
-        ),
-        d(
-            "wheelbase_mm",
-            [r, wy],
-            [f, wy],
-            [(r + f) / 2.0, wy - BELOW_LINE],
-            "middle",
-        ),
-        d(
-            "bb_height_mm",
-            [-OFF, gy],
-            [-OFF, 0.0],
-            [(r + f) / 2.0, gy + 22.0],
-            "middle",
-        ),
-        d("trail_mm", [c, ty], [s, ty], [c, wy - BELOW_LINE], "start"),
+        d("reach_mm", [0.0, t[1]], [t[0], t[1]]),
+        d("stack_mm", [sx, 0.0], [sx, t[1]]),
+        d("wheelbase_mm", [o.rear_axle[0], wy], [o.front_axle[0], wy]),
+        d("bb_height_mm", [-OFF, foot], [-OFF, 0.0]),
+        d("trail_mm", [c, ty], [s, ty]),
     ];
     if let Some(ck) = &o.cockpit {
-        v.push(d(
-            "bb_to_grip_mm",
-            [0.0, 0.0],
-            ck.grip,
-            [ck.grip[0] + GRIP_LABEL_AHEAD, ck.grip[1] + GRIP_LABEL_RISE],
-            "start",
-        ));
+        v.push(d("bb_to_grip_mm", [0.0, 0.0], ck.grip));
     }
     v
 }
-
-/// Half the tyre's stroke width in the page's CSS (`.tyre { stroke-width: 30 }`), mm.
-const TYRE_HALF_STROKE: f64 = 15.0;
-/// From a label's baseline to the middle of its capitals: about 0.35 of the 64 mm type, mm.
-const LABEL_MID: f64 = 22.0;
 
 /// The words of a dimension label: its name and number, a length without its unit (millimetres,
 /// as in a dimensioned drawing; the tables say the unit), so that the labels fit in the phone's
 /// larger type ([`crate::LABEL_EM_MAX_MM`]: "BB height 337 mm" was wider than the room between
 /// the tyres). Names are the glossary's short ones ("BB to grip",
 /// [`framewise_kernel::glossary::SHORT_LABELS`]) so that the label fits beside the front wheel.
-fn words_of(key: &str, v: f64) -> String {
+pub fn words_of(key: &str, v: f64) -> String {
     let unit = if key.ends_with("_deg") { "°" } else { "" };
     let name = short_label(key).unwrap_or(key);
     format!("{name} {}{unit}", num(v, 0))
 }
 
-/// The dimension group of one outline.
-pub fn dimensions(o: &Outline, n: &Numbers) -> Node {
+/// The dimension group of one outline, its rows below the ground `below`, its labels placed in
+/// `spots` (a dimension the report lacks has no label there, and no line).
+pub fn dimensions(o: &Outline, below: &Below, mut spots: Spots) -> Node {
     let mut lines = PathData::new();
     let mut labels = Vec::new();
-    for dim in dims_of(o) {
-        let Some(v) = n.get(dim.key) else { continue };
-        let words = words_of(dim.key, *v);
+    for dim in dims_of(o, below) {
+        let Some(l) = spots.take_dim(dim.key) else {
+            continue;
+        };
         lines = lines.line(dim.a, dim.b);
         labels.push(Node::Group {
             class: join(&["dim dim-", dim.key]),
             children: vec![text(
                 join(&["dim-", dim.key]),
-                dim.at,
-                words,
-                dim.anchor,
+                l.spot.at,
+                l.words,
+                l.spot.anchor.svg(),
                 "label dim-label",
             )],
         });

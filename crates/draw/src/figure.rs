@@ -1,8 +1,8 @@
 //! The rider figure and the centre of mass with its lines to the tyre contacts.
 
+use crate::layout::LimitSpots;
 use crate::model::Node;
-use crate::shapes::{join, mid, num, text, PathData};
-use crate::Limits;
+use crate::shapes::{join, num, text, PathData};
 use framewise_kernel::report::{Leg, RiderFigure, Xy};
 use framewise_kernel::Outline;
 
@@ -57,30 +57,20 @@ pub fn rider(f: &RiderFigure, posture: &str) -> Node {
     }
 }
 
-/// The step of the handling labels' positions, mm: a label stays put while the centre of mass
-/// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
-const LABEL_STEP_MM: f64 = 10.0;
-
-fn snap(p: Xy) -> Xy {
-    p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
+/// The braking limit's words.
+pub fn braking_words(g: f64) -> String {
+    format!("braking limit {} g", num(g, 2))
 }
 
-/// The braking label's baseline height: 30 mm above the centre of mass, but when the grip is
-/// known never lower than clear above the BB-to-grip dimension label (baseline
-/// [`crate::dims::GRIP_LABEL_RISE`] above the grip), whose line it would otherwise share on
-/// most bikes: that label's capitals (0.75 em) and this one's descenders (0.25 em) in the
-/// largest type ([`crate::LABEL_EM_MAX_MM`]) and a 16 mm gap, rounded up to the labels' grid
-/// (so [`snap`] keeps it). The same with the dimensions hidden, so showing them moves nothing.
-fn braking_label_y(c: Xy, o: &Outline) -> f64 {
-    let own = c[1] + 30.0;
-    let Some(ck) = &o.cockpit else { return own };
-    let clear = ck.grip[1] + crate::dims::GRIP_LABEL_RISE + crate::LABEL_EM_MAX_MM + 16.0;
-    own.max((clear / LABEL_STEP_MM).ceil() * LABEL_STEP_MM)
+/// A slope limit's words: the steepest descent (`front`) or climb.
+pub fn slope_words(front: bool, deg: f64) -> String {
+    let what = if front { "descent" } else { "climb" };
+    format!("{what} {}°", num(deg, 0))
 }
 
-/// The centre of mass, its lines to both contact points, and the limits written on them (at
-/// positions on a [`LABEL_STEP_MM`] grid).
-pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
+/// The centre of mass, its lines to both contact points, and the limits written on them, placed
+/// by [`crate::layout`] (braking, climb, descent, as the posture has them).
+pub fn com(c: Xy, o: &Outline, spots: LimitSpots, posture: &str) -> Node {
     let k = |name: &str| join(&[posture, "-", name]);
     let mut kids = vec![
         PathData::new()
@@ -96,32 +86,20 @@ pub fn com(c: Xy, o: &Outline, limits: &Limits, posture: &str) -> Node {
             .node(k("com-cross"), "com-cross"),
     ];
     let class = "label com-label";
-    if let Some(b) = limits.braking_g {
-        kids.push(text(
-            k("braking"),
-            snap([c[0] + 40.0, braking_label_y(c, o)]),
-            format!("braking limit {} g", num(b, 2)),
-            "start",
-            class,
-        ));
-    }
-    if let Some(d) = limits.climb_deg {
-        kids.push(text(
-            k("climb"),
-            snap(mid(c, o.rear_contact)),
-            format!("climb {}°", num(d, 0)),
-            "end",
-            class,
-        ));
-    }
-    if let Some(d) = limits.descent_deg {
-        kids.push(text(
-            k("descent"),
-            snap(mid(c, o.front_contact)),
-            format!("descent {}°", num(d, 0)),
-            "start",
-            class,
-        ));
+    for (what, label) in [
+        ("braking", spots.braking),
+        ("climb", spots.climb),
+        ("descent", spots.descent),
+    ] {
+        if let Some(l) = label {
+            kids.push(text(
+                k(what),
+                l.spot.at,
+                l.words,
+                l.spot.anchor.svg(),
+                class,
+            ));
+        }
     }
     Node::Group {
         class: "com".into(),

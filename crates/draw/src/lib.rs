@@ -23,9 +23,11 @@
 mod dims;
 mod figure;
 mod ghost;
+mod layout;
 pub mod model;
 pub mod num;
 mod parts;
+mod place;
 mod shapes;
 pub mod view;
 
@@ -37,14 +39,17 @@ use framewise_kernel::report::{Numbers, Xy};
 use framewise_kernel::{BikeReport, Outline};
 use shapes::PathData;
 
-/// The labels' type size on a desk, mm of drawing (`.bike-drawing .label` in web/style.css).
-pub const LABEL_EM_MM: f64 = 64.0;
+/// The labels' type size on a desk, mm of drawing (`.bike-drawing .label` in web/style.css):
+/// about 14 px in the demo's 496 px tall drawing at 1280×800.
+pub const LABEL_EM_MM: f64 = 61.0;
 
 /// The largest type size the page sets the labels in, mm of drawing: on a small drawing the page
-/// makes them larger, so that they stay about 12 px on the screen (80 mm on a 360 px phone,
-/// web/style.css). Labels are placed so that they keep off each other at every size from
-/// [`LABEL_EM_MM`] to this one (tests.rs).
-pub const LABEL_EM_MAX_MM: f64 = 80.0;
+/// makes them larger, so that they stay about 12 px on the screen (about 79 mm on a 360 px
+/// phone, 86 mm in the 304 px tall drawing of a 568×320 phone held sideways, web/style.css).
+/// Labels are placed for this size ([`layout`]): in smaller type each stays inside its spot, so
+/// they keep off the bike and each other at every size from [`LABEL_EM_MM`] to this one
+/// (tests/labels.rs).
+pub const LABEL_EM_MAX_MM: f64 = 86.0;
 
 /// The handling limits written on the centre-of-mass lines, for one posture.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
@@ -127,7 +132,10 @@ pub fn drawing(scene: &Scene) -> Drawing {
 pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let o = scene.ridden;
     let (stock, stock_bb) = ghost::on_ground(scene.stock, o.ground_y);
-    let view = view::steady(shown, view::fit(scene));
+    let fit = view::fit(scene);
+    let below = dims::Below::of(o, scene.numbers);
+    let mut spots = layout::spots(scene, &below, &fit);
+    let view = view::steady(shown, fit);
     let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![
         PathData::new()
@@ -136,12 +144,17 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
         parts::bike(&stock, "ghost", stock_bb),
         parts::bike(o, "ridden", [0.0, 0.0]),
     ];
-    for (fig, com, limits, posture) in [
-        (&o.rider_seated, o.com_seated, scene.seated, "seated"),
+    for (fig, com, at, posture) in [
+        (
+            &o.rider_seated,
+            o.com_seated,
+            std::mem::take(&mut spots.seated),
+            "seated",
+        ),
         (
             &o.rider_standing,
             o.com_standing,
-            scene.standing,
+            std::mem::take(&mut spots.standing),
             "standing",
         ),
     ] {
@@ -150,14 +163,14 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
             children.push(figure::rider(f, posture));
         }
         if let Some(c) = com {
-            children.push(figure::com(c, o, &limits, posture));
+            children.push(figure::com(c, o, at, posture));
         }
         nodes.push(Node::Group {
             class: shapes::join(&["posture ", posture]),
             children,
         });
     }
-    nodes.push(dims::dimensions(o, scene.numbers));
+    nodes.push(dims::dimensions(o, &below, spots));
     Drawing {
         view_box: view.attr(),
         view,

@@ -130,8 +130,9 @@ impl Drawing {
     /// Every value that depends on the numbers, element by element in document order (a ring's
     /// anchor `points` before its circle's `r`, though the circle comes first in the document):
     /// the root's `viewBox` and `aria-label`, the title's text, each polyline's `points`, each
-    /// ring's `r`, each text's `x`, `y` and text. Applying
-    /// it to a drawing of the same [`Drawing::structure`] gives this drawing.
+    /// ring's `r`, each text's `x`, `y`, text and `text-anchor` (which changes only when a label
+    /// moves to a spot of another kind, [`crate::layout`]: one text restyled). Applying it to a
+    /// drawing of the same [`Drawing::structure`] gives this drawing.
     pub fn patch(&self) -> Vec<Patch<'_>> {
         let mut out = vec![
             (ROOT_KEY, "viewBox", self.view_box.as_str()),
@@ -144,7 +145,7 @@ impl Drawing {
         out
     }
 
-    /// A short name of the element set (tags, keys, classes, anchors; no numbers, no words): a
+    /// A short name of the element set (tags, keys, classes; no numbers, no words): a
     /// 64-bit hash of them ([`NameHash`]), so two drawings that can be patched one into the
     /// other have the same name, and two that cannot differ but for a hash collision.
     pub fn structure(&self) -> String {
@@ -331,11 +332,17 @@ fn patch_of<'a>(n: &'a Node, out: &mut Vec<Patch<'a>>) {
             }
         }
         Node::Text {
-            key, x, y, words, ..
+            key,
+            x,
+            y,
+            words,
+            anchor,
+            ..
         } => out.extend([
             (key.as_str(), "x", x.as_str()),
             (key, "y", y),
             (key, "text", words),
+            (key, "text-anchor", anchor),
         ]),
     }
 }
@@ -357,13 +364,10 @@ fn shape_of(n: &Node, eat: &mut impl FnMut(&str)) {
                 eat(class);
             }
         }
-        Node::Text {
-            key, class, anchor, ..
-        } => {
+        Node::Text { key, class, .. } => {
             eat("text");
             eat(key);
             eat(class);
-            eat(anchor);
         }
     }
 }

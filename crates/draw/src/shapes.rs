@@ -149,11 +149,6 @@ pub fn text(key: String, at: Xy, words: String, anchor: &'static str, class: &st
     }
 }
 
-/// The midpoint of two kernel points (for placing a label, not for geometry).
-pub fn mid(a: Xy, b: Xy) -> Xy {
-    [(a[0] + b[0]) / 2.0, (a[1] + b[1]) / 2.0]
-}
-
 /// A number for a label: whole millimetres or tenths of a degree, never NaN.
 pub fn num(v: f64, decimals: usize) -> String {
     if v.is_finite() {

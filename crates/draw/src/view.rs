@@ -60,12 +60,13 @@ impl ViewBox {
 }
 
 /// The view box fitted to a scene: the extent of the ridden bike and the stock ghost (tyres,
-/// frame, cockpit, saddle, riders) with 80 mm at the sides, 144 mm above (room for the
-/// handling labels) and 160 mm below (the ground and the climb and descent lines), and in front
-/// at least 30 mm past the BB-to-grip label's end (the label's halo and a gap; whether or not the
-/// dimensions are shown, so that showing them does not rescale the drawing), each edge
-/// moved outward to a whole [`VIEW_STEP_MM`] step, so that an edit that moves the bike a few
-/// millimetres usually gives the same box.
+/// frame, cockpit, saddle, riders) with 80 mm at the sides and above, below the ground room
+/// for the dimension labels there ([`crate::dims::Below`]) and at least 160 mm (the climb and
+/// descent lines), and in front at least 30 mm past the BB-to-grip label's end (the label's
+/// halo and a gap; whether or not the dimensions are shown, so that showing them does not
+/// rescale the drawing), each edge moved outward to a whole [`VIEW_STEP_MM`] step, so that an
+/// edit that moves the bike a few millimetres usually gives the same box. The handling labels
+/// keep inside it ([`crate::layout`]).
 pub fn fit(scene: &Scene) -> ViewBox {
     let (x0, y0, x1, y1) = extent(scene.ridden);
     // The ghost stands on the ridden ground (ghost.rs): its extent moved with it.
@@ -79,11 +80,16 @@ pub fn fit(scene: &Scene) -> ViewBox {
     };
     let min_x = out(x0.min(gx0) - pad, false);
     let grip_label_end = scene.ridden.cockpit.as_ref().map_or(f64::MIN, |c| {
-        c.grip[0] + crate::dims::GRIP_LABEL_AHEAD + crate::dims::GRIP_LABEL_WIDTH + 30.0
+        c.grip[0]
+            + crate::dims::GRIP_LABEL_AHEAD
+            + crate::dims::grip_label_width(scene.numbers)
+            + 30.0
     });
     let max_x = out((x1.max(gx1) + pad).max(grip_label_end), true);
-    let top = out(y1.max(gy1) + pad * 1.8, true);
-    let bottom = out(y0.min(gy0) - pad * 2.0, false);
+    let top = out(y1.max(gy1) + pad, true);
+    let below = crate::dims::Below::of(scene.ridden, scene.numbers).depth();
+    let ground = scene.ridden.ground_y;
+    let bottom = out((y0.min(gy0) - 2.0 * pad).min(ground - below - 4.0), false);
     ViewBox {
         min_x,
         min_y: -top,

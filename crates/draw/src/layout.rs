@@ -1,0 +1,573 @@
+//! Where every label of a drawing goes: the dimension labels (shown with either posture) and
+//! the handling limits of each posture, placed by [`crate::place`] so that none crosses a frame
+//! tube, the fork, a tyre or another label it can be seen with, and each stays next to the line
+//! or mark it belongs to.
+//!
+//! Order: the dimensions first (their lines are fixed, so their labels have the fewest good
+//! spots), below the ground before above it; then each posture's limits, braking, descent and
+//! climb. A dimension label keeps off both riders; a posture's limits keep off that posture's
+//! rider and every dimension label, shown or not, so that showing the dimensions moves nothing.
+
+use crate::dims::{self, Below, Dim};
+use crate::place::{
+    box_rect, cost, width_em,
+    Anchor::{self, End, Middle, Start},
+    Board, Candidate, Obstacle, Rect, Scratch, Shape, Spot, ASCENT_EM, DESCENT_EM, HALO_MM,
+    STRAY_PER_MM,
+};
+use crate::{Scene, ViewBox, LABEL_EM_MAX_MM as EM};
+use framewise_kernel::report::{RiderFigure, Xy};
+use framewise_kernel::Outline;
+
+/// The gap between a label's ink and the line it sits beside, mm: its halo and a little more,
+/// so that the halo does not cut the line.
+const GAP: f64 = HALO_MM + 6.0;
+
+/// The baseline that puts a label's ink `gap` above `y`.
+fn above(y: f64, gap: f64) -> f64 {
+    y + gap + DESCENT_EM * EM
+}
+
+/// The baseline that puts a label's ink `gap` below `y`.
+fn below(y: f64, gap: f64) -> f64 {
+    y - gap - ASCENT_EM * EM
+}
+
+/// The baseline that centres a label's ink (in the largest type) on `y`.
+fn level(y: f64) -> f64 {
+    y - (ASCENT_EM - DESCENT_EM) / 2.0 * EM
+}
+
+fn cand(at: Xy, anchor: Anchor, stray: f64) -> Candidate {
+    Candidate {
+        spot: Spot { at, anchor },
+        stray,
+    }
+}
+
+/// The step of the handling labels' positions, mm: a label stays put while the centre of mass
+/// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
+pub const LABEL_STEP_MM: f64 = 10.0;
+
+fn snap(p: Xy) -> Xy {
+    p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
+}
+
+/// A label placed: its spot and its words.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Placed {
+    /// Where it goes.
+    pub spot: Spot,
+    /// What it says.
+    pub words: String,
+}
+
+/// One posture's handling labels.
+#[derive(Debug, Clone, Default)]
+pub struct LimitSpots {
+    /// "braking limit …".
+    pub braking: Option<Placed>,
+    /// "descent …°".
+    pub descent: Option<Placed>,
+    /// "climb …°".
+    pub climb: Option<Placed>,
+}
+
+/// Every label, placed.
+#[derive(Debug, Clone, Default)]
+pub struct Spots {
+    /// The dimension labels: key (`reach_mm` …) and label.
+    pub dims: Vec<(&'static str, Placed)>,
+    /// The seated limits.
+    pub seated: LimitSpots,
+    /// The standing limits.
+    pub standing: LimitSpots,
+}
+
+impl Spots {
+    /// The dimension label of a key, taken out.
+    pub fn take_dim(&mut self, key: &str) -> Option<Placed> {
+        let i = self.dims.iter().position(|(k, _)| *k == key)?;
+        Some(self.dims.swap_remove(i).1)
+    }
+}
+
+fn seg(a: Xy, b: Xy, half: f64, cost: f64) -> Obstacle {
+    Obstacle::new(Shape::Seg { a, b, half }, cost)
+}
+
+fn disc(c: Xy, r: f64, cost: f64) -> Obstacle {
+    Obstacle::new(Shape::Disc { c, r }, cost)
+}
+
+fn ring(c: Xy, r: f64, half: f64, cost: f64) -> Obstacle {
+    Obstacle::new(Shape::Ring { c, r, half }, cost)
+}
+
+/// Half a thin line's width, mm (1–2 px on the screen, about 10 mm on a phone).
+const THIN_HALF: f64 = 4.0;
+
+/// The bike's parts as shapes, with half their stroke widths in web/style.css.
+fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
+    use cost::{FRAME, PART, RIM};
+    let bb = [0.0, 0.0];
+    for (a, b) in [
+        (o.head_bottom, bb),
+        (bb, o.rear_axle),
+        (o.rear_axle, o.seat_top),
+        (o.seat_top, o.head_top),
+        (bb, o.seat_top),
+        (o.crown, o.fork_leg_top),
+    ] {
+        out.push(seg(a, b, 13.0, FRAME));
+    }
+    out.push(seg(o.head_top, o.head_bottom, 20.0, FRAME));
+    out.push(seg(o.head_bottom, o.crown, 17.0, FRAME));
+    out.push(seg(o.fork_leg_top, o.front_axle, 10.0, FRAME));
+    for (c, r, rim) in [
+        (o.rear_axle, o.rear_radius, o.rear_rim_radius),
+        (o.front_axle, o.front_radius, o.front_rim_radius),
+    ] {
+        out.push(ring(c, r, 15.0, FRAME));
+        if rim > 0.0 {
+            out.push(ring(c, rim, 4.0, RIM));
+        }
+        out.push(disc(c, 10.0, RIM));
+    }
+    out.push(disc(bb, 27.0, PART));
+    if let Some(c) = &o.cockpit {
+        out.push(seg(o.head_top, c.headset_top, 17.0, PART));
+        out.push(seg(c.headset_top, c.spacers_top, 15.0, PART));
+        out.push(seg(c.spacers_top, c.steerer_top, 17.0, PART));
+        out.push(seg(c.stem_clamp, c.bar_clamp, 13.0, PART));
+        out.push(seg(c.bar_clamp, c.grip, 9.0, PART));
+        out.push(disc(c.grip, 16.0, PART));
+    }
+    if let Some(s) = &o.seat {
+        out.push(seg(s.post_exit, s.post_top, 11.0, PART));
+        out.push(seg(s.post_top, s.saddle, 6.0, PART));
+        out.push(seg(s.saddle_tail, s.saddle_nose, 13.0, PART));
+    }
+    if let Some(c) = &o.cranks {
+        for p in [c.pedal_near, c.pedal_far] {
+            out.push(seg(bb, p, 9.0, PART));
+            out.push(seg([p[0] - 45.0, p[1]], [p[0] + 45.0, p[1]], 7.0, PART));
+        }
+    }
+}
+
+/// The stock ghost's thin dashed outline: its tubes, fork and tyres, where they are not under
+/// the ridden bike's (with no changes the ghost lies under the ridden bike, hidden).
+fn ghost(g: &Outline, g_bb: Xy, o: &Outline, out: &mut Vec<Obstacle>) {
+    let same = |a: Xy, b: Xy| (a[0] - b[0]).abs() < 2.0 && (a[1] - b[1]).abs() < 2.0;
+    let bb = [0.0, 0.0];
+    for ((a, b), (ra, rb)) in [
+        ((g.head_bottom, g_bb), (o.head_bottom, bb)),
+        ((g_bb, g.rear_axle), (bb, o.rear_axle)),
+        ((g.rear_axle, g.seat_top), (o.rear_axle, o.seat_top)),
+        ((g.seat_top, g.head_top), (o.seat_top, o.head_top)),
+        ((g_bb, g.seat_top), (bb, o.seat_top)),
+        ((g.head_top, g.crown), (o.head_top, o.crown)),
+        (
+            (g.fork_leg_top, g.front_axle),
+            (o.fork_leg_top, o.front_axle),
+        ),
+    ] {
+        if !(same(a, ra) && same(b, rb)) {
+            out.push(seg(a, b, THIN_HALF, cost::THIN));
+        }
+    }
+    for (c, r, rc, rr) in [
+        (g.rear_axle, g.rear_radius, o.rear_axle, o.rear_radius),
+        (g.front_axle, g.front_radius, o.front_axle, o.front_radius),
+    ] {
+        if !(same(c, rc) && (r - rr).abs() < 2.0) {
+            out.push(ring(c, r, THIN_HALF, cost::THIN));
+        }
+    }
+}
+
+/// One posture's rider, centre-of-mass mark and tip lines.
+fn posture(o: &Outline, f: Option<&RiderFigure>, com: Option<Xy>, out: &mut Vec<Obstacle>) {
+    use cost::{LIMB, MARK, THIN};
+    if let Some(c) = com {
+        out.push(disc(c, 28.0, MARK));
+    }
+    if let Some(f) = f {
+        out.push(seg(f.hip, f.shoulder, 30.0, LIMB));
+        out.push(seg(f.shoulder, f.head, 19.0, LIMB));
+        out.push(seg(f.shoulder, f.elbow, 19.0, LIMB));
+        out.push(seg(f.elbow, f.hand, 19.0, LIMB));
+        out.push(disc(f.head, f.head_radius, LIMB));
+        for l in &f.legs {
+            out.push(seg(f.hip, l.knee, 19.0, LIMB));
+            out.push(seg(l.knee, l.ankle, 19.0, LIMB));
+            for (a, b) in [(l.ankle, l.heel), (l.heel, l.toe), (l.toe, l.ball)] {
+                out.push(seg(a, b, 7.0, LIMB));
+            }
+        }
+    }
+    if let Some(c) = com {
+        out.push(seg(c, o.rear_contact, THIN_HALF, THIN));
+        out.push(seg(c, o.front_contact, THIN_HALF, THIN));
+    }
+}
+
+/// The view box in kernel axes.
+fn view_rect(v: &ViewBox) -> Rect {
+    [v.min_x, -v.max_y(), v.max_x(), -v.min_y]
+}
+
+/// The corner of the drawing under the page's Fit button (44 px and a 6 px margin at the top
+/// right of the drawing's box, web/style.css `.tool.fit`), mm: about 4.2 ems of the type, which
+/// the page sets at about 12 px on a phone.
+pub const BUTTON_MM: f64 = 4.2 * EM;
+
+/// Candidates on the sides of a point `p` of a slanted line, `d` the line's direction: beside
+/// the line on the sides it leaves free (for a line up to the right, above-left and
+/// below-right), then level with the point on either side; each [`GAP`] off the line and 60 mm
+/// farther (each millimetre farther a stray of [`STRAY_PER_MM`]).
+fn beside(p: Xy, d: Xy, stray: f64, out: &mut Vec<Candidate>) {
+    let up_right = d[0] * d[1] > 0.0;
+    for far in [0.0, 60.0] {
+        let g = GAP + far;
+        let s = stray + STRAY_PER_MM * far;
+        let (x_right, x_left) = (p[0] + g, p[0] - g);
+        let (y_up, y_down) = (above(p[1], g), below(p[1], g));
+        if up_right {
+            out.push(cand([x_left, y_up], End, s));
+            out.push(cand([x_right, y_down], Start, s));
+        } else {
+            out.push(cand([x_right, y_up], Start, s));
+            out.push(cand([x_left, y_down], End, s));
+        }
+        out.push(cand([x_right, level(p[1])], Start, s + 1.0));
+        out.push(cand([x_left, level(p[1])], End, s + 1.0));
+    }
+}
+
+/// The point a fraction `t` of the way from `a` to `b`.
+fn lerp(a: Xy, b: Xy, t: f64) -> Xy {
+    [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t]
+}
+
+/// The candidates of each dimension label, first choice first (see [`dims`] for the lines).
+fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
+    let mut v = Vec::with_capacity(48);
+    let (a, b) = (d.a, d.b);
+    let steps = |n: i32| (0..=n).map(f64::from);
+    match d.key {
+        "wheelbase_mm" => {
+            // Under the line, centred between the axles or moved along.
+            let y = rows.wheelbase_baseline();
+            let m = (a[0] + b[0]) / 2.0;
+            for k in steps(8) {
+                v.push(cand([m - 50.0 * k, y], Middle, 0.3 * k));
+                v.push(cand([m + 50.0 * k, y], Middle, 0.3 * k));
+            }
+        }
+        "trail_mm" => {
+            // Under its line from the front contact forward (in BB height's row, or the
+            // wheelbase label's), else back, else past the steering axis's foot.
+            let y = if rows.bb_height {
+                rows.upper_baseline()
+            } else {
+                rows.wheelbase_baseline()
+            };
+            let (l, r) = (a[0].min(b[0]), a[0].max(b[0]));
+            v.push(cand([l, y], Start, 0.0));
+            v.push(cand([r, y], End, 1.0));
+            v.push(cand([(l + r) / 2.0, y], Middle, 1.0));
+            for k in steps(8).skip(1) {
+                v.push(cand([l - 50.0 * k, y], Start, 0.5 * k));
+                v.push(cand([r + 50.0 * k, y], Start, 1.0 + 0.5 * k));
+            }
+        }
+        "bb_height_mm" if rows.bb_height => {
+            // Under the ground, its line ending on it: centred on the line, else moved back.
+            let y = rows.upper_baseline();
+            for k in steps(10) {
+                v.push(cand([a[0] - 40.0 * k, y], Middle, 0.3 * k));
+                v.push(cand([a[0] + 40.0 * k, y], Middle, 0.5 * k));
+            }
+        }
+        "bb_height_mm" => {
+            // Low between the wheels, centred between the axles, the line's foot on it; on the
+            // ground line if need be.
+            let m = (o.rear_axle[0] + o.front_axle[0]) / 2.0;
+            let g = o.ground_y;
+            for (row, y) in [above(g, 4.0), above(g, -10.0), level(g)]
+                .into_iter()
+                .enumerate()
+            {
+                for k in steps(6) {
+                    let s = 2.0 * row as f64 + 0.3 * k;
+                    v.push(cand([m - 40.0 * k, y], Middle, s));
+                    v.push(cand([m + 40.0 * k, y], Middle, s));
+                }
+            }
+        }
+        "stack_mm" => {
+            // Right of its line, halfway between the head tube top and the front tyre, else
+            // higher or lower; left of it; over its top.
+            let x = a[0] + GAP;
+            let tyre_top = o.front_axle[1] + o.front_radius + 15.0;
+            let mid = level((b[1] + tyre_top) / 2.0);
+            for k in steps(8) {
+                v.push(cand([x, mid + 20.0 * k], Start, 0.3 * k));
+                v.push(cand([x, mid - 20.0 * k], Start, 0.3 * k));
+            }
+            v.push(cand([a[0] - GAP, mid], End, 2.0));
+            v.push(cand([a[0], above(b[1], GAP)], Middle, 2.0));
+            v.push(cand([x, above(b[1], GAP)], Start, 2.0));
+        }
+        "reach_mm" => {
+            // Above its line, else below it, else past the head tube, above the line's level
+            // or on it, else before the line's start.
+            let (x0, x1, y) = (a[0], b[0], a[1]);
+            for (k, t) in [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].into_iter().enumerate() {
+                let x = x0 + (x1 - x0) * t;
+                let s = 0.3 * k as f64;
+                v.push(cand([x, above(y, GAP)], Middle, s));
+                v.push(cand([x, below(y, GAP)], Middle, 2.0 + s));
+            }
+            v.push(cand([x1, above(y, GAP)], End, 1.0));
+            v.push(cand([x0, above(y, GAP)], Start, 1.0));
+            let past = o.head_top[0].max(o.head_bottom[0]) + 20.0 + GAP;
+            for k in steps(4) {
+                let s = 2.0 + 0.5 * k;
+                let x = past + 30.0 * k;
+                v.push(cand([x, above(y, GAP)], Start, s));
+                v.push(cand([x, level(y)], Start, s + 0.5));
+            }
+            v.push(cand([x0 - GAP, level(y)], End, 3.0));
+            // Past the cockpit (a long stem, a drop bar's hoods).
+            if let Some(c) = &o.cockpit {
+                let past = [c.steerer_top, c.bar_clamp, c.grip]
+                    .iter()
+                    .fold(past, |m, p| m.max(p[0] + 16.0 + GAP));
+                // Each millimetre past the head tube top a stray.
+                let s = 3.0 + STRAY_PER_MM * (past - x1);
+                for (k, yb) in [level(y), above(y, GAP), below(y, GAP)]
+                    .into_iter()
+                    .enumerate()
+                {
+                    v.push(cand([past, yb], Start, s + 0.5 * k as f64));
+                }
+            }
+        }
+        "bb_to_grip_mm" => {
+            // Beyond the grip, else beside the line.
+            let x = b[0] + dims::GRIP_LABEL_AHEAD;
+            let y = b[1] + dims::GRIP_LABEL_RISE;
+            for k in steps(8) {
+                v.push(cand([x, y + 20.0 * k], Start, 0.3 * k));
+                v.push(cand([x, y - 20.0 * k], Start, 0.3 * k));
+            }
+            let d = [b[0] - a[0], b[1] - a[1]];
+            for (k, t) in [0.8, 0.65, 0.5].into_iter().enumerate() {
+                beside(lerp(a, b, t), d, 2.0 + k as f64, &mut v);
+            }
+        }
+        _ => {}
+    }
+    v
+}
+
+/// The candidates of a slope limit on its tip line from the centre of mass `c` to a contact
+/// under the axle `axle`: beside the line, from its middle outwards; then inside the wheel,
+/// under the hub or over it (the line crosses the wheel on its way to the contact); on the
+/// [`LABEL_STEP_MM`] grid.
+fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
+    let mut v = Vec::with_capacity(128);
+    let d = [contact[0] - c[0], contact[1] - c[1]];
+    for (k, t) in [0.5, 0.35, 0.65, 0.2, 0.8].into_iter().enumerate() {
+        beside(lerp(c, contact, t), d, 0.5 * k as f64, &mut v);
+    }
+    // Inside the wheel, where nothing beside the line is clear: under the hub (and lower, under
+    // a chainstay sloping from the hub), or over it; centred on the axle or moved along.
+    for k in 0..=4 {
+        let dx = 40.0 * f64::from(k);
+        for x in [axle[0] - dx, axle[0] + dx] {
+            for (j, drop) in [0.0, 40.0, 80.0].into_iter().enumerate() {
+                let s = 4.0 + 0.3 * f64::from(k) + 0.5 * j as f64;
+                v.push(cand([x, below(axle[1], 10.0 + GAP + drop)], Middle, s));
+            }
+            v.push(cand(
+                [x, above(axle[1], 10.0 + GAP)],
+                Middle,
+                5.0 + 0.3 * f64::from(k),
+            ));
+        }
+    }
+    for x in &mut v {
+        x.spot.at = snap(x.spot.at);
+    }
+    v
+}
+
+/// The candidates of the braking limit, written by the centre of mass `c`: right of it and a
+/// little above, else higher or farther right (each millimetre farther a stray of
+/// [`STRAY_PER_MM`]), else left of it, else under it, on the [`LABEL_STEP_MM`] grid.
+fn braking_candidates(c: Xy) -> Vec<Candidate> {
+    let mut v = Vec::with_capacity(128);
+    for i in 0..=4 {
+        for j in 0..=7 {
+            let (fi, fj) = (f64::from(i), f64::from(j));
+            let y = c[1] + 30.0 + 50.0 * fj;
+            // How far its box's corner lies from the mark's edge.
+            let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
+            let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
+            v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s));
+            v.push(cand(snap([c[0] - 40.0 - 100.0 * fi, y]), End, s + 1.0));
+            if j < 4 {
+                let y = c[1] - 30.0 - ASCENT_EM * EM - 50.0 * fj;
+                v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s + 2.0));
+            }
+        }
+    }
+    v
+}
+
+/// Every label's spot in a scene's drawing fitted to `fit`, its rows below the ground `below`.
+pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
+    let (o, n) = (scene.ridden, scene.numbers);
+    let mut shapes = Vec::with_capacity(96);
+    bike(o, &mut shapes);
+    let (g, g_bb) = crate::ghost::on_ground(scene.stock, o.ground_y);
+    ghost(&g, g_bb, o, &mut shapes);
+    let view = view_rect(fit);
+    shapes.push(seg(
+        [view[0], o.ground_y],
+        [view[2], o.ground_y],
+        THIN_HALF,
+        cost::THIN,
+    ));
+    shapes.push(seg(o.head_top, o.steer_ground, THIN_HALF, cost::THIN));
+    shapes.sort_unstable_by(|a, b| b.cost.total_cmp(&a.cost));
+    let keep_out = [[view[2] - BUTTON_MM, view[3] - BUTTON_MM, view[2], view[3]]];
+    let lines = dims::dims_of(o, below);
+    let mut seated_rider = Vec::with_capacity(32);
+    let mut standing_rider = Vec::with_capacity(32);
+    posture(o, o.rider_seated.as_ref(), o.com_seated, &mut seated_rider);
+    posture(
+        o,
+        o.rider_standing.as_ref(),
+        o.com_standing,
+        &mut standing_rider,
+    );
+    let mut board = Board {
+        view,
+        em: EM,
+        shapes: &shapes,
+        keep_out: &keep_out,
+        scratch: Scratch::default(),
+    };
+    let riders: Vec<Obstacle> = seated_rider
+        .iter()
+        .chain(&standing_rider)
+        .copied()
+        .collect();
+    let (dims, placed) = dim_spots(&mut board, o, n, below, &lines, riders);
+    let dim_lines: Vec<Obstacle> = lines
+        .iter()
+        .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN))
+        .collect();
+    let mut limits = [
+        (&scene.seated, o.com_seated, seated_rider),
+        (&scene.standing, o.com_standing, standing_rider),
+    ]
+    .map(|(limits, com, mut rider)| {
+        rider.extend(dim_lines.iter());
+        com.map_or(LimitSpots::default(), |c| {
+            limit_spots(&mut board, o, limits, c, &rider, placed.clone())
+        })
+    })
+    .into_iter();
+    Spots {
+        dims,
+        seated: limits.next().unwrap_or_default(),
+        standing: limits.next().unwrap_or_default(),
+    }
+}
+
+/// The dimension labels' spots, below the ground first, then the frame's, then BB to grip,
+/// each keeping off both riders (`riders`) and the other dimension lines; and their text boxes.
+fn dim_spots(
+    board: &mut Board,
+    o: &Outline,
+    n: &framewise_kernel::report::Numbers,
+    below: &Below,
+    lines: &[Dim],
+    riders: Vec<Obstacle>,
+) -> (Vec<(&'static str, Placed)>, Vec<Rect>) {
+    let order = [
+        "bb_height_mm",
+        "wheelbase_mm",
+        "trail_mm",
+        "stack_mm",
+        "reach_mm",
+        "bb_to_grip_mm",
+    ];
+    let mut spots = Vec::with_capacity(order.len());
+    let mut placed: Vec<Rect> = Vec::with_capacity(12);
+    let mut extra = riders;
+    let rider_count = extra.len();
+    for d in order
+        .iter()
+        .filter_map(|k| lines.iter().find(|l| l.key == *k))
+    {
+        let Some(v) = n.get(d.key) else { continue };
+        let words = dims::words_of(d.key, *v);
+        let width = width_em(&words);
+        extra.truncate(rider_count);
+        extra.extend(
+            lines
+                .iter()
+                .filter(|l| l.key != d.key)
+                .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN)),
+        );
+        let spot = board.choose(width, &dim_candidates(o, below, d), &extra, &placed);
+        placed.push(box_rect(spot.at, spot.anchor, width, EM));
+        spots.push((d.key, Placed { spot, words }));
+    }
+    (spots, placed)
+}
+
+/// One posture's handling labels' spots (centre of mass `c`), keeping off `extra` (that
+/// posture's rider and tip lines, and the dimension lines) and the boxes `placed` (the
+/// dimension labels', shown or not).
+fn limit_spots(
+    board: &mut Board,
+    o: &Outline,
+    limits: &crate::Limits,
+    c: Xy,
+    extra: &[Obstacle],
+    mut placed: Vec<Rect>,
+) -> LimitSpots {
+    let mut s = LimitSpots::default();
+    if let Some(b) = limits.braking_g {
+        let words = crate::figure::braking_words(b);
+        let width = width_em(&words);
+        let spot = board.choose(width, &braking_candidates(c), extra, &placed);
+        placed.push(box_rect(spot.at, spot.anchor, width, EM));
+        s.braking = Some(Placed { spot, words });
+    }
+    for (deg, contact, axle, front) in [
+        (limits.descent_deg, o.front_contact, o.front_axle, true),
+        (limits.climb_deg, o.rear_contact, o.rear_axle, false),
+    ] {
+        let Some(deg) = deg else { continue };
+        let words = crate::figure::slope_words(front, deg);
+        let width = width_em(&words);
+        let spot = board.choose(width, &tip_candidates(c, contact, axle), extra, &placed);
+        placed.push(box_rect(spot.at, spot.anchor, width, EM));
+        let placed = Some(Placed { spot, words });
+        if front {
+            s.descent = placed;
+        } else {
+            s.climb = placed;
+        }
+    }
+    s
+}

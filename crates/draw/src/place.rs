@@ -1,0 +1,538 @@
+//! Label placement: each label goes to the cheapest of its candidate spots, where a spot costs
+//! what its ink crosses (a frame tube, the fork or a tyre most, a limb less, a thin dashed line
+//! little, [`cost`]) plus how far it strays from the label's first choice and from what it
+//! belongs to ([`Candidate::stray`]). Another label's box, the view box's edge and the corner
+//! under the page's Fit button are never crossed while a spot that keeps clear of them exists.
+//!
+//! A label's ink and box are estimated from its words ([`width_em`], [`ink_rect`],
+//! [`box_rect`]) in the largest type the page uses ([`crate::LABEL_EM_MAX_MM`]); in smaller type
+//! they shrink towards the same anchor point and stay inside the larger ones, so a spot clear in
+//! the largest type is clear in every size. Everything here is in kernel axes (y up): drawing
+//! layout, not bike geometry.
+
+use framewise_kernel::report::Xy;
+
+/// A rectangle `[x0, y0, x1, y1]` in kernel axes (y up), `x0 <= x1`, `y0 <= y1`.
+pub type Rect = [f64; 4];
+
+/// A character's advance in the labels' type, em: DejaVu Sans Bold's (the `system-ui` of the
+/// Debian Chromium the browser tests run in, and among the widest of the usual system fonts:
+/// Roboto's and San Francisco's digits are 0.56 and 0.6 em against its 0.7), measured in the
+/// browser and rounded up; 0.8 em for a character not listed.
+fn advance_em(c: char) -> f64 {
+    const LOWER: [f64; 26] = [
+        0.675, 0.716, 0.593, 0.716, 0.678, 0.435, 0.716, 0.712, 0.343, 0.343, 0.665, 0.343, 1.042,
+        0.712, 0.687, 0.716, 0.716, 0.493, 0.595, 0.478, 0.712, 0.652, 0.924, 0.645, 0.652, 0.582,
+    ];
+    const UPPER: [f64; 26] = [
+        0.774, 0.762, 0.734, 0.830, 0.683, 0.683, 0.821, 0.837, 0.372, 0.372, 0.775, 0.637, 0.995,
+        0.837, 0.850, 0.733, 0.850, 0.770, 0.720, 0.682, 0.812, 0.774, 1.103, 0.771, 0.724, 0.725,
+    ];
+    let at = |table: &[f64; 26], base: char| {
+        let i = u32::from(c).checked_sub(u32::from(base))?;
+        usize::try_from(i).ok().and_then(|i| table.get(i)).copied()
+    };
+    match c {
+        '0'..='9' => 0.696,
+        ' ' => 0.348,
+        '.' | ',' => 0.38,
+        '-' => 0.415,
+        '°' => 0.5,
+        'a'..='z' => at(&LOWER, 'a').unwrap_or(0.8),
+        'A'..='Z' => at(&UPPER, 'A').unwrap_or(0.8),
+        _ => 0.8,
+    }
+}
+
+/// The width of a label's words, em: the characters' advances ([`advance_em`]) and 2 % more.
+pub fn width_em(words: &str) -> f64 {
+    words.chars().map(advance_em).sum::<f64>() * 1.02
+}
+
+/// A label's ink above its baseline, em: capitals, digits and ascenders (0.73 em) with a little
+/// room. What a label keeps off the drawing's lines.
+pub const ASCENT_EM: f64 = 0.75;
+/// A label's ink below its baseline, em: descenders.
+pub const DESCENT_EM: f64 = 0.25;
+/// A label's text box above its baseline, em: the font's ascent (DejaVu Sans's 0.93 em; the
+/// box the browser gives, which is taller than the ink). What a label keeps off other labels'
+/// boxes and inside the view box.
+pub const BOX_ASCENT_EM: f64 = 0.93;
+/// A label's text box below its baseline, em: the font's descent.
+pub const BOX_DESCENT_EM: f64 = 0.24;
+/// The labels' paper-coloured halo on each side of the type, mm (half of `stroke-width: 18` on
+/// `.bike-drawing .label` in web/style.css): what a label's box keeps off lines and other boxes.
+pub const HALO_MM: f64 = 9.0;
+
+/// Which point of a label's words its anchor point is (SVG's `text-anchor`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Anchor {
+    /// The words' start (left end).
+    Start,
+    /// Their middle.
+    Middle,
+    /// Their end (right end).
+    End,
+}
+
+impl Anchor {
+    /// The `text-anchor` value.
+    pub fn svg(self) -> &'static str {
+        match self {
+            Anchor::Start => "start",
+            Anchor::Middle => "middle",
+            Anchor::End => "end",
+        }
+    }
+}
+
+/// The ink of a label `width` em wide ([`width_em`]) in type of `em` mm, its baseline's anchor
+/// point at `at`.
+pub fn ink_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
+    let x0 = left(at[0], anchor, width * em);
+    [
+        x0,
+        at[1] - DESCENT_EM * em,
+        x0 + width * em,
+        at[1] + ASCENT_EM * em,
+    ]
+}
+
+/// The text box of the same label ([`BOX_ASCENT_EM`], [`BOX_DESCENT_EM`]).
+pub fn box_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
+    let x0 = left(at[0], anchor, width * em);
+    [
+        x0,
+        at[1] - BOX_DESCENT_EM * em,
+        x0 + width * em,
+        at[1] + BOX_ASCENT_EM * em,
+    ]
+}
+
+/// The left end of words `w` wide anchored at `x`.
+fn left(x: f64, anchor: Anchor, w: f64) -> f64 {
+    match anchor {
+        Anchor::Middle => x - w / 2.0,
+        Anchor::End => x - w,
+        Anchor::Start => x,
+    }
+}
+
+/// The larger of two numbers (a comparison: `f64::max` can be a library call).
+fn mx(a: f64, b: f64) -> f64 {
+    if a > b {
+        a
+    } else {
+        b
+    }
+}
+
+/// The smaller of two numbers.
+fn mn(a: f64, b: f64) -> f64 {
+    if a < b {
+        a
+    } else {
+        b
+    }
+}
+
+/// The rectangle grown by `m` on every side.
+pub fn grow(r: Rect, m: f64) -> Rect {
+    [r[0] - m, r[1] - m, r[2] + m, r[3] + m]
+}
+
+/// Whether two rectangles overlap (touching edges do not).
+pub fn overlap(a: Rect, b: Rect) -> bool {
+    a[0] < b[2] && b[0] < a[2] && a[1] < b[3] && b[1] < a[3]
+}
+
+/// Distance from a point to a rectangle (0 inside).
+pub fn point_rect(p: Xy, r: Rect) -> f64 {
+    let dx = mx(mx(r[0] - p[0], p[0] - r[2]), 0.0);
+    let dy = mx(mx(r[1] - p[1], p[1] - r[3]), 0.0);
+    (dx * dx + dy * dy).sqrt()
+}
+
+/// Whether the segment `a`–`b` passes through the rectangle (touching counts): their boxes
+/// overlap and the rectangle's corners do not all lie on one side of the segment's line (the
+/// separating axes of a segment and a rectangle).
+fn seg_hits_rect(a: Xy, b: Xy, r: Rect) -> bool {
+    if mx(a[0], b[0]) < r[0]
+        || mn(a[0], b[0]) > r[2]
+        || mx(a[1], b[1]) < r[1]
+        || mn(a[1], b[1]) > r[3]
+    {
+        return false;
+    }
+    let d = [b[0] - a[0], b[1] - a[1]];
+    let side = |x: f64, y: f64| d[0] * (y - a[1]) - d[1] * (x - a[0]);
+    let s = [
+        side(r[0], r[1]),
+        side(r[2], r[1]),
+        side(r[2], r[3]),
+        side(r[0], r[3]),
+    ];
+    !(s.iter().all(|&v| v > 0.0) || s.iter().all(|&v| v < 0.0))
+}
+
+/// A drawn shape a label keeps off.
+#[derive(Debug, Clone, Copy)]
+pub enum Shape {
+    /// A line from `a` to `b`, drawn `half` wide on each side.
+    Seg {
+        /// One end.
+        a: Xy,
+        /// The other end.
+        b: Xy,
+        /// Half the stroke width, mm.
+        half: f64,
+    },
+    /// A circle of radius `r` stroked `half` wide on each side (a tyre, a rim).
+    Ring {
+        /// Centre.
+        c: Xy,
+        /// Radius.
+        r: f64,
+        /// Half the stroke width, mm.
+        half: f64,
+    },
+    /// A filled disc (a head, a hub, the centre-of-mass mark).
+    Disc {
+        /// Centre.
+        c: Xy,
+        /// Radius, its stroke included.
+        r: f64,
+    },
+}
+
+impl Shape {
+    /// Whether the shape comes within `m` of the rectangle (a segment's test counts the
+    /// rectangle's corners as square, up to 0.41 of `m` and the half width more).
+    pub fn meets(&self, r: Rect, m: f64) -> bool {
+        match *self {
+            // The segment through the rectangle grown by the stroke and the margin: at the
+            // corners a little more than the exact distance, never less.
+            Shape::Seg { a, b, half } => seg_hits_rect(a, b, grow(r, half + m)),
+            Shape::Disc { c, r: radius } => point_rect(c, r) < radius + m,
+            Shape::Ring { c, r: radius, half } => {
+                // The farthest corner, squared: the larger offset on each axis.
+                let dx = mx(c[0] - r[0], r[2] - c[0]);
+                let dy = mx(c[1] - r[1], r[3] - c[1]);
+                let inner = mx(radius - half - m, 0.0);
+                point_rect(c, r) < radius + half + m && dx * dx + dy * dy > inner * inner
+            }
+        }
+    }
+}
+
+/// What crossing a shape costs: a frame tube, the fork or a tyre most, then the other parts of
+/// the bike, the centre-of-mass mark, the rider's limbs (drawn see-through), a rim or hub, and
+/// least a thin line (the dimension and tip lines, the steering axis, the ground, the stock
+/// ghost): a label crosses a dashed line rather than a tube.
+pub mod cost {
+    /// A frame tube, the fork, a tyre.
+    pub const FRAME: f64 = 100.0;
+    /// Cockpit, seatpost, saddle, cranks, pedals.
+    pub const PART: f64 = 80.0;
+    /// The centre-of-mass mark.
+    pub const MARK: f64 = 60.0;
+    /// A limb, the torso or the head of the rider.
+    pub const LIMB: f64 = 30.0;
+    /// A rim or a hub.
+    pub const RIM: f64 = 20.0;
+    /// A thin line.
+    pub const THIN: f64 = 3.0;
+}
+
+/// A shape, what crossing it costs, and the box within which a label's ink meets it.
+#[derive(Debug, Clone, Copy)]
+pub struct Obstacle {
+    /// The shape.
+    pub shape: Shape,
+    /// Its cost ([`cost`]).
+    pub cost: f64,
+    /// The shape's bounding box grown by its half width and [`HALO_MM`]: a label's ink that
+    /// does not overlap it keeps clear (a quick test before the exact one).
+    reach: Rect,
+}
+
+impl Obstacle {
+    /// A shape and its cost.
+    pub fn new(shape: Shape, cost: f64) -> Self {
+        let (lo, hi, m) = match shape {
+            Shape::Seg { a, b, half } => (
+                [mn(a[0], b[0]), mn(a[1], b[1])],
+                [mx(a[0], b[0]), mx(a[1], b[1])],
+                half,
+            ),
+            Shape::Ring { c, r, half } => (c, c, r + half),
+            Shape::Disc { c, r } => (c, c, r),
+        };
+        Obstacle {
+            shape,
+            cost,
+            reach: grow([lo[0], lo[1], hi[0], hi[1]], m + HALO_MM),
+        }
+    }
+
+    /// Whether a label's ink `r` (its halo added) meets the shape.
+    pub fn meets(&self, r: Rect) -> bool {
+        overlap(self.reach, r) && self.shape.meets(r, HALO_MM)
+    }
+}
+
+/// A label's spot: its anchor point (on the baseline) and which point of the words it is.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Spot {
+    /// The anchor point, kernel axes.
+    pub at: Xy,
+    /// Which point of the words `at` is.
+    pub anchor: Anchor,
+}
+
+/// A candidate spot and the cost of straying there from the label's first choice.
+#[derive(Debug, Clone, Copy)]
+pub struct Candidate {
+    /// The spot.
+    pub spot: Spot,
+    /// The cost of straying there, on [`cost`]'s scale (a thin line crossed is 3): from the
+    /// label's first choice, and [`STRAY_PER_MM`] a millimetre farther from what it belongs to.
+    pub stray: f64,
+}
+
+/// What labels keep off, the view box and the type size; and buffers reused from one label
+/// to the next.
+pub struct Board<'a> {
+    /// The view box, kernel axes.
+    pub view: Rect,
+    /// The type size boxes are estimated in, mm.
+    pub em: f64,
+    /// Shapes every label keeps off.
+    pub shapes: &'a [Obstacle],
+    /// Places no label's box may overlap (under the page's buttons).
+    pub keep_out: &'a [Rect],
+    /// Reused: the candidates' order and inks.
+    pub scratch: Scratch,
+}
+
+/// A buffer [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
+#[derive(Default)]
+pub struct Scratch {
+    order: Vec<(u16, Rect)>,
+}
+
+impl Board<'_> {
+    /// The cheapest of `candidates` for a label `width` em wide, keeping off `extra` shapes (the
+    /// label's own posture's rider and lines) and `placed` (the text boxes, [`box_rect`], of the
+    /// labels it may be seen with), and inside the view box and off [`Board::keep_out`]; of
+    /// equal costs, one of the least stray. The first candidate when none keeps inside and off
+    /// the other labels.
+    pub fn choose(
+        &mut self,
+        width: f64,
+        candidates: &[Candidate],
+        extra: &[Obstacle],
+        placed: &[Rect],
+    ) -> Spot {
+        let first = candidates.first().map(|c| c.spot);
+        // The least stray first, by a counting sort on whole quarters of a point (a tenth of the
+        // work of sorting the floats): once a candidate's quarter costs as much as the best, so
+        // does every later one's. With each candidate, its ink.
+        let quarter = |c: &Candidate| {
+            let q = c.stray * 4.0;
+            if q >= (QUARTERS - 1) as f64 {
+                QUARTERS - 1
+            } else if q > 0.0 {
+                q as usize
+            } else {
+                0
+            }
+        };
+        let mut starts = [0u16; QUARTERS + 1];
+        for c in candidates {
+            if let Some(n) = starts.get_mut(quarter(c) + 1) {
+                *n += 1;
+            }
+        }
+        for i in 1..starts.len() {
+            let before = starts.get(i - 1).copied().unwrap_or(0);
+            if let Some(n) = starts.get_mut(i) {
+                *n += before;
+            }
+        }
+        let order = &mut self.scratch.order;
+        order.clear();
+        order.resize(candidates.len(), (0, [0.0; 4]));
+        let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
+        for (i, c) in candidates.iter().enumerate() {
+            let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
+            all = [
+                mn(all[0], r[0]),
+                mn(all[1], r[1]),
+                mx(all[2], r[2]),
+                mx(all[3], r[3]),
+            ];
+            if let Some(at) = starts.get_mut(quarter(c)) {
+                if let Some(slot) = order.get_mut(usize::from(*at)) {
+                    *slot = (i as u16, r);
+                }
+                *at += 1;
+            }
+        }
+        // Only the shapes within reach of some candidate (the costliest first, as given: a
+        // candidate is dropped as soon as it costs more than the best).
+        let mut near: Vec<&Obstacle> = Vec::with_capacity(64);
+        near.extend(
+            self.shapes
+                .iter()
+                .chain(extra)
+                .filter(|o| overlap(o.reach, all)),
+        );
+        let mut best = (f64::INFINITY, first);
+        for &(i, r) in order.iter() {
+            let Some(c) = candidates.get(usize::from(i)) else {
+                continue;
+            };
+            if quarter(c) as f64 / 4.0 >= best.0 {
+                break;
+            }
+            if c.stray >= best.0 {
+                continue;
+            }
+            let spot = c.spot;
+            let b = box_rect(spot.at, spot.anchor, width, self.em);
+            let inside = b[0] >= self.view[0]
+                && b[1] >= self.view[1]
+                && b[2] <= self.view[2]
+                && b[3] <= self.view[3];
+            let halo = grow(b, HALO_MM);
+            if !inside
+                || self.keep_out.iter().any(|k| overlap(b, *k))
+                || placed.iter().any(|p| overlap(halo, *p))
+            {
+                continue;
+            }
+            let mut total = c.stray;
+            for o in near.iter() {
+                if total >= best.0 {
+                    break;
+                }
+                if o.meets(r) {
+                    total += o.cost;
+                }
+            }
+            if total < best.0 {
+                best = (total, Some(spot));
+            }
+        }
+        best.1.unwrap_or(Spot {
+            at: [0.0, 0.0],
+            anchor: Anchor::Start,
+        })
+    }
+}
+
+/// How many quarter points of stray the candidates are sorted into ([`Board::choose`]): up
+/// to 32 points, more is sorted last.
+const QUARTERS: usize = 128;
+
+/// The stray cost of each millimetre a label lies farther from what it belongs to: 60 mm per
+/// thin line crossed ([`cost::THIN`]), 600 mm per limb ([`cost::LIMB`]).
+pub const STRAY_PER_MM: f64 = 0.05;
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn segments_and_rectangles() {
+        let r = [0.0, 0.0, 10.0, 5.0];
+        assert!(
+            seg_hits_rect([-5.0, 2.0], [15.0, 2.0], r),
+            "straight through"
+        );
+        assert!(seg_hits_rect([2.0, 2.0], [3.0, 3.0], r), "inside");
+        assert!(
+            !seg_hits_rect([10.0, 6.0], [11.0, 5.0], r),
+            "0.7 off the corner (10, 5)"
+        );
+        assert!(!seg_hits_rect([2.0, 8.0], [8.0, 8.0], r), "above, parallel");
+        // Its box overlaps the rectangle's, but it passes the corner (10, 5) above and right.
+        assert!(
+            !seg_hits_rect([9.0, 7.0], [13.0, 4.0], r),
+            "past the corner"
+        );
+        assert!(
+            seg_hits_rect([9.0, 5.5], [13.0, 2.5], r),
+            "cutting the corner"
+        );
+        assert_eq!(point_rect([5.0, 2.0], r), 0.0);
+        assert_eq!(point_rect([13.0, 9.0], r), 5.0, "off the corner by (3, 4)");
+        let tube = Shape::Seg {
+            a: [-5.0, 8.0],
+            b: [15.0, 8.0],
+            half: 2.0,
+        };
+        assert!(!tube.meets(r, 0.5), "3 mm above, 2.5 mm reach");
+        assert!(tube.meets(r, 1.5), "3.5 mm reach");
+    }
+
+    #[test]
+    fn rings_are_met_only_by_their_band() {
+        let tyre = Shape::Ring {
+            c: [0.0, 0.0],
+            r: 100.0,
+            half: 10.0,
+        };
+        assert!(
+            !tyre.meets([-20.0, -20.0, 20.0, 20.0], 5.0),
+            "inside the rim"
+        );
+        assert!(
+            tyre.meets([-20.0, -20.0, 86.0, 20.0], 5.0),
+            "within the halo of the band"
+        );
+        assert!(!tyre.meets([-20.0, -20.0, 80.0, 20.0], 5.0), "short of it");
+        assert!(!tyre.meets([120.0, -20.0, 200.0, 20.0], 5.0), "outside");
+        assert!(
+            tyre.meets([114.0, -20.0, 200.0, 20.0], 5.0),
+            "within the halo"
+        );
+    }
+
+    #[test]
+    fn the_cheapest_clear_candidate_wins() {
+        let shapes = [Obstacle::new(
+            Shape::Seg {
+                a: [0.0, -100.0],
+                b: [0.0, 100.0],
+                half: 10.0,
+            },
+            cost::FRAME,
+        )];
+        let mut board = Board {
+            view: [-1000.0, -1000.0, 1000.0, 1000.0],
+            em: 10.0,
+            shapes: &shapes,
+            keep_out: &[],
+            scratch: Scratch::default(),
+        };
+        let at = |x: f64, stray: f64| Candidate {
+            spot: Spot {
+                at: [x, 0.0],
+                anchor: Anchor::Start,
+            },
+            stray,
+        };
+        // 3 em: 30 mm wide. On the tube, then clear but over a placed box, then clear.
+        let c = [
+            at(-20.0, 0.0),
+            at(30.0, 1.0),
+            at(200.0, 2.0),
+            at(980.0, 0.5),
+        ];
+        let placed = [[25.0, -5.0, 40.0, 5.0]];
+        let s = board.choose(3.0, &c, &[], &placed);
+        assert_eq!(s.at, [200.0, 0.0], "the last runs out of the view box");
+    }
+}
