@@ -434,6 +434,20 @@ fn one_value_for_all_sizes_and_both_seat_angles() {
 }
 
 #[test]
+fn one_wheel_size_for_all_sizes_is_used_for_all_and_said() {
+    // A merged "Wheel size" cell: one designation for every size, said like any other row of
+    // one value; a row with a wheel per size gets no such note.
+    let text = "Size\tS\tM\tL\nReach\t430\t455\t480\nWheel size\t29x2.4\n";
+    let c = import_chart(text).unwrap();
+    let each = ("29x2.4".to_string(), "29x2.4".to_string());
+    assert_eq!(wheels(&c), vec![each.clone(), each.clone(), each]);
+    assert!(has_note(&c, "Wheel size", "one wheel size for every size"));
+    let per_size =
+        import_chart("Size\tS\tM\nReach\t430\t455\nWheel size\t27.5x2.4\t29x2.4\n").unwrap();
+    assert!(!has_note(&per_size, "Wheel size", "every size"));
+}
+
+#[test]
 fn impossible_values_and_text_cells_are_left_out_with_a_note() {
     let text = "Size\tS\tM\nReach\t450\tTBD soon\nHead angle\t65\t120\n";
     let c = import_chart(text).unwrap();

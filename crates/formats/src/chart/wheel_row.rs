@@ -18,7 +18,16 @@ use framewise_kernel::WheelSpec;
 /// size when the row held several.
 pub(super) fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSlot, log: &mut Log) {
     let (text, cells) = match rejoin(&row.label.text, &row.cells, sizes.len()) {
-        Rejoined::Kept => (row.label.text.clone(), one_or_each(&row.cells, sizes.len())),
+        Rejoined::Kept => {
+            let (cells, lone) = one_or_each(&row.cells, sizes.len());
+            if lone {
+                log.note(
+                    &row.label.text,
+                    "one wheel size for every size; used it for all".into(),
+                );
+            }
+            (row.label.text.clone(), cells)
+        }
         Rejoined::Cut(name, cells) => {
             log.note(
                 &name,
@@ -68,11 +77,12 @@ pub(super) fn read_wheels(sizes: &mut [ChartSize], row: &TableRow, slot: WheelSl
     }
 }
 
-/// A wheel row's cells, one per size: a lone cell stands for every size.
-fn one_or_each(cells: &[String], n: usize) -> Vec<String> {
+/// A wheel row's cells, one per size: a lone cell stands for every size (then `true`, and the
+/// caller notes it, as other rows of one value get a note).
+fn one_or_each(cells: &[String], n: usize) -> (Vec<String>, bool) {
     let given: Vec<&String> = cells.iter().filter(|c| !c.trim().is_empty()).collect();
     match given.as_slice() {
-        [one] if n > 1 && cells.len() == 1 => vec![(*one).clone(); n],
-        _ => cells.to_vec(),
+        [one] if n > 1 && cells.len() == 1 => (vec![(*one).clone(); n], true),
+        _ => (cells.to_vec(), false),
     }
 }
