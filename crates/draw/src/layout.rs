@@ -10,7 +10,7 @@
 
 use crate::dims::{self, Below, Dim};
 use crate::place::{
-    box_rect, cost, width_em,
+    box_rect, cost, costliest_first, width_em,
     Anchor::{self, End, Middle, Start},
     Board, Candidate, Obstacle, Rect, Scratch, Shape, Spot, ASCENT_EM, DESCENT_EM, HALO_MM,
     STRAY_PER_MM,
@@ -444,7 +444,7 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         cost::THIN,
     ));
     shapes.push(seg(o.head_top, o.steer_ground, THIN_HALF, cost::THIN));
-    shapes.sort_unstable_by(|a, b| b.cost.total_cmp(&a.cost));
+    costliest_first(&mut shapes);
     let keep_out = [[view[2] - BUTTON_MM, view[3] - BUTTON_MM, view[2], view[3]]];
     let lines = dims::dims_of(o, below);
     let mut seated_rider = Vec::with_capacity(32);

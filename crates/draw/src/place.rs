@@ -281,6 +281,24 @@ impl Obstacle {
     }
 }
 
+/// Sorts obstacles costliest first, keeping the order of equal costs (an insertion sort: a
+/// drawing's few dozen shapes come nearly in order, and the library's sort added kilobytes to
+/// the page's module). [`Board::choose`] sums the costs in this order, and equal costs in any
+/// order give the same sums.
+pub fn costliest_first(v: &mut [Obstacle]) {
+    for i in 1..v.len() {
+        for j in (1..=i).rev() {
+            let Some([a, b]) = v.get_mut(j - 1..=j) else {
+                break;
+            };
+            if a.cost >= b.cost {
+                break;
+            }
+            std::mem::swap(a, b);
+        }
+    }
+}
+
 /// A label's spot: its anchor point (on the baseline) and which point of the words it is.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Spot {
@@ -498,6 +516,42 @@ mod tests {
             tyre.meets([114.0, -20.0, 200.0, 20.0], 5.0),
             "within the halo"
         );
+    }
+
+    #[test]
+    fn costliest_first_keeps_the_order_of_equal_costs() {
+        let disc = |x: f64, cost: f64| {
+            Obstacle::new(
+                Shape::Disc {
+                    c: [x, 0.0],
+                    r: 1.0,
+                },
+                cost,
+            )
+        };
+        let mut v = [
+            disc(0.0, cost::THIN),
+            disc(1.0, cost::FRAME),
+            disc(2.0, cost::THIN),
+            disc(3.0, cost::LIMB),
+            disc(4.0, cost::FRAME),
+        ];
+        costliest_first(&mut v);
+        let got: Vec<(f64, f64)> = v
+            .iter()
+            .map(|o| match o.shape {
+                Shape::Disc { c, .. } => (o.cost, c[0]),
+                _ => (o.cost, f64::NAN),
+            })
+            .collect();
+        let want = [
+            (cost::FRAME, 1.0),
+            (cost::FRAME, 4.0),
+            (cost::LIMB, 3.0),
+            (cost::THIN, 0.0),
+            (cost::THIN, 2.0),
+        ];
+        assert_eq!(got, want);
     }
 
     #[test]
