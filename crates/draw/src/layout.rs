@@ -447,8 +447,12 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
     costliest_first(&mut shapes);
     let keep_out = [[view[2] - BUTTON_MM, view[3] - BUTTON_MM, view[2], view[3]]];
     let lines = dims::dims_of(o, below);
-    let mut seated_rider = Vec::with_capacity(32);
-    let mut standing_rider = Vec::with_capacity(32);
+    let mut dim_lines = Vec::with_capacity(lines.len());
+    for l in &lines {
+        dim_lines.push(seg(l.a, l.b, THIN_HALF, cost::THIN));
+    }
+    let mut seated_rider = Vec::with_capacity(48);
+    let mut standing_rider = Vec::with_capacity(48);
     posture(o, o.rider_seated.as_ref(), o.com_seated, &mut seated_rider);
     posture(
         o,
@@ -463,42 +467,43 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         keep_out: &keep_out,
         scratch: Scratch::default(),
     };
-    let riders: Vec<Obstacle> = seated_rider
-        .iter()
-        .chain(&standing_rider)
-        .copied()
-        .collect();
-    let (dims, placed) = dim_spots(&mut board, o, n, below, &lines, riders);
-    let dim_lines: Vec<Obstacle> = lines
-        .iter()
-        .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN))
-        .collect();
-    let mut limits = [
-        (&scene.seated, o.com_seated, seated_rider),
-        (&scene.standing, o.com_standing, standing_rider),
-    ]
-    .map(|(limits, com, mut rider)| {
-        rider.extend(dim_lines.iter());
-        com.map_or(LimitSpots::default(), |c| {
-            limit_spots(&mut board, o, limits, c, &rider, placed.clone())
-        })
-    })
-    .into_iter();
+    let mut riders = Vec::with_capacity(seated_rider.len() + standing_rider.len() + lines.len());
+    riders.extend_from_slice(&seated_rider);
+    riders.extend_from_slice(&standing_rider);
+    let (dims, placed) = dim_spots(&mut board, o, n, below, &lines, &dim_lines, riders);
+    seated_rider.extend_from_slice(&dim_lines);
+    standing_rider.extend_from_slice(&dim_lines);
     Spots {
         dims,
-        seated: limits.next().unwrap_or_default(),
-        standing: limits.next().unwrap_or_default(),
+        seated: limit_spots(
+            &mut board,
+            o,
+            &scene.seated,
+            o.com_seated,
+            &seated_rider,
+            placed.clone(),
+        ),
+        standing: limit_spots(
+            &mut board,
+            o,
+            &scene.standing,
+            o.com_standing,
+            &standing_rider,
+            placed,
+        ),
     }
 }
 
 /// The dimension labels' spots, below the ground first, then the frame's, then BB to grip,
-/// each keeping off both riders (`riders`) and the other dimension lines; and their text boxes.
+/// each keeping off both riders (`riders`) and the other dimension lines (`dim_lines`, the
+/// shapes of `lines`); and their text boxes.
 fn dim_spots(
     board: &mut Board,
     o: &Outline,
     n: &framewise_kernel::report::Numbers,
     below: &Below,
     lines: &[Dim],
+    dim_lines: &[Obstacle],
     riders: Vec<Obstacle>,
 ) -> (Vec<(&'static str, Placed)>, Vec<Rect>) {
     let order = [
@@ -513,20 +518,21 @@ fn dim_spots(
     let mut placed: Vec<Rect> = Vec::with_capacity(12);
     let mut extra = riders;
     let rider_count = extra.len();
-    for d in order
-        .iter()
-        .filter_map(|k| lines.iter().find(|l| l.key == *k))
-    {
-        let Some(v) = n.get(d.key) else { continue };
+    for key in order {
+        let Some(i) = lines.iter().position(|l| l.key == key) else {
+            continue;
+        };
+        let (Some(d), Some(v)) = (lines.get(i), n.get(key)) else {
+            continue;
+        };
         let words = dims::words_of(d.key, *v);
         let width = width_em(&words);
         extra.truncate(rider_count);
-        extra.extend(
-            lines
-                .iter()
-                .filter(|l| l.key != d.key)
-                .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN)),
-        );
+        for (j, line) in dim_lines.iter().enumerate() {
+            if j != i {
+                extra.push(*line);
+            }
+        }
         let spot = board.choose(width, &dim_candidates(o, below, d), &extra, &placed);
         placed.push(box_rect(spot.at, spot.anchor, width, EM));
         spots.push((d.key, Placed { spot, words }));
@@ -534,17 +540,20 @@ fn dim_spots(
     (spots, placed)
 }
 
-/// One posture's handling labels' spots (centre of mass `c`), keeping off `extra` (that
-/// posture's rider and tip lines, and the dimension lines) and the boxes `placed` (the
-/// dimension labels', shown or not).
+/// One posture's handling labels' spots (centre of mass `com`; none, no labels), keeping off
+/// `extra` (that posture's rider and tip lines, and the dimension lines) and the boxes `placed`
+/// (the dimension labels', shown or not).
 fn limit_spots(
     board: &mut Board,
     o: &Outline,
     limits: &crate::Limits,
-    c: Xy,
+    com: Option<Xy>,
     extra: &[Obstacle],
     mut placed: Vec<Rect>,
 ) -> LimitSpots {
+    let Some(c) = com else {
+        return LimitSpots::default();
+    };
     let mut s = LimitSpots::default();
     if let Some(b) = limits.braking_g {
         let words = crate::figure::braking_words(b);

@@ -400,12 +400,13 @@ impl Board<'_> {
         // Only the shapes within reach of some candidate (the costliest first, as given: a
         // candidate is dropped as soon as it costs more than the best).
         let mut near: Vec<&Obstacle> = Vec::with_capacity(64);
-        near.extend(
-            self.shapes
-                .iter()
-                .chain(extra)
-                .filter(|o| overlap(o.reach, all)),
-        );
+        for list in [self.shapes, extra] {
+            for o in list {
+                if overlap(o.reach, all) {
+                    near.push(o);
+                }
+            }
+        }
         let mut best = (f64::INFINITY, first);
         for &(i, r) in order.iter() {
             let Some(c) = candidates.get(usize::from(i)) else {
