@@ -487,13 +487,13 @@ fn braking_candidates(c: Xy) -> Vec<Candidate> {
     v
 }
 
-/// Every label's spot in a scene's drawing fitted to `fit`, its rows below the ground `below`.
-pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
+/// Every label's spot in a scene's drawing fitted to `fit`, its rows below the ground `below`,
+/// its stock ghost `g` with the ghost's BB `g_bb` ([`crate::ghost::on_ground`]).
+pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox, (g, g_bb): (&Outline, Xy)) -> Spots {
     let (o, n) = (scene.ridden, scene.numbers);
     let mut shapes = Vec::with_capacity(96);
     bike(o, &mut shapes);
-    let (g, g_bb) = crate::ghost::on_ground(scene.stock, o.ground_y);
-    ghost(&g, g_bb, o, &mut shapes);
+    ghost(g, g_bb, o, &mut shapes);
     let view = view_rect(fit);
     shapes.push(seg(
         [view[0], o.ground_y],

@@ -134,7 +134,7 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let (stock, stock_bb) = ghost::on_ground(scene.stock, o.ground_y);
     let fit = view::fit(scene);
     let below = dims::Below::of(o, scene.numbers);
-    let mut spots = layout::spots(scene, &below, &fit);
+    let mut spots = layout::spots(scene, &below, &fit, (&stock, stock_bb));
     let view = view::steady(shown, fit);
     let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![

@@ -332,14 +332,14 @@ pub struct Board<'a> {
     pub shapes: &'a [Obstacle],
     /// Places no label's box may overlap (under the page's buttons).
     pub keep_out: &'a [Rect],
-    /// Reused: the candidates' order and inks.
+    /// Reused: the candidates' order, quarters and inks.
     pub scratch: Scratch,
 }
 
 /// A buffer [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
 #[derive(Default)]
 pub struct Scratch {
-    order: Vec<(u16, Rect)>,
+    order: Vec<(u16, u16, Rect)>,
 }
 
 impl Board<'_> {
@@ -383,7 +383,7 @@ impl Board<'_> {
         }
         let order = &mut self.scratch.order;
         order.clear();
-        order.resize(candidates.len(), (0, [0.0; 4]));
+        order.resize(candidates.len(), (0, 0, [0.0; 4]));
         let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
         for (i, c) in candidates.iter().enumerate() {
             let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
@@ -393,9 +393,10 @@ impl Board<'_> {
                 mx(all[2], r[2]),
                 mx(all[3], r[3]),
             ];
-            if let Some(at) = starts.get_mut(quarter(c)) {
+            let q = quarter(c);
+            if let Some(at) = starts.get_mut(q) {
                 if let Some(slot) = order.get_mut(usize::from(*at)) {
-                    *slot = (i as u16, r);
+                    *slot = (i as u16, q as u16, r);
                 }
                 *at += 1;
             }
@@ -411,11 +412,11 @@ impl Board<'_> {
             }
         }
         let mut best = (f64::INFINITY, first);
-        for &(i, r) in order.iter() {
+        for &(i, q, r) in order.iter() {
             let Some(c) = candidates.get(usize::from(i)) else {
                 continue;
             };
-            if quarter(c) as f64 / 4.0 >= best.0 {
+            if f64::from(q) / 4.0 >= best.0 {
                 break;
             }
             if c.stray >= best.0 {
