@@ -51,7 +51,8 @@ fn put(v: &mut Vec<Candidate>, at: Xy, anchor: Anchor, stray: f64) {
 pub const LABEL_STEP_MM: f64 = 10.0;
 
 fn snap(p: Xy) -> Xy {
-    p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
+    let on_grid = |v: f64| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM;
+    [on_grid(p[0]), on_grid(p[1])]
 }
 
 /// A label placed: its spot and its words.
@@ -304,7 +305,8 @@ fn pairs(
     anchor: Anchor,
     (s, per): (f64, [f64; 2]),
 ) {
-    for k in (0..=n).map(f64::from) {
+    for k in 0..n + 1 {
+        let k = f64::from(k);
         put(
             v,
             [p[0] + step[0] * k, p[1] + step[1] * k],
@@ -343,7 +345,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             put(&mut v, [l, y], Start, 0.0);
             put(&mut v, [r, y], End, 1.0);
             put(&mut v, [(l + r) / 2.0, y], Middle, 1.0);
-            for k in (1..=8).map(f64::from) {
+            for k in 1..9 {
+                let k = f64::from(k);
                 put(&mut v, [l - 50.0 * k, y], Start, 0.5 * k);
                 put(&mut v, [r + 50.0 * k, y], Start, 1.0 + 0.5 * k);
             }
@@ -397,7 +400,8 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             put(&mut v, [x1, above(y, GAP)], End, 1.0);
             put(&mut v, [x0, above(y, GAP)], Start, 1.0);
             let past = o.head_top[0].max(o.head_bottom[0]) + 20.0 + GAP;
-            for k in (0..=4).map(f64::from) {
+            for k in 0..5 {
+                let k = f64::from(k);
                 let s = 2.0 + 0.5 * k;
                 let x = past + 30.0 * k;
                 put(&mut v, [x, above(y, GAP)], Start, s);
@@ -443,7 +447,7 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
     }
     // Inside the wheel, where nothing beside the line is clear: under the hub (and lower, under
     // a chainstay sloping from the hub), or over it; centred on the axle or moved along.
-    for k in 0..=4 {
+    for k in 0..5 {
         let dx = 40.0 * f64::from(k);
         for x in [axle[0] - dx, axle[0] + dx] {
             for (j, &drop) in [0.0, 40.0, 80.0].iter().enumerate() {
@@ -469,8 +473,8 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
 /// [`STRAY_PER_MM`]), else left of it, else under it, on the [`LABEL_STEP_MM`] grid.
 fn braking_candidates(c: Xy) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(128);
-    for i in 0..=4 {
-        for j in 0..=7 {
+    for i in 0..5 {
+        for j in 0..8 {
             let (fi, fj) = (f64::from(i), f64::from(j));
             let y = c[1] + 30.0 + 50.0 * fj;
             // How far its box's corner lies from the mark's edge.
