@@ -50,9 +50,12 @@ fn put(v: &mut Vec<Candidate>, at: Xy, anchor: Anchor, stray: f64) {
 /// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
 pub const LABEL_STEP_MM: f64 = 10.0;
 
-fn snap(p: Xy) -> Xy {
+/// Moves every candidate's anchor point to the nearest point of the [`LABEL_STEP_MM`] grid.
+fn snap(v: &mut [Candidate]) {
     let on_grid = |v: f64| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM;
-    [on_grid(p[0]), on_grid(p[1])]
+    for c in v {
+        c.spot.at = [on_grid(c.spot.at[0]), on_grid(c.spot.at[1])];
+    }
 }
 
 /// A label placed: its spot and its words.
@@ -462,9 +465,7 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
             );
         }
     }
-    for x in &mut v {
-        x.spot.at = snap(x.spot.at);
-    }
+    snap(&mut v);
     v
 }
 
@@ -480,14 +481,15 @@ fn braking_candidates(c: Xy) -> Vec<Candidate> {
             // How far its box's corner lies from the mark's edge.
             let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
             let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
-            put(&mut v, snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s);
-            put(&mut v, snap([c[0] - 40.0 - 100.0 * fi, y]), End, s + 1.0);
+            put(&mut v, [c[0] + 40.0 + 100.0 * fi, y], Start, s);
+            put(&mut v, [c[0] - 40.0 - 100.0 * fi, y], End, s + 1.0);
             if j < 4 {
                 let y = c[1] - 30.0 - ASCENT_EM * EM - 50.0 * fj;
-                put(&mut v, snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s + 2.0);
+                put(&mut v, [c[0] + 40.0 + 100.0 * fi, y], Start, s + 2.0);
             }
         }
     }
+    snap(&mut v);
     v
 }
 
@@ -556,6 +558,21 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox, (g, g_bb): (&Outline, 
     }
 }
 
+/// A label of `words` at the cheapest of its `candidates` ([`Board::choose`]), keeping off
+/// `extra` and the text boxes `placed`, to which its own is added.
+fn place(
+    board: &mut Board,
+    words: String,
+    candidates: &[Candidate],
+    extra: &[Obstacle],
+    placed: &mut Vec<Rect>,
+) -> Placed {
+    let width = width_em(&words);
+    let spot = board.choose(width, candidates, extra, placed);
+    placed.push(box_rect(spot.at, spot.anchor, width, EM));
+    Placed { spot, words }
+}
+
 /// The dimension labels' spots, below the ground first, then the frame's, then BB to grip,
 /// each keeping off both riders (`riders`) and the other dimension lines (`dim_lines`, the
 /// shapes of `lines`); and their text boxes.
@@ -587,17 +604,15 @@ fn dim_spots(
         let (Some(d), Some(v)) = (lines.get(i), n.get(key)) else {
             continue;
         };
-        let words = dims::words_of(d.key, *v);
-        let width = width_em(&words);
         extra.truncate(rider_count);
         for (j, line) in dim_lines.iter().enumerate() {
             if j != i {
                 extra.push(*line);
             }
         }
-        let spot = board.choose(width, &dim_candidates(o, below, d), &extra, &placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        spots.push((d.key, Placed { spot, words }));
+        let words = dims::words_of(d.key, *v);
+        let candidates = dim_candidates(o, below, d);
+        spots.push((d.key, place(board, words, &candidates, &extra, &mut placed)));
     }
     (spots, placed)
 }
@@ -620,10 +635,7 @@ fn limit_spots(
     let mut s = LimitSpots::default();
     if let Some(b) = limits.braking_g {
         let words = crate::figure::braking_words(b);
-        let width = width_em(&words);
-        let spot = board.choose(width, &braking_candidates(c), extra, placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        s.braking = Some(Placed { spot, words });
+        s.braking = Some(place(board, words, &braking_candidates(c), extra, placed));
     }
     for (deg, contact, axle, front) in [
         (limits.descent_deg, o.front_contact, o.front_axle, true),
@@ -631,10 +643,8 @@ fn limit_spots(
     ] {
         let Some(deg) = deg else { continue };
         let words = crate::figure::slope_words(front, deg);
-        let width = width_em(&words);
-        let spot = board.choose(width, &tip_candidates(c, contact, axle), extra, placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        let placed = Some(Placed { spot, words });
+        let candidates = tip_candidates(c, contact, axle);
+        let placed = Some(place(board, words, &candidates, extra, placed));
         if front {
             s.descent = placed;
         } else {
