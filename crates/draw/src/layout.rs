@@ -114,16 +114,16 @@ const THIN_HALF: f64 = 4.0;
 
 /// The frame's points, named by the constants below: head tube bottom, BB, rear axle, seat tube
 /// top, head tube top, crown, fork leg top, front axle.
-fn frame_points(o: &Outline, bb: Xy) -> [Xy; 8] {
+fn frame_points<'a>(o: &'a Outline, bb: &'a Xy) -> [&'a Xy; 8] {
     [
-        o.head_bottom,
+        &o.head_bottom,
         bb,
-        o.rear_axle,
-        o.seat_top,
-        o.head_top,
-        o.crown,
-        o.fork_leg_top,
-        o.front_axle,
+        &o.rear_axle,
+        &o.seat_top,
+        &o.head_top,
+        &o.crown,
+        &o.fork_leg_top,
+        &o.front_axle,
     ]
 }
 
@@ -167,15 +167,15 @@ const GHOST_TUBES: [(usize, usize); 7] = [
 fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
     use cost::{FRAME, PART, RIM};
     let bb = [0.0, 0.0];
-    let p = frame_points(o, bb);
+    let p = frame_points(o, &bb);
     for (i, j, half) in TUBES {
-        if let (Some(&a), Some(&b)) = (p.get(i), p.get(j)) {
+        if let (Some(&&a), Some(&&b)) = (p.get(i), p.get(j)) {
             out.push(seg(a, b, half, FRAME));
         }
     }
-    for (c, r, rim) in [
-        (o.rear_axle, o.rear_radius, o.rear_rim_radius),
-        (o.front_axle, o.front_radius, o.front_rim_radius),
+    for (&c, r, rim) in [
+        (&o.rear_axle, o.rear_radius, o.rear_rim_radius),
+        (&o.front_axle, o.front_radius, o.front_rim_radius),
     ] {
         out.push(ring(c, r, 15.0, FRAME));
         if rim > 0.0 {
@@ -198,7 +198,7 @@ fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
         out.push(seg(s.saddle_tail, s.saddle_nose, 13.0, PART));
     }
     if let Some(c) = &o.cranks {
-        for p in [c.pedal_near, c.pedal_far] {
+        for &p in [&c.pedal_near, &c.pedal_far] {
             out.push(seg(bb, p, 9.0, PART));
             out.push(seg([p[0] - 45.0, p[1]], [p[0] + 45.0, p[1]], 7.0, PART));
         }
@@ -213,9 +213,9 @@ fn same(a: Xy, b: Xy) -> bool {
 /// The stock ghost's thin dashed outline: its tubes, fork and tyres, where they are not under
 /// the ridden bike's (with no changes the ghost lies under the ridden bike, hidden).
 fn ghost(g: &Outline, g_bb: Xy, o: &Outline, out: &mut Vec<Obstacle>) {
-    let (gp, op) = (frame_points(g, g_bb), frame_points(o, [0.0, 0.0]));
+    let (gp, op) = (frame_points(g, &g_bb), frame_points(o, &[0.0, 0.0]));
     for (i, j) in GHOST_TUBES {
-        let (Some(&a), Some(&b), Some(&ra), Some(&rb)) =
+        let (Some(&&a), Some(&&b), Some(&&ra), Some(&&rb)) =
             (gp.get(i), gp.get(j), op.get(i), op.get(j))
         else {
             continue;
@@ -224,9 +224,9 @@ fn ghost(g: &Outline, g_bb: Xy, o: &Outline, out: &mut Vec<Obstacle>) {
             out.push(seg(a, b, THIN_HALF, cost::THIN));
         }
     }
-    for (c, r, rc, rr) in [
-        (g.rear_axle, g.rear_radius, o.rear_axle, o.rear_radius),
-        (g.front_axle, g.front_radius, o.front_axle, o.front_radius),
+    for (&c, r, &rc, rr) in [
+        (&g.rear_axle, g.rear_radius, &o.rear_axle, o.rear_radius),
+        (&g.front_axle, g.front_radius, &o.front_axle, o.front_radius),
     ] {
         if !(same(c, rc) && (r - rr).abs() < 2.0) {
             out.push(ring(c, r, THIN_HALF, cost::THIN));
@@ -249,8 +249,8 @@ fn posture(o: &Outline, f: Option<&RiderFigure>, com: Option<Xy>, out: &mut Vec<
         for l in &f.legs {
             out.push(seg(f.hip, l.knee, 19.0, LIMB));
             out.push(seg(l.knee, l.ankle, 19.0, LIMB));
-            for (a, b) in [(l.ankle, l.heel), (l.heel, l.toe), (l.toe, l.ball)] {
-                out.push(seg(a, b, 7.0, LIMB));
+            for (a, b) in [(&l.ankle, &l.heel), (&l.heel, &l.toe), (&l.toe, &l.ball)] {
+                out.push(seg(*a, *b, 7.0, LIMB));
             }
         }
     }
@@ -413,9 +413,9 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             put(&mut v, [x0 - GAP, level(y)], End, 3.0);
             // Past the cockpit (a long stem, a drop bar's hoods).
             if let Some(c) = &o.cockpit {
-                let past = [c.steerer_top, c.bar_clamp, c.grip]
+                let past = [c.steerer_top[0], c.bar_clamp[0], c.grip[0]]
                     .iter()
-                    .fold(past, |m, p| m.max(p[0] + 16.0 + GAP));
+                    .fold(past, |m, x| m.max(x + 16.0 + GAP));
                 // Each millimetre past the head tube top a stray.
                 let s = 3.0 + STRAY_PER_MM * (past - x1);
                 for (k, &yb) in [level(y), above(y, GAP), below(y, GAP)].iter().enumerate() {
@@ -638,12 +638,12 @@ fn limit_spots(
         s.braking = Some(place(board, words, &braking_candidates(c), extra, placed));
     }
     for (deg, contact, axle, front) in [
-        (limits.descent_deg, o.front_contact, o.front_axle, true),
-        (limits.climb_deg, o.rear_contact, o.rear_axle, false),
+        (limits.descent_deg, &o.front_contact, &o.front_axle, true),
+        (limits.climb_deg, &o.rear_contact, &o.rear_axle, false),
     ] {
         let Some(deg) = deg else { continue };
         let words = crate::figure::slope_words(front, deg);
-        let candidates = tip_candidates(c, contact, axle);
+        let candidates = tip_candidates(c, *contact, *axle);
         let placed = Some(place(board, words, &candidates, extra, placed));
         if front {
             s.descent = placed;
