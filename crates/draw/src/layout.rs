@@ -38,10 +38,10 @@ fn level(y: f64) -> f64 {
     y - (ASCENT_EM - DESCENT_EM) / 2.0 * EM
 }
 
-/// Adds a candidate.
-fn put(v: &mut Vec<Candidate>, at: Xy, anchor: Anchor, stray: f64) {
+/// Adds a candidate anchored at `(x, y)`.
+fn put(v: &mut Vec<Candidate>, x: f64, y: f64, anchor: Anchor, stray: f64) {
     v.push(Candidate {
-        spot: Spot { at, anchor },
+        spot: Spot { at: [x, y], anchor },
         stray,
     });
 }
@@ -282,14 +282,14 @@ fn beside(p: Xy, d: Xy, stray: f64, out: &mut Vec<Candidate>) {
         let (x_right, x_left) = (p[0] + g, p[0] - g);
         let (y_up, y_down) = (above(p[1], g), below(p[1], g));
         if up_right {
-            put(out, [x_left, y_up], End, s);
-            put(out, [x_right, y_down], Start, s);
+            put(out, x_left, y_up, End, s);
+            put(out, x_right, y_down, Start, s);
         } else {
-            put(out, [x_right, y_up], Start, s);
-            put(out, [x_left, y_down], End, s);
+            put(out, x_right, y_up, Start, s);
+            put(out, x_left, y_down, End, s);
         }
-        put(out, [x_right, level(p[1])], Start, s + 1.0);
-        put(out, [x_left, level(p[1])], End, s + 1.0);
+        put(out, x_right, level(p[1]), Start, s + 1.0);
+        put(out, x_left, level(p[1]), End, s + 1.0);
     }
 }
 
@@ -312,13 +312,15 @@ fn pairs(
         let k = f64::from(k);
         put(
             v,
-            [p[0] + step[0] * k, p[1] + step[1] * k],
+            p[0] + step[0] * k,
+            p[1] + step[1] * k,
             anchor,
             s + per[0] * k,
         );
         put(
             v,
-            [p[0] - step[0] * k, p[1] - step[1] * k],
+            p[0] - step[0] * k,
+            p[1] - step[1] * k,
             anchor,
             s + per[1] * k,
         );
@@ -345,13 +347,13 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
                 rows.wheelbase_baseline()
             };
             let (l, r) = (a[0].min(b[0]), a[0].max(b[0]));
-            put(&mut v, [l, y], Start, 0.0);
-            put(&mut v, [r, y], End, 1.0);
-            put(&mut v, [(l + r) / 2.0, y], Middle, 1.0);
+            put(&mut v, l, y, Start, 0.0);
+            put(&mut v, r, y, End, 1.0);
+            put(&mut v, (l + r) / 2.0, y, Middle, 1.0);
             for k in 1..9 {
                 let k = f64::from(k);
-                put(&mut v, [l - 50.0 * k, y], Start, 0.5 * k);
-                put(&mut v, [r + 50.0 * k, y], Start, 1.0 + 0.5 * k);
+                put(&mut v, l - 50.0 * k, y, Start, 0.5 * k);
+                put(&mut v, r + 50.0 * k, y, Start, 1.0 + 0.5 * k);
             }
         }
         "bb_height_mm" if rows.bb_height => {
@@ -386,9 +388,9 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             let tyre_top = o.front_axle[1] + o.front_radius + 15.0;
             let mid = level((b[1] + tyre_top) / 2.0);
             pairs(&mut v, [x, mid], [0.0, 20.0], 8, Start, (0.0, [0.3, 0.3]));
-            put(&mut v, [a[0] - GAP, mid], End, 2.0);
-            put(&mut v, [a[0], above(b[1], GAP)], Middle, 2.0);
-            put(&mut v, [x, above(b[1], GAP)], Start, 2.0);
+            put(&mut v, a[0] - GAP, mid, End, 2.0);
+            put(&mut v, a[0], above(b[1], GAP), Middle, 2.0);
+            put(&mut v, x, above(b[1], GAP), Start, 2.0);
         }
         "reach_mm" => {
             // Above its line, else below it, else past the head tube, above the line's level
@@ -397,20 +399,20 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             for (k, &t) in [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].iter().enumerate() {
                 let x = x0 + (x1 - x0) * t;
                 let s = 0.3 * k as f64;
-                put(&mut v, [x, above(y, GAP)], Middle, s);
-                put(&mut v, [x, below(y, GAP)], Middle, 2.0 + s);
+                put(&mut v, x, above(y, GAP), Middle, s);
+                put(&mut v, x, below(y, GAP), Middle, 2.0 + s);
             }
-            put(&mut v, [x1, above(y, GAP)], End, 1.0);
-            put(&mut v, [x0, above(y, GAP)], Start, 1.0);
+            put(&mut v, x1, above(y, GAP), End, 1.0);
+            put(&mut v, x0, above(y, GAP), Start, 1.0);
             let past = o.head_top[0].max(o.head_bottom[0]) + 20.0 + GAP;
             for k in 0..5 {
                 let k = f64::from(k);
                 let s = 2.0 + 0.5 * k;
                 let x = past + 30.0 * k;
-                put(&mut v, [x, above(y, GAP)], Start, s);
-                put(&mut v, [x, level(y)], Start, s + 0.5);
+                put(&mut v, x, above(y, GAP), Start, s);
+                put(&mut v, x, level(y), Start, s + 0.5);
             }
-            put(&mut v, [x0 - GAP, level(y)], End, 3.0);
+            put(&mut v, x0 - GAP, level(y), End, 3.0);
             // Past the cockpit (a long stem, a drop bar's hoods).
             if let Some(c) = &o.cockpit {
                 let past = [c.steerer_top[0], c.bar_clamp[0], c.grip[0]]
@@ -419,7 +421,7 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
                 // Each millimetre past the head tube top a stray.
                 let s = 3.0 + STRAY_PER_MM * (past - x1);
                 for (k, &yb) in [level(y), above(y, GAP), below(y, GAP)].iter().enumerate() {
-                    put(&mut v, [past, yb], Start, s + 0.5 * k as f64);
+                    put(&mut v, past, yb, Start, s + 0.5 * k as f64);
                 }
             }
         }
@@ -455,11 +457,12 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
         for x in [axle[0] - dx, axle[0] + dx] {
             for (j, &drop) in [0.0, 40.0, 80.0].iter().enumerate() {
                 let s = 4.0 + 0.3 * f64::from(k) + 0.5 * j as f64;
-                put(&mut v, [x, below(axle[1], 10.0 + GAP + drop)], Middle, s);
+                put(&mut v, x, below(axle[1], 10.0 + GAP + drop), Middle, s);
             }
             put(
                 &mut v,
-                [x, above(axle[1], 10.0 + GAP)],
+                x,
+                above(axle[1], 10.0 + GAP),
                 Middle,
                 5.0 + 0.3 * f64::from(k),
             );
@@ -481,11 +484,11 @@ fn braking_candidates(c: Xy) -> Vec<Candidate> {
             // How far its box's corner lies from the mark's edge.
             let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
             let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
-            put(&mut v, [c[0] + 40.0 + 100.0 * fi, y], Start, s);
-            put(&mut v, [c[0] - 40.0 - 100.0 * fi, y], End, s + 1.0);
+            put(&mut v, c[0] + 40.0 + 100.0 * fi, y, Start, s);
+            put(&mut v, c[0] - 40.0 - 100.0 * fi, y, End, s + 1.0);
             if j < 4 {
                 let y = c[1] - 30.0 - ASCENT_EM * EM - 50.0 * fj;
-                put(&mut v, [c[0] + 40.0 + 100.0 * fi, y], Start, s + 2.0);
+                put(&mut v, c[0] + 40.0 + 100.0 * fi, y, Start, s + 2.0);
             }
         }
     }
