@@ -299,7 +299,8 @@ fn lerp(a: Xy, b: Xy, t: f64) -> Xy {
 }
 
 /// Candidates in pairs moving apart from `p`, `n` steps of `step` each way: the `k`th pair at
-/// `p + k·step` and `p − k·step`, their strays `s + k·per[0]` and `s + k·per[1]` (`(s, per)`).
+/// `p + k·step` and `p − k·step`, their strays `s + k·per[0]` and `s + k·per[1]` (the last
+/// argument is `(s, per)`).
 fn pairs(
     v: &mut Vec<Candidate>,
     p: Xy,
