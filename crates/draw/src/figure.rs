@@ -70,7 +70,7 @@ pub fn slope_words(front: bool, deg: f64) -> String {
 
 /// The centre of mass, its lines to both contact points, and the limits written on them, placed
 /// by [`crate::layout`] (braking, climb, descent, as the posture has them).
-pub fn com(c: Xy, o: &Outline, spots: LimitSpots, posture: &str) -> Node {
+pub fn com(c: Xy, o: &Outline, mut spots: LimitSpots, posture: &str) -> Node {
     let k = |name: &str| join(&[posture, "-", name]);
     let mut kids = vec![
         PathData::new()
@@ -87,11 +87,11 @@ pub fn com(c: Xy, o: &Outline, spots: LimitSpots, posture: &str) -> Node {
     ];
     let class = "label com-label";
     for (what, label) in [
-        ("braking", spots.braking),
-        ("climb", spots.climb),
-        ("descent", spots.descent),
+        ("braking", &mut spots.braking),
+        ("climb", &mut spots.climb),
+        ("descent", &mut spots.descent),
     ] {
-        if let Some(l) = label {
+        if let Some(l) = label.take() {
             kids.push(text(
                 k(what),
                 l.spot.at,

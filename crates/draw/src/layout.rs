@@ -10,7 +10,7 @@
 
 use crate::dims::{self, Below, Dim};
 use crate::place::{
-    box_rect, cost, width_em,
+    box_rect, cost, costliest_first, width_em,
     Anchor::{self, End, Middle, Start},
     Board, Candidate, Obstacle, Rect, Scratch, Shape, Spot, ASCENT_EM, DESCENT_EM, HALO_MM,
     STRAY_PER_MM,
@@ -38,19 +38,24 @@ fn level(y: f64) -> f64 {
     y - (ASCENT_EM - DESCENT_EM) / 2.0 * EM
 }
 
-fn cand(at: Xy, anchor: Anchor, stray: f64) -> Candidate {
-    Candidate {
-        spot: Spot { at, anchor },
+/// Adds a candidate anchored at `(x, y)`.
+fn put(v: &mut Vec<Candidate>, x: f64, y: f64, anchor: Anchor, stray: f64) {
+    v.push(Candidate {
+        spot: Spot { at: [x, y], anchor },
         stray,
-    }
+    });
 }
 
 /// The step of the handling labels' positions, mm: a label stays put while the centre of mass
 /// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
 pub const LABEL_STEP_MM: f64 = 10.0;
 
-fn snap(p: Xy) -> Xy {
-    p.map(|v| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM)
+/// Moves every candidate's anchor point to the nearest point of the [`LABEL_STEP_MM`] grid.
+fn snap(v: &mut [Candidate]) {
+    let on_grid = |v: f64| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM;
+    for c in v {
+        c.spot.at = [on_grid(c.spot.at[0]), on_grid(c.spot.at[1])];
+    }
 }
 
 /// A label placed: its spot and its words.
@@ -107,26 +112,70 @@ fn ring(c: Xy, r: f64, half: f64, cost: f64) -> Obstacle {
 /// Half a thin line's width, mm (1–2 px on the screen, about 10 mm on a phone).
 const THIN_HALF: f64 = 4.0;
 
+/// The frame's points, named by the constants below: head tube bottom, BB, rear axle, seat tube
+/// top, head tube top, crown, fork leg top, front axle.
+fn frame_points<'a>(o: &'a Outline, bb: &'a Xy) -> [&'a Xy; 8] {
+    [
+        &o.head_bottom,
+        bb,
+        &o.rear_axle,
+        &o.seat_top,
+        &o.head_top,
+        &o.crown,
+        &o.fork_leg_top,
+        &o.front_axle,
+    ]
+}
+
+// Indices into `frame_points`.
+const HB: usize = 0;
+const BB: usize = 1;
+const RA: usize = 2;
+const ST: usize = 3;
+const HT: usize = 4;
+const CR: usize = 5;
+const FL: usize = 6;
+const FA: usize = 7;
+
+/// The frame's tubes, the head tube and the fork as pairs of [`frame_points`], with half their
+/// stroke widths in web/style.css.
+const TUBES: [(usize, usize, f64); 9] = [
+    (HB, BB, 13.0),
+    (BB, RA, 13.0),
+    (RA, ST, 13.0),
+    (ST, HT, 13.0),
+    (BB, ST, 13.0),
+    (CR, FL, 13.0),
+    (HT, HB, 20.0),
+    (HB, CR, 17.0),
+    (FL, FA, 10.0),
+];
+
+/// The stock ghost's tubes and fork as pairs of [`frame_points`] (the ghost's head tube and
+/// crown are one line).
+const GHOST_TUBES: [(usize, usize); 7] = [
+    (HB, BB),
+    (BB, RA),
+    (RA, ST),
+    (ST, HT),
+    (BB, ST),
+    (HT, CR),
+    (FL, FA),
+];
+
 /// The bike's parts as shapes, with half their stroke widths in web/style.css.
 fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
     use cost::{FRAME, PART, RIM};
     let bb = [0.0, 0.0];
-    for (a, b) in [
-        (o.head_bottom, bb),
-        (bb, o.rear_axle),
-        (o.rear_axle, o.seat_top),
-        (o.seat_top, o.head_top),
-        (bb, o.seat_top),
-        (o.crown, o.fork_leg_top),
-    ] {
-        out.push(seg(a, b, 13.0, FRAME));
+    let p = frame_points(o, &bb);
+    for (i, j, half) in TUBES {
+        if let (Some(&&a), Some(&&b)) = (p.get(i), p.get(j)) {
+            out.push(seg(a, b, half, FRAME));
+        }
     }
-    out.push(seg(o.head_top, o.head_bottom, 20.0, FRAME));
-    out.push(seg(o.head_bottom, o.crown, 17.0, FRAME));
-    out.push(seg(o.fork_leg_top, o.front_axle, 10.0, FRAME));
-    for (c, r, rim) in [
-        (o.rear_axle, o.rear_radius, o.rear_rim_radius),
-        (o.front_axle, o.front_radius, o.front_rim_radius),
+    for (&c, r, rim) in [
+        (&o.rear_axle, o.rear_radius, o.rear_rim_radius),
+        (&o.front_axle, o.front_radius, o.front_rim_radius),
     ] {
         out.push(ring(c, r, 15.0, FRAME));
         if rim > 0.0 {
@@ -149,37 +198,35 @@ fn bike(o: &Outline, out: &mut Vec<Obstacle>) {
         out.push(seg(s.saddle_tail, s.saddle_nose, 13.0, PART));
     }
     if let Some(c) = &o.cranks {
-        for p in [c.pedal_near, c.pedal_far] {
+        for &p in [&c.pedal_near, &c.pedal_far] {
             out.push(seg(bb, p, 9.0, PART));
             out.push(seg([p[0] - 45.0, p[1]], [p[0] + 45.0, p[1]], 7.0, PART));
         }
     }
 }
 
+/// Whether two points lie within 2 mm of each other on both axes.
+fn same(a: Xy, b: Xy) -> bool {
+    (a[0] - b[0]).abs() < 2.0 && (a[1] - b[1]).abs() < 2.0
+}
+
 /// The stock ghost's thin dashed outline: its tubes, fork and tyres, where they are not under
 /// the ridden bike's (with no changes the ghost lies under the ridden bike, hidden).
 fn ghost(g: &Outline, g_bb: Xy, o: &Outline, out: &mut Vec<Obstacle>) {
-    let same = |a: Xy, b: Xy| (a[0] - b[0]).abs() < 2.0 && (a[1] - b[1]).abs() < 2.0;
-    let bb = [0.0, 0.0];
-    for ((a, b), (ra, rb)) in [
-        ((g.head_bottom, g_bb), (o.head_bottom, bb)),
-        ((g_bb, g.rear_axle), (bb, o.rear_axle)),
-        ((g.rear_axle, g.seat_top), (o.rear_axle, o.seat_top)),
-        ((g.seat_top, g.head_top), (o.seat_top, o.head_top)),
-        ((g_bb, g.seat_top), (bb, o.seat_top)),
-        ((g.head_top, g.crown), (o.head_top, o.crown)),
-        (
-            (g.fork_leg_top, g.front_axle),
-            (o.fork_leg_top, o.front_axle),
-        ),
-    ] {
+    let (gp, op) = (frame_points(g, &g_bb), frame_points(o, &[0.0, 0.0]));
+    for (i, j) in GHOST_TUBES {
+        let (Some(&&a), Some(&&b), Some(&&ra), Some(&&rb)) =
+            (gp.get(i), gp.get(j), op.get(i), op.get(j))
+        else {
+            continue;
+        };
         if !(same(a, ra) && same(b, rb)) {
             out.push(seg(a, b, THIN_HALF, cost::THIN));
         }
     }
-    for (c, r, rc, rr) in [
-        (g.rear_axle, g.rear_radius, o.rear_axle, o.rear_radius),
-        (g.front_axle, g.front_radius, o.front_axle, o.front_radius),
+    for (&c, r, &rc, rr) in [
+        (&g.rear_axle, g.rear_radius, &o.rear_axle, o.rear_radius),
+        (&g.front_axle, g.front_radius, &o.front_axle, o.front_radius),
     ] {
         if !(same(c, rc) && (r - rr).abs() < 2.0) {
             out.push(ring(c, r, THIN_HALF, cost::THIN));
@@ -202,8 +249,8 @@ fn posture(o: &Outline, f: Option<&RiderFigure>, com: Option<Xy>, out: &mut Vec<
         for l in &f.legs {
             out.push(seg(f.hip, l.knee, 19.0, LIMB));
             out.push(seg(l.knee, l.ankle, 19.0, LIMB));
-            for (a, b) in [(l.ankle, l.heel), (l.heel, l.toe), (l.toe, l.ball)] {
-                out.push(seg(a, b, 7.0, LIMB));
+            for (a, b) in [(&l.ankle, &l.heel), (&l.heel, &l.toe), (&l.toe, &l.ball)] {
+                out.push(seg(*a, *b, 7.0, LIMB));
             }
         }
     }
@@ -235,14 +282,14 @@ fn beside(p: Xy, d: Xy, stray: f64, out: &mut Vec<Candidate>) {
         let (x_right, x_left) = (p[0] + g, p[0] - g);
         let (y_up, y_down) = (above(p[1], g), below(p[1], g));
         if up_right {
-            out.push(cand([x_left, y_up], End, s));
-            out.push(cand([x_right, y_down], Start, s));
+            put(out, x_left, y_up, End, s);
+            put(out, x_right, y_down, Start, s);
         } else {
-            out.push(cand([x_right, y_up], Start, s));
-            out.push(cand([x_left, y_down], End, s));
+            put(out, x_right, y_up, Start, s);
+            put(out, x_left, y_down, End, s);
         }
-        out.push(cand([x_right, level(p[1])], Start, s + 1.0));
-        out.push(cand([x_left, level(p[1])], End, s + 1.0));
+        put(out, x_right, level(p[1]), Start, s + 1.0);
+        put(out, x_left, level(p[1]), End, s + 1.0);
     }
 }
 
@@ -251,20 +298,46 @@ fn lerp(a: Xy, b: Xy, t: f64) -> Xy {
     [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t]
 }
 
+/// Candidates in pairs moving apart from `p`, `n` steps of `step` each way: the `k`th pair at
+/// `p + k·step` and `p − k·step`, their strays `s + k·per[0]` and `s + k·per[1]` (the last
+/// argument is `(s, per)`).
+fn pairs(
+    v: &mut Vec<Candidate>,
+    p: Xy,
+    step: Xy,
+    n: i32,
+    anchor: Anchor,
+    (s, per): (f64, [f64; 2]),
+) {
+    for k in 0..n + 1 {
+        let k = f64::from(k);
+        put(
+            v,
+            p[0] + step[0] * k,
+            p[1] + step[1] * k,
+            anchor,
+            s + per[0] * k,
+        );
+        put(
+            v,
+            p[0] - step[0] * k,
+            p[1] - step[1] * k,
+            anchor,
+            s + per[1] * k,
+        );
+    }
+}
+
 /// The candidates of each dimension label, first choice first (see [`dims`] for the lines).
 fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(48);
     let (a, b) = (d.a, d.b);
-    let steps = |n: i32| (0..=n).map(f64::from);
     match d.key {
         "wheelbase_mm" => {
             // Under the line, centred between the axles or moved along.
             let y = rows.wheelbase_baseline();
             let m = (a[0] + b[0]) / 2.0;
-            for k in steps(8) {
-                v.push(cand([m - 50.0 * k, y], Middle, 0.3 * k));
-                v.push(cand([m + 50.0 * k, y], Middle, 0.3 * k));
-            }
+            pairs(&mut v, [m, y], [-50.0, 0.0], 8, Middle, (0.0, [0.3, 0.3]));
         }
         "trail_mm" => {
             // Under its line from the front contact forward (in BB height's row, or the
@@ -275,36 +348,38 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
                 rows.wheelbase_baseline()
             };
             let (l, r) = (a[0].min(b[0]), a[0].max(b[0]));
-            v.push(cand([l, y], Start, 0.0));
-            v.push(cand([r, y], End, 1.0));
-            v.push(cand([(l + r) / 2.0, y], Middle, 1.0));
-            for k in steps(8).skip(1) {
-                v.push(cand([l - 50.0 * k, y], Start, 0.5 * k));
-                v.push(cand([r + 50.0 * k, y], Start, 1.0 + 0.5 * k));
+            put(&mut v, l, y, Start, 0.0);
+            put(&mut v, r, y, End, 1.0);
+            put(&mut v, (l + r) / 2.0, y, Middle, 1.0);
+            for k in 1..9 {
+                let k = f64::from(k);
+                put(&mut v, l - 50.0 * k, y, Start, 0.5 * k);
+                put(&mut v, r + 50.0 * k, y, Start, 1.0 + 0.5 * k);
             }
         }
         "bb_height_mm" if rows.bb_height => {
             // Under the ground, its line ending on it: centred on the line, else moved back.
             let y = rows.upper_baseline();
-            for k in steps(10) {
-                v.push(cand([a[0] - 40.0 * k, y], Middle, 0.3 * k));
-                v.push(cand([a[0] + 40.0 * k, y], Middle, 0.5 * k));
-            }
+            pairs(
+                &mut v,
+                [a[0], y],
+                [-40.0, 0.0],
+                10,
+                Middle,
+                (0.0, [0.3, 0.5]),
+            );
         }
         "bb_height_mm" => {
             // Low between the wheels, centred between the axles, the line's foot on it; on the
             // ground line if need be.
             let m = (o.rear_axle[0] + o.front_axle[0]) / 2.0;
             let g = o.ground_y;
-            for (row, y) in [above(g, 4.0), above(g, -10.0), level(g)]
-                .into_iter()
+            for (row, &y) in [above(g, 4.0), above(g, -10.0), level(g)]
+                .iter()
                 .enumerate()
             {
-                for k in steps(6) {
-                    let s = 2.0 * row as f64 + 0.3 * k;
-                    v.push(cand([m - 40.0 * k, y], Middle, s));
-                    v.push(cand([m + 40.0 * k, y], Middle, s));
-                }
+                let s = 2.0 * row as f64;
+                pairs(&mut v, [m, y], [-40.0, 0.0], 6, Middle, (s, [0.3, 0.3]));
             }
         }
         "stack_mm" => {
@@ -313,46 +388,41 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             let x = a[0] + GAP;
             let tyre_top = o.front_axle[1] + o.front_radius + 15.0;
             let mid = level((b[1] + tyre_top) / 2.0);
-            for k in steps(8) {
-                v.push(cand([x, mid + 20.0 * k], Start, 0.3 * k));
-                v.push(cand([x, mid - 20.0 * k], Start, 0.3 * k));
-            }
-            v.push(cand([a[0] - GAP, mid], End, 2.0));
-            v.push(cand([a[0], above(b[1], GAP)], Middle, 2.0));
-            v.push(cand([x, above(b[1], GAP)], Start, 2.0));
+            pairs(&mut v, [x, mid], [0.0, 20.0], 8, Start, (0.0, [0.3, 0.3]));
+            put(&mut v, a[0] - GAP, mid, End, 2.0);
+            put(&mut v, a[0], above(b[1], GAP), Middle, 2.0);
+            put(&mut v, x, above(b[1], GAP), Start, 2.0);
         }
         "reach_mm" => {
             // Above its line, else below it, else past the head tube, above the line's level
             // or on it, else before the line's start.
             let (x0, x1, y) = (a[0], b[0], a[1]);
-            for (k, t) in [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].into_iter().enumerate() {
+            for (k, &t) in [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].iter().enumerate() {
                 let x = x0 + (x1 - x0) * t;
                 let s = 0.3 * k as f64;
-                v.push(cand([x, above(y, GAP)], Middle, s));
-                v.push(cand([x, below(y, GAP)], Middle, 2.0 + s));
+                put(&mut v, x, above(y, GAP), Middle, s);
+                put(&mut v, x, below(y, GAP), Middle, 2.0 + s);
             }
-            v.push(cand([x1, above(y, GAP)], End, 1.0));
-            v.push(cand([x0, above(y, GAP)], Start, 1.0));
+            put(&mut v, x1, above(y, GAP), End, 1.0);
+            put(&mut v, x0, above(y, GAP), Start, 1.0);
             let past = o.head_top[0].max(o.head_bottom[0]) + 20.0 + GAP;
-            for k in steps(4) {
+            for k in 0..5 {
+                let k = f64::from(k);
                 let s = 2.0 + 0.5 * k;
                 let x = past + 30.0 * k;
-                v.push(cand([x, above(y, GAP)], Start, s));
-                v.push(cand([x, level(y)], Start, s + 0.5));
+                put(&mut v, x, above(y, GAP), Start, s);
+                put(&mut v, x, level(y), Start, s + 0.5);
             }
-            v.push(cand([x0 - GAP, level(y)], End, 3.0));
+            put(&mut v, x0 - GAP, level(y), End, 3.0);
             // Past the cockpit (a long stem, a drop bar's hoods).
             if let Some(c) = &o.cockpit {
-                let past = [c.steerer_top, c.bar_clamp, c.grip]
+                let past = [c.steerer_top[0], c.bar_clamp[0], c.grip[0]]
                     .iter()
-                    .fold(past, |m, p| m.max(p[0] + 16.0 + GAP));
+                    .fold(past, |m, x| m.max(x + 16.0 + GAP));
                 // Each millimetre past the head tube top a stray.
                 let s = 3.0 + STRAY_PER_MM * (past - x1);
-                for (k, yb) in [level(y), above(y, GAP), below(y, GAP)]
-                    .into_iter()
-                    .enumerate()
-                {
-                    v.push(cand([past, yb], Start, s + 0.5 * k as f64));
+                for (k, &yb) in [level(y), above(y, GAP), below(y, GAP)].iter().enumerate() {
+                    put(&mut v, past, yb, Start, s + 0.5 * k as f64);
                 }
             }
         }
@@ -360,12 +430,9 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
             // Beyond the grip, else beside the line.
             let x = b[0] + dims::GRIP_LABEL_AHEAD;
             let y = b[1] + dims::GRIP_LABEL_RISE;
-            for k in steps(8) {
-                v.push(cand([x, y + 20.0 * k], Start, 0.3 * k));
-                v.push(cand([x, y - 20.0 * k], Start, 0.3 * k));
-            }
+            pairs(&mut v, [x, y], [0.0, 20.0], 8, Start, (0.0, [0.3, 0.3]));
             let d = [b[0] - a[0], b[1] - a[1]];
-            for (k, t) in [0.8, 0.65, 0.5].into_iter().enumerate() {
+            for (k, &t) in [0.8, 0.65, 0.5].iter().enumerate() {
                 beside(lerp(a, b, t), d, 2.0 + k as f64, &mut v);
             }
         }
@@ -381,28 +448,28 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
 fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(128);
     let d = [contact[0] - c[0], contact[1] - c[1]];
-    for (k, t) in [0.5, 0.35, 0.65, 0.2, 0.8].into_iter().enumerate() {
+    for (k, &t) in [0.5, 0.35, 0.65, 0.2, 0.8].iter().enumerate() {
         beside(lerp(c, contact, t), d, 0.5 * k as f64, &mut v);
     }
     // Inside the wheel, where nothing beside the line is clear: under the hub (and lower, under
     // a chainstay sloping from the hub), or over it; centred on the axle or moved along.
-    for k in 0..=4 {
+    for k in 0..5 {
         let dx = 40.0 * f64::from(k);
         for x in [axle[0] - dx, axle[0] + dx] {
-            for (j, drop) in [0.0, 40.0, 80.0].into_iter().enumerate() {
+            for (j, &drop) in [0.0, 40.0, 80.0].iter().enumerate() {
                 let s = 4.0 + 0.3 * f64::from(k) + 0.5 * j as f64;
-                v.push(cand([x, below(axle[1], 10.0 + GAP + drop)], Middle, s));
+                put(&mut v, x, below(axle[1], 10.0 + GAP + drop), Middle, s);
             }
-            v.push(cand(
-                [x, above(axle[1], 10.0 + GAP)],
+            put(
+                &mut v,
+                x,
+                above(axle[1], 10.0 + GAP),
                 Middle,
                 5.0 + 0.3 * f64::from(k),
-            ));
+            );
         }
     }
-    for x in &mut v {
-        x.spot.at = snap(x.spot.at);
-    }
+    snap(&mut v);
     v
 }
 
@@ -411,31 +478,32 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
 /// [`STRAY_PER_MM`]), else left of it, else under it, on the [`LABEL_STEP_MM`] grid.
 fn braking_candidates(c: Xy) -> Vec<Candidate> {
     let mut v = Vec::with_capacity(128);
-    for i in 0..=4 {
-        for j in 0..=7 {
+    for i in 0..5 {
+        for j in 0..8 {
             let (fi, fj) = (f64::from(i), f64::from(j));
             let y = c[1] + 30.0 + 50.0 * fj;
             // How far its box's corner lies from the mark's edge.
             let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
             let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
-            v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s));
-            v.push(cand(snap([c[0] - 40.0 - 100.0 * fi, y]), End, s + 1.0));
+            put(&mut v, c[0] + 40.0 + 100.0 * fi, y, Start, s);
+            put(&mut v, c[0] - 40.0 - 100.0 * fi, y, End, s + 1.0);
             if j < 4 {
                 let y = c[1] - 30.0 - ASCENT_EM * EM - 50.0 * fj;
-                v.push(cand(snap([c[0] + 40.0 + 100.0 * fi, y]), Start, s + 2.0));
+                put(&mut v, c[0] + 40.0 + 100.0 * fi, y, Start, s + 2.0);
             }
         }
     }
+    snap(&mut v);
     v
 }
 
-/// Every label's spot in a scene's drawing fitted to `fit`, its rows below the ground `below`.
-pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
+/// Every label's spot in a scene's drawing fitted to `fit`, its rows below the ground `below`,
+/// its stock ghost `g` with the ghost's BB `g_bb` ([`crate::ghost::on_ground`]).
+pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox, (g, g_bb): (&Outline, Xy)) -> Spots {
     let (o, n) = (scene.ridden, scene.numbers);
     let mut shapes = Vec::with_capacity(96);
     bike(o, &mut shapes);
-    let (g, g_bb) = crate::ghost::on_ground(scene.stock, o.ground_y);
-    ghost(&g, g_bb, o, &mut shapes);
+    ghost(g, g_bb, o, &mut shapes);
     let view = view_rect(fit);
     shapes.push(seg(
         [view[0], o.ground_y],
@@ -444,11 +512,15 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         cost::THIN,
     ));
     shapes.push(seg(o.head_top, o.steer_ground, THIN_HALF, cost::THIN));
-    shapes.sort_unstable_by(|a, b| b.cost.total_cmp(&a.cost));
+    costliest_first(&mut shapes);
     let keep_out = [[view[2] - BUTTON_MM, view[3] - BUTTON_MM, view[2], view[3]]];
     let lines = dims::dims_of(o, below);
-    let mut seated_rider = Vec::with_capacity(32);
-    let mut standing_rider = Vec::with_capacity(32);
+    let mut dim_lines = Vec::with_capacity(lines.len());
+    for l in &lines {
+        dim_lines.push(seg(l.a, l.b, THIN_HALF, cost::THIN));
+    }
+    let mut seated_rider = Vec::with_capacity(48);
+    let mut standing_rider = Vec::with_capacity(48);
     posture(o, o.rider_seated.as_ref(), o.com_seated, &mut seated_rider);
     posture(
         o,
@@ -463,42 +535,58 @@ pub fn spots(scene: &Scene, below: &Below, fit: &ViewBox) -> Spots {
         keep_out: &keep_out,
         scratch: Scratch::default(),
     };
-    let riders: Vec<Obstacle> = seated_rider
-        .iter()
-        .chain(&standing_rider)
-        .copied()
-        .collect();
-    let (dims, placed) = dim_spots(&mut board, o, n, below, &lines, riders);
-    let dim_lines: Vec<Obstacle> = lines
-        .iter()
-        .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN))
-        .collect();
-    let mut limits = [
-        (&scene.seated, o.com_seated, seated_rider),
-        (&scene.standing, o.com_standing, standing_rider),
-    ]
-    .map(|(limits, com, mut rider)| {
-        rider.extend(dim_lines.iter());
-        com.map_or(LimitSpots::default(), |c| {
-            limit_spots(&mut board, o, limits, c, &rider, placed.clone())
-        })
-    })
-    .into_iter();
+    let mut riders = Vec::with_capacity(seated_rider.len() + standing_rider.len() + lines.len());
+    riders.extend_from_slice(&seated_rider);
+    riders.extend_from_slice(&standing_rider);
+    let (dims, mut placed) = dim_spots(&mut board, o, n, below, &lines, &dim_lines, riders);
+    seated_rider.extend_from_slice(&dim_lines);
+    standing_rider.extend_from_slice(&dim_lines);
     Spots {
         dims,
-        seated: limits.next().unwrap_or_default(),
-        standing: limits.next().unwrap_or_default(),
+        seated: limit_spots(
+            &mut board,
+            o,
+            &scene.seated,
+            o.com_seated,
+            &seated_rider,
+            &mut placed,
+        ),
+        standing: limit_spots(
+            &mut board,
+            o,
+            &scene.standing,
+            o.com_standing,
+            &standing_rider,
+            &mut placed,
+        ),
     }
 }
 
+/// A label of `words` at the cheapest of its `candidates` ([`Board::choose`]), keeping off
+/// `extra` and the text boxes `placed`, to which its own is added.
+fn place(
+    board: &mut Board,
+    words: String,
+    candidates: &[Candidate],
+    extra: &[Obstacle],
+    placed: &mut Vec<Rect>,
+) -> Placed {
+    let width = width_em(&words);
+    let spot = board.choose(width, candidates, extra, placed);
+    placed.push(box_rect(spot.at, spot.anchor, width, EM));
+    Placed { spot, words }
+}
+
 /// The dimension labels' spots, below the ground first, then the frame's, then BB to grip,
-/// each keeping off both riders (`riders`) and the other dimension lines; and their text boxes.
+/// each keeping off both riders (`riders`) and the other dimension lines (`dim_lines`, the
+/// shapes of `lines`); and their text boxes.
 fn dim_spots(
     board: &mut Board,
     o: &Outline,
     n: &framewise_kernel::report::Numbers,
     below: &Below,
     lines: &[Dim],
+    dim_lines: &[Obstacle],
     riders: Vec<Obstacle>,
 ) -> (Vec<(&'static str, Placed)>, Vec<Rect>) {
     let order = [
@@ -513,61 +601,60 @@ fn dim_spots(
     let mut placed: Vec<Rect> = Vec::with_capacity(12);
     let mut extra = riders;
     let rider_count = extra.len();
-    for d in order
-        .iter()
-        .filter_map(|k| lines.iter().find(|l| l.key == *k))
-    {
-        let Some(v) = n.get(d.key) else { continue };
-        let words = dims::words_of(d.key, *v);
-        let width = width_em(&words);
+    for key in order {
+        let Some(i) = lines.iter().position(|l| l.key == key) else {
+            continue;
+        };
+        let (Some(d), Some(v)) = (lines.get(i), n.get(key)) else {
+            continue;
+        };
         extra.truncate(rider_count);
-        extra.extend(
-            lines
-                .iter()
-                .filter(|l| l.key != d.key)
-                .map(|l| seg(l.a, l.b, THIN_HALF, cost::THIN)),
-        );
-        let spot = board.choose(width, &dim_candidates(o, below, d), &extra, &placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        spots.push((d.key, Placed { spot, words }));
+        for (j, line) in dim_lines.iter().enumerate() {
+            if j != i {
+                extra.push(*line);
+            }
+        }
+        let words = dims::words_of(d.key, *v);
+        let candidates = dim_candidates(o, below, d);
+        spots.push((d.key, place(board, words, &candidates, &extra, &mut placed)));
     }
     (spots, placed)
 }
 
-/// One posture's handling labels' spots (centre of mass `c`), keeping off `extra` (that
-/// posture's rider and tip lines, and the dimension lines) and the boxes `placed` (the
-/// dimension labels', shown or not).
+/// One posture's handling labels' spots (centre of mass `com`; none, no labels), keeping off
+/// `extra` (that posture's rider and tip lines, and the dimension lines) and the boxes `placed`
+/// (the dimension labels', shown or not; as they were when it returns).
 fn limit_spots(
     board: &mut Board,
     o: &Outline,
     limits: &crate::Limits,
-    c: Xy,
+    com: Option<Xy>,
     extra: &[Obstacle],
-    mut placed: Vec<Rect>,
+    placed: &mut Vec<Rect>,
 ) -> LimitSpots {
+    let Some(c) = com else {
+        return LimitSpots::default();
+    };
+    let dims = placed.len();
     let mut s = LimitSpots::default();
     if let Some(b) = limits.braking_g {
         let words = crate::figure::braking_words(b);
-        let width = width_em(&words);
-        let spot = board.choose(width, &braking_candidates(c), extra, &placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        s.braking = Some(Placed { spot, words });
+        s.braking = Some(place(board, words, &braking_candidates(c), extra, placed));
     }
     for (deg, contact, axle, front) in [
-        (limits.descent_deg, o.front_contact, o.front_axle, true),
-        (limits.climb_deg, o.rear_contact, o.rear_axle, false),
+        (limits.descent_deg, &o.front_contact, &o.front_axle, true),
+        (limits.climb_deg, &o.rear_contact, &o.rear_axle, false),
     ] {
         let Some(deg) = deg else { continue };
         let words = crate::figure::slope_words(front, deg);
-        let width = width_em(&words);
-        let spot = board.choose(width, &tip_candidates(c, contact, axle), extra, &placed);
-        placed.push(box_rect(spot.at, spot.anchor, width, EM));
-        let placed = Some(Placed { spot, words });
+        let candidates = tip_candidates(c, *contact, *axle);
+        let placed = Some(place(board, words, &candidates, extra, placed));
         if front {
             s.descent = placed;
         } else {
             s.climb = placed;
         }
     }
+    placed.truncate(dims);
     s
 }

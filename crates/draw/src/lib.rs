@@ -134,7 +134,7 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
     let (stock, stock_bb) = ghost::on_ground(scene.stock, o.ground_y);
     let fit = view::fit(scene);
     let below = dims::Below::of(o, scene.numbers);
-    let mut spots = layout::spots(scene, &below, &fit);
+    let mut spots = layout::spots(scene, &below, &fit, (&stock, stock_bb));
     let view = view::steady(shown, fit);
     let (min_x, max_x) = (view.min_x, view.max_x());
     let mut nodes = vec![
@@ -145,16 +145,11 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
         parts::bike(o, "ridden", [0.0, 0.0]),
     ];
     for (fig, com, at, posture) in [
-        (
-            &o.rider_seated,
-            o.com_seated,
-            std::mem::take(&mut spots.seated),
-            "seated",
-        ),
+        (&o.rider_seated, o.com_seated, &mut spots.seated, "seated"),
         (
             &o.rider_standing,
             o.com_standing,
-            std::mem::take(&mut spots.standing),
+            &mut spots.standing,
             "standing",
         ),
     ] {
@@ -163,7 +158,7 @@ pub fn drawing_in(scene: &Scene, shown: Option<ViewBox>) -> Drawing {
             children.push(figure::rider(f, posture));
         }
         if let Some(c) = com {
-            children.push(figure::com(c, o, at, posture));
+            children.push(figure::com(c, o, std::mem::take(at), posture));
         }
         nodes.push(Node::Group {
             class: shapes::join(&["posture ", posture]),

@@ -18,19 +18,22 @@ pub type Rect = [f64; 4];
 /// A character's advance in the labels' type, em: DejaVu Sans Bold's (the `system-ui` of the
 /// Debian Chromium the browser tests run in, and among the widest of the usual system fonts:
 /// Roboto's and San Francisco's digits are 0.56 and 0.6 em against its 0.7), measured in the
-/// browser and rounded up; 0.8 em for a character not listed.
+/// browser and rounded up; 0.8 em for a character not listed. The letters' tables are in
+/// thousandths of an em (a quarter of the bytes of the floats, and the same numbers: a quotient
+/// of whole numbers rounds to the nearest float as the literal does).
 fn advance_em(c: char) -> f64 {
-    const LOWER: [f64; 26] = [
-        0.675, 0.716, 0.593, 0.716, 0.678, 0.435, 0.716, 0.712, 0.343, 0.343, 0.665, 0.343, 1.042,
-        0.712, 0.687, 0.716, 0.716, 0.493, 0.595, 0.478, 0.712, 0.652, 0.924, 0.645, 0.652, 0.582,
+    const LOWER: [u16; 26] = [
+        675, 716, 593, 716, 678, 435, 716, 712, 343, 343, 665, 343, 1042, 712, 687, 716, 716, 493,
+        595, 478, 712, 652, 924, 645, 652, 582,
     ];
-    const UPPER: [f64; 26] = [
-        0.774, 0.762, 0.734, 0.830, 0.683, 0.683, 0.821, 0.837, 0.372, 0.372, 0.775, 0.637, 0.995,
-        0.837, 0.850, 0.733, 0.850, 0.770, 0.720, 0.682, 0.812, 0.774, 1.103, 0.771, 0.724, 0.725,
+    const UPPER: [u16; 26] = [
+        774, 762, 734, 830, 683, 683, 821, 837, 372, 372, 775, 637, 995, 837, 850, 733, 850, 770,
+        720, 682, 812, 774, 1103, 771, 724, 725,
     ];
-    let at = |table: &[f64; 26], base: char| {
+    let at = |table: &[u16; 26], base: char| {
         let i = u32::from(c).checked_sub(u32::from(base))?;
-        usize::try_from(i).ok().and_then(|i| table.get(i)).copied()
+        let m = usize::try_from(i).ok().and_then(|i| table.get(i))?;
+        Some(f64::from(*m) / 1000.0)
     };
     match c {
         '0'..='9' => 0.696,
@@ -281,6 +284,24 @@ impl Obstacle {
     }
 }
 
+/// Sorts obstacles costliest first, keeping the order of equal costs (an insertion sort: a
+/// drawing's few dozen shapes come nearly in order, and the library's sort added kilobytes to
+/// the page's module). [`Board::choose`] sums the costs in this order, and equal costs in any
+/// order give the same sums.
+pub fn costliest_first(v: &mut [Obstacle]) {
+    for i in 1..v.len() {
+        for j in (1..=i).rev() {
+            let Some([a, b]) = v.get_mut(j - 1..=j) else {
+                break;
+            };
+            if a.cost >= b.cost {
+                break;
+            }
+            std::mem::swap(a, b);
+        }
+    }
+}
+
 /// A label's spot: its anchor point (on the baseline) and which point of the words it is.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Spot {
@@ -311,14 +332,14 @@ pub struct Board<'a> {
     pub shapes: &'a [Obstacle],
     /// Places no label's box may overlap (under the page's buttons).
     pub keep_out: &'a [Rect],
-    /// Reused: the candidates' order and inks.
+    /// Reused: the candidates' order, quarters and inks.
     pub scratch: Scratch,
 }
 
 /// A buffer [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
 #[derive(Default)]
 pub struct Scratch {
-    order: Vec<(u16, Rect)>,
+    order: Vec<(u16, u16, Rect)>,
 }
 
 impl Board<'_> {
@@ -362,7 +383,7 @@ impl Board<'_> {
         }
         let order = &mut self.scratch.order;
         order.clear();
-        order.resize(candidates.len(), (0, [0.0; 4]));
+        order.resize(candidates.len(), (0, 0, [0.0; 4]));
         let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
         for (i, c) in candidates.iter().enumerate() {
             let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
@@ -372,9 +393,10 @@ impl Board<'_> {
                 mx(all[2], r[2]),
                 mx(all[3], r[3]),
             ];
-            if let Some(at) = starts.get_mut(quarter(c)) {
+            let q = quarter(c);
+            if let Some(at) = starts.get_mut(q) {
                 if let Some(slot) = order.get_mut(usize::from(*at)) {
-                    *slot = (i as u16, r);
+                    *slot = (i as u16, q as u16, r);
                 }
                 *at += 1;
             }
@@ -382,18 +404,19 @@ impl Board<'_> {
         // Only the shapes within reach of some candidate (the costliest first, as given: a
         // candidate is dropped as soon as it costs more than the best).
         let mut near: Vec<&Obstacle> = Vec::with_capacity(64);
-        near.extend(
-            self.shapes
-                .iter()
-                .chain(extra)
-                .filter(|o| overlap(o.reach, all)),
-        );
+        for list in [self.shapes, extra] {
+            for o in list {
+                if overlap(o.reach, all) {
+                    near.push(o);
+                }
+            }
+        }
         let mut best = (f64::INFINITY, first);
-        for &(i, r) in order.iter() {
+        for &(i, q, r) in order.iter() {
             let Some(c) = candidates.get(usize::from(i)) else {
                 continue;
             };
-            if quarter(c) as f64 / 4.0 >= best.0 {
+            if f64::from(q) / 4.0 >= best.0 {
                 break;
             }
             if c.stray >= best.0 {
@@ -498,6 +521,42 @@ mod tests {
             tyre.meets([114.0, -20.0, 200.0, 20.0], 5.0),
             "within the halo"
         );
+    }
+
+    #[test]
+    fn costliest_first_keeps_the_order_of_equal_costs() {
+        let disc = |x: f64, cost: f64| {
+            Obstacle::new(
+                Shape::Disc {
+                    c: [x, 0.0],
+                    r: 1.0,
+                },
+                cost,
+            )
+        };
+        let mut v = [
+            disc(0.0, cost::THIN),
+            disc(1.0, cost::FRAME),
+            disc(2.0, cost::THIN),
+            disc(3.0, cost::LIMB),
+            disc(4.0, cost::FRAME),
+        ];
+        costliest_first(&mut v);
+        let got: Vec<(f64, f64)> = v
+            .iter()
+            .map(|o| match o.shape {
+                Shape::Disc { c, .. } => (o.cost, c[0]),
+                _ => (o.cost, f64::NAN),
+            })
+            .collect();
+        let want = [
+            (cost::FRAME, 1.0),
+            (cost::FRAME, 4.0),
+            (cost::LIMB, 3.0),
+            (cost::THIN, 0.0),
+            (cost::THIN, 2.0),
+        ];
+        assert_eq!(got, want);
     }
 
     #[test]
