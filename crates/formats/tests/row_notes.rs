@@ -28,6 +28,15 @@ fn bike(edits: &[(&str, &str)]) -> BikeReport {
     r.bikes.into_iter().next().unwrap()
 }
 
+/// The `inconsistent` warning's message.
+fn inconsistent(b: &BikeReport) -> &str {
+    &b.warnings
+        .iter()
+        .find(|w| w.code == "inconsistent")
+        .unwrap()
+        .message
+}
+
 #[test]
 fn only_a_suspect_quotes_what_the_others_make_it() {
     // The demo with the wheelbase typed as 1300 mm (the demo frame gives about 1232 mm): reach
@@ -81,12 +90,7 @@ fn only_a_suspect_quotes_what_the_others_make_it() {
     );
     // The warning names the same values as the notes: the suspects, and no leave-one-out figure
     // of the others (a head tube of 354 mm).
-    let warning = &b
-        .warnings
-        .iter()
-        .find(|w| w.code == "inconsistent")
-        .unwrap()
-        .message;
+    let warning = inconsistent(&b);
     assert!(warning.contains("reach and wheelbase do not fit one frame together"));
     assert!(!warning.contains("354"), "{warning}");
 }
@@ -214,12 +218,7 @@ fn the_notes_name_the_suspects_in_the_order_the_warning_does() {
     };
     let (wheelbase, reach) = (steps("wheelbase_mm", 10.0), steps("reach_mm", 1.0));
     assert!(wheelbase < 10.0 && reach > 60.0, "{wheelbase} {reach}");
-    let warning = &b
-        .warnings
-        .iter()
-        .find(|w| w.code == "inconsistent")
-        .unwrap()
-        .message;
+    let warning = inconsistent(&b);
     assert!(
         warning.contains("wheelbase and reach do not fit one frame together"),
         "{warning}"
