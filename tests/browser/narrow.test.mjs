@@ -37,7 +37,7 @@ for (const width of [320, 345, 360]) {
 // row, so that no name there runs to three lines (they did at 38 %: "Sit point from BB,
 // horizontal mm"); the frame's table (three value columns) keeps its numbers whole.
 for (const width of [320, 360]) {
-  test(`${width} px: names in the one- and two-value tables take at most two lines`, { timeout: 60000 }, async () => {
+  test(`${width} px: names in the one- and two-value tables take at most two lines; no ° or % on a line of its own`, { timeout: 60000 }, async () => {
     const { page, problems } = await openPage(env, { width, height: 740 });
     await page.evaluate(() => document.documentElement.setAttribute('data-render-all', ''));
     const m = await page.evaluate(() => {
@@ -48,12 +48,26 @@ for (const width of [320, 360]) {
       const of = (sel) => [...document.querySelectorAll(sel)].map((th) => [th.closest('tr').dataset.key, lines(th)]);
       const cut = [...document.querySelectorAll('.numbers td.num .v')].filter((v) => v.scrollWidth > v.clientWidth + 1)
         .map((v) => v.textContent);
-      return { narrow: of('.numbers.one-value th[scope="row"], .numbers.two-values th[scope="row"]'), cut };
+      // A sign (° or %) on a line of its own: its middle not on the line of the name's last letter.
+      const alone = [...document.querySelectorAll('.numbers button.term')].filter((btn) => {
+        const u = btn.querySelector('.u');
+        if (!u || u.textContent.length > 1) return false;
+        const walk = document.createTreeWalker(btn, NodeFilter.SHOW_TEXT);
+        let last = null;
+        for (let n = walk.nextNode(); n; n = walk.nextNode()) if (!u.contains(n) && n.data.trim()) last = n;
+        const r = document.createRange();
+        const end = last.data.trimEnd().length;
+        r.setStart(last, end - 1); r.setEnd(last, end);
+        const a = r.getBoundingClientRect(), b = u.getBoundingClientRect();
+        return Math.abs((a.top + a.bottom) / 2 - (b.top + b.bottom) / 2) > a.height / 2;
+      }).map((btn) => btn.textContent);
+      return { narrow: of('.numbers.one-value th[scope="row"], .numbers.two-values th[scope="row"]'), cut, alone };
     });
     assert.ok(m.narrow.length >= 30, `names in the one- and two-value tables: ${m.narrow.length}`);
     const long = m.narrow.filter(([, n]) => n > 2);
     assert.deepEqual(long, [], 'no name of three lines or more');
     assert.deepEqual(m.cut, [], 'every number shown whole');
+    assert.deepEqual(m.alone, [], 'no ° or % on a line of its own');
     assert.deepEqual(problems, []);
   });
 }

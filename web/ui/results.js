@@ -36,9 +36,16 @@ function term(key, scope, words) {
   const btn = el('button', {
     type: 'button', class: 'term', title: t?.definition ?? '', 'aria-expanded': String(open.has(`${scope}|${key}`)),
     'data-term': key, 'data-scope': scope,
-  }, label);
+  });
   const unit = unitOf(key)[1];
-  if (unit) btn.append(el('span', { class: 'u' }, unit));
+  if (unit.length > 1) btn.append(label, el('span', { class: 'u' }, unit));
+  else if (!unit) btn.append(label);
+  else {
+    // A sign (° or %) wraps with the name's last word: alone on a line it reads as belonging to
+    // nothing. A unit in letters (mm) may take a line of its own, so a short name stays whole.
+    const cut = label.lastIndexOf(' ') + 1;
+    btn.append(label.slice(0, cut), el('span', { class: 'last' }, label.slice(cut), el('span', { class: 'u' }, unit)));
+  }
   return [btn];
 }
 
