@@ -50,9 +50,21 @@ fn put(v: &mut Vec<Candidate>, x: f64, y: f64, anchor: Anchor, stray: f64) {
 /// moves less than this, so most edits do not lay its text out again (about 1.5 px on a phone).
 pub const LABEL_STEP_MM: f64 = 10.0;
 
+/// `v` rounded to the nearest whole number, halves away from zero: `f64::round`, but by a
+/// truncation and a comparison (in wasm `round` is a library call, `trunc` an instruction; the
+/// fraction `v − trunc(v)` is exact).
+fn round(v: f64) -> f64 {
+    let t = v.trunc();
+    if (v - t).abs() >= 0.5 {
+        t + 1f64.copysign(v)
+    } else {
+        t
+    }
+}
+
 /// Moves every candidate's anchor point to the nearest point of the [`LABEL_STEP_MM`] grid.
 fn snap(v: &mut [Candidate]) {
-    let on_grid = |v: f64| (v / LABEL_STEP_MM).round() * LABEL_STEP_MM;
+    let on_grid = |v: f64| round(v / LABEL_STEP_MM) * LABEL_STEP_MM;
     for c in v {
         c.spot.at = [on_grid(c.spot.at[0]), on_grid(c.spot.at[1])];
     }
@@ -657,4 +669,37 @@ fn limit_spots(
     }
     placed.truncate(dims);
     s
+}
+
+#[cfg(test)]
+mod tests {
+    /// The truncating `round` gives what `f64::round` gives, halves and the largest fractions
+    /// below a half included.
+    #[test]
+    fn round_is_f64_round() {
+        let below_half = 0.5 - f64::EPSILON / 4.0;
+        for v in [
+            0.0,
+            -0.0,
+            0.3,
+            -0.3,
+            0.5,
+            -0.5,
+            below_half,
+            -below_half,
+            1.5,
+            -2.5,
+            2.4999999999999996,
+            -123.49999999999999,
+            4503599627370495.5,
+            9007199254740993.0,
+            1e300,
+            f64::INFINITY,
+            f64::NEG_INFINITY,
+        ] {
+            let (got, want) = (super::round(v), v.round());
+            assert_eq!(got.to_bits(), want.to_bits(), "{v}: {got} against {want}");
+        }
+        assert!(super::round(f64::NAN).is_nan());
+    }
 }

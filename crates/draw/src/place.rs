@@ -91,6 +91,7 @@ impl Anchor {
 
 /// The ink of a label `width` em wide ([`width_em`]) in type of `em` mm, its baseline's anchor
 /// point at `at`.
+#[inline(always)]
 pub fn ink_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
     let x0 = left(at[0], anchor, width * em);
     [
@@ -102,6 +103,7 @@ pub fn ink_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
 }
 
 /// The text box of the same label ([`BOX_ASCENT_EM`], [`BOX_DESCENT_EM`]).
+#[inline(always)]
 pub fn box_rect(at: Xy, anchor: Anchor, width: f64, em: f64) -> Rect {
     let x0 = left(at[0], anchor, width * em);
     [
@@ -145,11 +147,13 @@ pub fn grow(r: Rect, m: f64) -> Rect {
 }
 
 /// Whether two rectangles overlap (touching edges do not).
+#[inline(always)]
 pub fn overlap(a: Rect, b: Rect) -> bool {
     a[0] < b[2] && b[0] < a[2] && a[1] < b[3] && b[1] < a[3]
 }
 
 /// Distance from a point to a rectangle (0 inside).
+#[inline(always)]
 pub fn point_rect(p: Xy, r: Rect) -> f64 {
     let dx = mx(mx(r[0] - p[0], p[0] - r[2]), 0.0);
     let dy = mx(mx(r[1] - p[1], p[1] - r[3]), 0.0);
@@ -332,14 +336,29 @@ pub struct Board<'a> {
     pub shapes: &'a [Obstacle],
     /// Places no label's box may overlap (under the page's buttons).
     pub keep_out: &'a [Rect],
-    /// Reused: the candidates' order, quarters and inks.
+    /// Reused: the candidates' order and the shapes near them.
     pub scratch: Scratch,
 }
 
-/// A buffer [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
+/// Buffers [`Board::choose`] reuses from one label to the next (a drawing places a dozen).
 #[derive(Default)]
 pub struct Scratch {
-    order: Vec<(u16, u16, Rect)>,
+    /// The candidates' indices, the least stray first ([`Board::sort_by_stray`]).
+    order: Vec<u16>,
+    /// The shapes within reach of some candidate ([`Board::gather_near`]).
+    near: Vec<Obstacle>,
+}
+
+/// A candidate's stray in whole quarters of a point, up to [`QUARTERS`] − 1.
+fn quarter(c: &Candidate) -> usize {
+    let q = c.stray * 4.0;
+    if q >= (QUARTERS - 1) as f64 {
+        QUARTERS - 1
+    } else if q > 0.0 {
+        q as usize
+    } else {
+        0
+    }
 }
 
 impl Board<'_> {
@@ -355,97 +374,24 @@ impl Board<'_> {
         extra: &[Obstacle],
         placed: &[Rect],
     ) -> Spot {
-        let first = candidates.first().map(|c| c.spot);
-        // The least stray first, by a counting sort on whole quarters of a point (a tenth of the
-        // work of sorting the floats): once a candidate's quarter costs as much as the best, so
-        // does every later one's. With each candidate, its ink.
-        let quarter = |c: &Candidate| {
-            let q = c.stray * 4.0;
-            if q >= (QUARTERS - 1) as f64 {
-                QUARTERS - 1
-            } else if q > 0.0 {
-                q as usize
-            } else {
-                0
-            }
-        };
-        let mut starts = [0u16; QUARTERS + 1];
-        for c in candidates {
-            if let Some(n) = starts.get_mut(quarter(c) + 1) {
-                *n += 1;
-            }
-        }
-        for i in 1..starts.len() {
-            let before = starts.get(i - 1).copied().unwrap_or(0);
-            if let Some(n) = starts.get_mut(i) {
-                *n += before;
-            }
-        }
-        let order = &mut self.scratch.order;
-        order.clear();
-        order.resize(candidates.len(), (0, 0, [0.0; 4]));
-        let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
-        for (i, c) in candidates.iter().enumerate() {
-            let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
-            all = [
-                mn(all[0], r[0]),
-                mn(all[1], r[1]),
-                mx(all[2], r[2]),
-                mx(all[3], r[3]),
-            ];
-            let q = quarter(c);
-            if let Some(at) = starts.get_mut(q) {
-                if let Some(slot) = order.get_mut(usize::from(*at)) {
-                    *slot = (i as u16, q as u16, r);
-                }
-                *at += 1;
-            }
-        }
-        // Only the shapes within reach of some candidate (the costliest first, as given: a
-        // candidate is dropped as soon as it costs more than the best).
-        let mut near: Vec<&Obstacle> = Vec::with_capacity(64);
-        for list in [self.shapes, extra] {
-            for o in list {
-                if overlap(o.reach, all) {
-                    near.push(o);
-                }
-            }
-        }
-        let mut best = (f64::INFINITY, first);
-        for &(i, q, r) in order.iter() {
+        let all = self.sort_by_stray(candidates, width);
+        self.gather_near(all, extra);
+        let mut best = (f64::INFINITY, candidates.first().map(|c| c.spot));
+        for &i in &self.scratch.order {
             let Some(c) = candidates.get(usize::from(i)) else {
                 continue;
             };
-            if f64::from(q) / 4.0 >= best.0 {
+            // Once a candidate's quarter costs as much as the best, so does every later one's.
+            if quarter(c) as f64 / 4.0 >= best.0 {
                 break;
             }
-            if c.stray >= best.0 {
+            if c.stray >= best.0 || !self.clear(c.spot, width, placed) {
                 continue;
             }
-            let spot = c.spot;
-            let b = box_rect(spot.at, spot.anchor, width, self.em);
-            let inside = b[0] >= self.view[0]
-                && b[1] >= self.view[1]
-                && b[2] <= self.view[2]
-                && b[3] <= self.view[3];
-            let halo = grow(b, HALO_MM);
-            if !inside
-                || self.keep_out.iter().any(|k| overlap(b, *k))
-                || placed.iter().any(|p| overlap(halo, *p))
-            {
-                continue;
-            }
-            let mut total = c.stray;
-            for o in near.iter() {
-                if total >= best.0 {
-                    break;
-                }
-                if o.meets(r) {
-                    total += o.cost;
-                }
-            }
+            let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
+            let total = crossed(&self.scratch.near, r, c.stray, best.0);
             if total < best.0 {
-                best = (total, Some(spot));
+                best = (total, Some(c.spot));
             }
         }
         best.1.unwrap_or(Spot {
@@ -453,10 +399,97 @@ impl Board<'_> {
             anchor: Anchor::Start,
         })
     }
+
+    /// Puts the candidates' indices in [`Scratch::order`], the least stray first, by a counting
+    /// sort on whole quarters of a point ([`quarter`]; a tenth of the work of sorting the
+    /// floats, equal quarters in their given order); and returns the box holding every
+    /// candidate's ink, for a label `width` em wide.
+    fn sort_by_stray(&mut self, candidates: &[Candidate], width: f64) -> Rect {
+        let mut starts = [0u16; QUARTERS];
+        let mut top = 0;
+        let mut all = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
+        for c in candidates {
+            let q = quarter(c);
+            if let Some(n) = starts.get_mut(q) {
+                *n += 1;
+            }
+            top = top.max(q);
+            let r = ink_rect(c.spot.at, c.spot.anchor, width, self.em);
+            all = [
+                mn(all[0], r[0]),
+                mn(all[1], r[1]),
+                mx(all[2], r[2]),
+                mx(all[3], r[3]),
+            ];
+        }
+        // Each quarter's count becomes where its first candidate goes.
+        let mut sum = 0;
+        for n in starts.get_mut(..=top).unwrap_or_default() {
+            let count = *n;
+            *n = sum;
+            sum += count;
+        }
+        let order = &mut self.scratch.order;
+        order.clear();
+        order.resize(candidates.len(), 0);
+        for (i, c) in candidates.iter().enumerate() {
+            if let Some(at) = starts.get_mut(quarter(c)) {
+                if let Some(slot) = order.get_mut(usize::from(*at)) {
+                    *slot = i as u16;
+                }
+                *at += 1;
+            }
+        }
+        all
+    }
+
+    /// Keeps in [`Scratch::near`] the shapes within reach of `all` (every candidate's ink), the
+    /// costliest first as given: [`crossed`] stops once a candidate costs more than the best.
+    fn gather_near(&mut self, all: Rect, extra: &[Obstacle]) {
+        let near = &mut self.scratch.near;
+        near.clear();
+        for list in [self.shapes, extra] {
+            for o in list {
+                if overlap(o.reach, all) {
+                    near.push(*o);
+                }
+            }
+        }
+    }
+
+    /// Whether a label `width` em wide at `spot` keeps inside the view box, off
+    /// [`Board::keep_out`] and, its halo added, off the text boxes `placed`.
+    fn clear(&self, spot: Spot, width: f64, placed: &[Rect]) -> bool {
+        let b = box_rect(spot.at, spot.anchor, width, self.em);
+        let inside = b[0] >= self.view[0]
+            && b[1] >= self.view[1]
+            && b[2] <= self.view[2]
+            && b[3] <= self.view[3];
+        let halo = grow(b, HALO_MM);
+        inside
+            && !self.keep_out.iter().any(|k| overlap(b, *k))
+            && !placed.iter().any(|p| overlap(halo, *p))
+    }
 }
 
-/// How many quarter points of stray the candidates are sorted into ([`Board::choose`]): up
-/// to 32 points, more is sorted last.
+/// `stray` and the costs of the shapes of `near` that the ink `r` meets, added in their order;
+/// as soon as the sum reaches `best`, that partial sum (the candidate has lost: costs are not
+/// negative). The sum changes only where a shape is met, so it is compared only there.
+fn crossed(near: &[Obstacle], r: Rect, stray: f64, best: f64) -> f64 {
+    let mut total = stray;
+    for o in near {
+        if o.meets(r) {
+            total += o.cost;
+            if total >= best {
+                break;
+            }
+        }
+    }
+    total
+}
+
+/// How many quarter points of stray the candidates are sorted into ([`Board::sort_by_stray`]):
+/// up to 32 points, more is sorted last.
 const QUARTERS: usize = 128;
 
 /// The stray cost of each millimetre a label lies farther from what it belongs to: 60 mm per
