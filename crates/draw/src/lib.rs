@@ -62,6 +62,18 @@ pub struct Limits {
     pub climb_deg: Option<f64>,
 }
 
+impl Limits {
+    /// One posture's limits from its statics numbers (the report's `handling.seated` or
+    /// `handling.standing`).
+    pub fn of(n: &Numbers) -> Self {
+        Limits {
+            braking_g: n.get("pitch_over_decel_g").copied(),
+            descent_deg: n.get("front_tip_slope_deg").copied(),
+            climb_deg: n.get("rear_tip_slope_deg").copied(),
+        }
+    }
+}
+
 /// Everything one drawing shows.
 #[derive(Debug, Clone, Copy)]
 pub struct Scene<'a> {
@@ -78,6 +90,28 @@ pub struct Scene<'a> {
     pub seated: Limits,
     /// Limits on the standing centre-of-mass lines.
     pub standing: Limits,
+}
+
+impl<'a> Scene<'a> {
+    /// A report's bike: ridden and stock outlines, ridden numbers, and the handling limits of
+    /// both postures when `with_limits` (the page), none otherwise (the CLI's `draw`).
+    pub fn of_bike(report: &'a BikeReport, with_limits: bool) -> Self {
+        let limits = |n| {
+            if with_limits {
+                Limits::of(n)
+            } else {
+                Limits::default()
+            }
+        };
+        Scene {
+            label: &report.label,
+            ridden: &report.outline,
+            stock: &report.stock_outline,
+            numbers: &report.ridden,
+            seated: limits(&report.handling.seated),
+            standing: limits(&report.handling.standing),
+        }
+    }
 }
 
 /// Bounding box `(min_x, min_y, max_x, max_y)` in kernel coordinates: tyres, frame, cockpit,
@@ -181,14 +215,7 @@ pub fn draw_bike(report: &BikeReport) -> String {
 
 /// The model of [`draw_bike`].
 pub fn drawing_of_bike(report: &BikeReport) -> Drawing {
-    drawing(&Scene {
-        label: &report.label,
-        ridden: &report.outline,
-        stock: &report.stock_outline,
-        numbers: &report.ridden,
-        seated: Limits::default(),
-        standing: Limits::default(),
-    })
+    drawing(&Scene::of_bike(report, false))
 }
 
 #[cfg(test)]

@@ -304,23 +304,8 @@ fn real(json: &str) -> BikeReport {
     r.bikes.remove(0)
 }
 
-fn limits(n: &Numbers) -> Limits {
-    Limits {
-        braking_g: n.get("pitch_over_decel_g").copied(),
-        descent_deg: n.get("front_tip_slope_deg").copied(),
-        climb_deg: n.get("rear_tip_slope_deg").copied(),
-    }
-}
-
 fn real_drawing(b: &BikeReport) -> Drawing {
-    drawing(&Scene {
-        label: &b.label,
-        ridden: &b.outline,
-        stock: &b.stock_outline,
-        numbers: &b.ridden,
-        seated: limits(&b.handling.seated),
-        standing: limits(&b.handling.standing),
-    })
+    drawing(&Scene::of_bike(b, true))
 }
 
 /// Source: the review of the demo bike at 360×740 (reach lay on the top tube, descent on the

@@ -63,15 +63,7 @@ pub(super) fn drawing_of(
     bike: &framewise_kernel::report::BikeReport,
     shown: Option<framewise_draw::ViewBox>,
 ) -> framewise_draw::Drawing {
-    let scene = framewise_draw::Scene {
-        label: &bike.label,
-        ridden: &bike.outline,
-        stock: &bike.stock_outline,
-        numbers: &bike.ridden,
-        seated: limits(&bike.handling.seated),
-        standing: limits(&bike.handling.standing),
-    };
-    framewise_draw::drawing_in(&scene, shown)
+    framewise_draw::drawing_in(&framewise_draw::Scene::of_bike(bike, true), shown)
 }
 
 pub(super) fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch<'_> {
@@ -87,13 +79,4 @@ pub(super) fn patch_of(d: &framewise_draw::Drawing) -> DrawingPatch<'_> {
 pub(super) struct DrawingPatch<'a> {
     structure: String,
     patch: Vec<framewise_draw::Patch<'a>>,
-}
-
-/// The handling limits written on the centre-of-mass lines, from one posture's statics.
-fn limits(n: &framewise_kernel::report::Numbers) -> framewise_draw::Limits {
-    framewise_draw::Limits {
-        braking_g: n.get("pitch_over_decel_g").copied(),
-        descent_deg: n.get("front_tip_slope_deg").copied(),
-        climb_deg: n.get("rear_tip_slope_deg").copied(),
-    }
 }
