@@ -304,3 +304,56 @@ fn a_wheelbase_out_of_range_names_the_stand_in_rear_centre_it_depends_on() {
         )
     );
 }
+
+#[test]
+fn the_stand_in_fork_is_not_called_the_cause_when_no_fork_of_most_bikes_would_clear_it() {
+    // A listing with a misprinted reach (680 for 480 mm), no fork length and no rear: the stand-in
+    // fork (29x2.4: a2c = radius + 190 = 561.96 mm) and rear centre (435 mm) are used. By §8a
+    // with equal wheels (lower stack 0 by its prior):
+    //   front centre = reach + (head_tube + a2c)·cos h + offset·sin h
+    //                = 680 + 691.96 cos 61° + 44 sin 61° = 1053.95 mm, wheelbase 1488.95 mm;
+    //   BB drop = stack − (head_tube + a2c)·sin h + offset·cos h = 66.13 mm (inside its range);
+    //   effective top tube = reach + stack / tan(seat angle) = 680 + 650 / tan 75° = 854.17 mm
+    //   (the seat angle's stand-in of 75°, which no fork moves).
+    // The shortest fork of most bikes (catalogue fork_a2c_mm: 340 mm) still leaves the front
+    // centre at 680 + 470 cos 61° + 44 sin 61° = 946.35 mm, over 900: the fork moves both
+    // unusual values but cannot be their cause; the sentence says they depend on it, with its
+    // length, as for the rear centre. (Before, any fork that moved them was "the likely cause".)
+    let h = 61f64.to_radians();
+    let fc = |a2c: f64| 680.0 + (130.0 + a2c) * h.cos() + 44.0 * h.sin();
+    assert!(
+        (fc(TRAIL_R + 190.0) - 1053.95).abs() < 0.01,
+        "{}",
+        fc(TRAIL_R + 190.0)
+    );
+    assert!((fc(340.0) - 946.35).abs() < 0.01, "{}", fc(340.0));
+    let frame = [
+        ("reach_mm", 680.0),
+        ("stack_mm", 650.0),
+        ("head_angle_deg", 61.0),
+        ("head_tube_mm", 130.0),
+        ("fork_offset_mm", 44.0),
+    ];
+    let sol = run(&frame, TRAIL_R, Some(2.4 * 25.4));
+    let wheelbase = sol_number(&sol, "wheelbase_mm", TRAIL_R);
+    assert!(
+        (wheelbase - (fc(TRAIL_R + 190.0) + 435.0)).abs() < 0.01,
+        "{wheelbase}"
+    );
+    assert_eq!(
+        solved_frame_caution(&sol),
+        Some(
+            "The solved frame is unusual: front centre 1054 mm (most bikes: 550 to 900 mm), \
+             wheelbase 1489 mm (most bikes: 950 to 1350 mm), effective top tube 854 mm (most \
+             bikes: 450 to 720 mm). The front centre and wheelbase also \
+             depend on the stand-in fork axle-to-crown of 562 mm: enter Fork axle-to-crown. The \
+             wheelbase also depends on the stand-in rear centre of 435 mm: enter Chainstay."
+        )
+    );
+    // The reach as printed on the next size (480 mm): the front centre 853.95 mm, the wheelbase
+    // 1288.95 mm and the effective top tube 654.17 mm are a bike's: no caution at all.
+    let mut fixed = frame.to_vec();
+    fixed[0] = ("reach_mm", 480.0);
+    let sol = run(&fixed, TRAIL_R, Some(2.4 * 25.4));
+    assert_eq!(solved_frame_caution(&sol), None);
+}

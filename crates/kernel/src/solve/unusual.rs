@@ -7,9 +7,13 @@
 //! [`super::unknowns::fork_stand_in`], [`super::unknowns::typical`]) moves those values, it is
 //! named with the measurement to enter:
 //!
-//! - the stand-in fork as the likely cause: its axle-to-crown stands for forks from about 340 to
-//!   600 mm, so it alone can put a frame out of range (a 150 mm suspension fork under a low stack
-//!   puts the BB 115 mm above the axles);
+//! - the stand-in fork as the likely cause when some fork of most bikes' axle-to-crown (340 to
+//!   600 mm, catalogue `fork_a2c_mm`, tried every 5 mm) would bring every unusual value it moves
+//!   back inside its range: it stands for forks across that span, so it alone can put a frame out of
+//!   range (a 150 mm suspension fork under a low stack puts the BB 115 mm above the axles);
+//!   otherwise (no fork of most bikes would: a misprint, or another stand-in, is the more likely
+//!   cause) the values it moves are said to also depend on it, with its length, as for the rear
+//!   centre;
 //! - the stand-in rear centre, with its length, as something the values it moves also depend
 //!   on, never as the cause: a stand-in of 415 or 435 mm cannot put them out of range by itself.
 //!   The chainstay `√(rc² + drop²)` stays inside 380–470 mm for any BB drop inside the hard
@@ -65,51 +69,93 @@ pub fn warning(model: &Model, x: &X, rows: &[Row], pinned: &[usize]) -> Option<W
         if moved.is_empty() {
             continue;
         }
-        if u == ix::A2C {
+        let at_mm = x.get(u).copied()?;
+        let labels = labels_of(&moved);
+        if u == ix::A2C && a_fork_clears(model, x, rows, &moved) {
             msg.push_str(" The stand-in fork is the likely cause: enter Fork axle-to-crown.");
+        } else if u == ix::A2C {
+            msg.push_str(&depends_on(
+                &labels,
+                "fork axle-to-crown",
+                at_mm,
+                "Fork axle-to-crown",
+            ));
         } else {
-            msg.push_str(&depends_on(&moved, x.get(u).copied()?));
+            msg.push_str(&depends_on(&labels, "rear centre", at_mm, "Chainstay"));
         }
     }
     Some(Warning::new("caution_solved_frame", msg))
 }
 
-/// The labels (in a sentence) of the unusual values that nudging unknown `u` of `x` by 10 mm
-/// moves by more than 0.5 mm; `None` when the nudged frame cannot be measured.
+/// The indices of the unusual values that nudging unknown `u` of `x` by 10 mm moves by more than
+/// 0.5 mm; `None` when the nudged frame cannot be measured.
 fn moved_by(
     model: &Model,
     x: &X,
     u: usize,
     predicted: &[f64; MEASURED_COUNT],
     rows: &[Row],
-) -> Option<Vec<String>> {
+) -> Option<Vec<usize>> {
     let mut nudged = *x;
     *nudged.get_mut(u)? += 10.0;
     let p = model.predict(&nudged)?;
     let mut out = Vec::new();
     for (i, (&v, q)) in predicted.iter().zip(p).enumerate() {
-        let label = MEASURED_KEYS
-            .get(i)
-            .and_then(|k| lookup(k))
-            .map(|m| m.label);
-        if let (true, Some(label)) = (odd(i, v, rows) && (q - v).abs() > 0.5, label) {
-            out.push(in_sentence(label));
+        if odd(i, v, rows) && (q - v).abs() > 0.5 {
+            out.push(i);
         }
     }
     Some(out)
 }
 
-/// The sentence for the stand-in rear centre of `rc_mm` that the unusual values `moved` depend
-/// on: " The wheelbase also depends on the stand-in rear centre of 435 mm: enter Chainstay."
-fn depends_on(moved: &[String], rc_mm: f64) -> String {
+/// The labels, in a sentence, of measurements `indices`.
+fn labels_of(indices: &[usize]) -> Vec<String> {
+    let label = |&i: &usize| {
+        MEASURED_KEYS
+            .get(i)
+            .and_then(|k| lookup(k))
+            .map(|m| in_sentence(m.label))
+    };
+    indices.iter().filter_map(label).collect()
+}
+
+/// Whether some fork of most bikes' axle-to-crown (the catalogue's plausible range of
+/// `fork_a2c_mm`, every [`FORK_STEP_MM`] from its low end) in place of the stand-in in `x` would
+/// bring every unusual value it moves (`moved`, indices) inside its range.
+fn a_fork_clears(model: &Model, x: &X, rows: &[Row], moved: &[usize]) -> bool {
+    let Some((lo, hi)) = lookup("fork_a2c_mm").map(|m| m.plausible) else {
+        return false;
+    };
+    let mut tried = *x;
+    let steps = ((hi - lo) / FORK_STEP_MM).floor() as u32;
+    (0..=steps).any(|k| {
+        let Some(slot) = tried.get_mut(ix::A2C) else {
+            return false;
+        };
+        *slot = lo + FORK_STEP_MM * f64::from(k);
+        model.predict(&tried).is_some_and(|p| {
+            moved
+                .iter()
+                .all(|&i| p.get(i).is_some_and(|&v| !odd(i, v, rows)))
+        })
+    })
+}
+
+/// The step between the forks [`a_fork_clears`] tries, mm.
+const FORK_STEP_MM: f64 = 5.0;
+
+/// The sentence for a stand-in `what` of `at_mm` that the unusual values `moved` depend on, and
+/// the field to `enter`: " The wheelbase also depends on the stand-in rear centre of 435 mm:
+/// enter Chainstay."
+fn depends_on(moved: &[String], what: &str, at_mm: f64, enter: &str) -> String {
     let verb = if moved.len() == 1 {
         "depends"
     } else {
         "depend"
     };
     format!(
-        " The {} also {verb} on the stand-in rear centre of {}: enter Chainstay.",
+        " The {} also {verb} on the stand-in {what} of {}: enter {enter}.",
         moved.join(" and "),
-        fmt_measure(rc_mm, crate::catalogue::Unit::Mm)
+        fmt_measure(at_mm, crate::catalogue::Unit::Mm)
     )
 }
