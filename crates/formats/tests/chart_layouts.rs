@@ -1483,3 +1483,28 @@ fn a_ragged_wheel_row_is_cut_one_per_size_or_said_never_copied_to_all() {
     );
     assert_row(&c, "reach_mm", &[430.0, 455.0, 480.0, 505.0]);
 }
+
+#[test]
+fn a_seat_tube_measured_centre_to_centre_is_listed_not_read() {
+    // The seat tube length here runs from the BB centre to the top of the seat tube (DESIGN.md
+    // §5); a centre-to-centre length stops at the top tube's centre, shorter. With both rows the
+    // centre-to-top one is the seat tube, whichever comes first; the other is listed as not
+    // recognised, with a note saying why.
+    let c = chart("30_road_rows_seat_tube_c_c_and_c_t.txt");
+    assert_eq!(labels(&c), ["S", "M", "L"]);
+    assert_row(&c, "seat_tube_mm", &[420.0, 460.0, 500.0]);
+    assert_row(&c, "reach_mm", &[380.0, 390.0, 400.0]);
+    assert_eq!(c.unrecognised, ["Seat tube (c-c)"]);
+    assert!(has_note(&c, "Seat tube (c-c)", "measured centre to centre"));
+    assert!(
+        !c.notes.iter().any(|n| n.message.contains("second row")),
+        "{:#?}",
+        c.notes
+    );
+    // Alone, it gives no seat tube length at all rather than a wrong one.
+    let alone =
+        import_chart("Size\tS\tM\nSeat tube, centre to centre\t400\t440\nReach\t380\t390\n")
+            .unwrap();
+    assert_row(&alone, "seat_tube_mm", &[f64::NAN, f64::NAN]);
+    assert_eq!(alone.unrecognised, ["Seat tube, centre to centre"]);
+}

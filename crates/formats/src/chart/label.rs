@@ -44,6 +44,10 @@ pub enum Kind {
     Part(Part),
     /// A column of row numbers ("#", "No.").
     RowNumber,
+    /// A seat tube measured centre to centre ("Seat tube (c-c)"): to the top tube's centre,
+    /// shorter than the seat tube length the page uses (to the top of the seat tube), so it is
+    /// listed as not recognised, with a note saying why, and never read as the seat tube.
+    SeatTubeToCentre,
     /// Anything else.
     Unknown,
 }
@@ -228,9 +232,37 @@ pub fn classify(raw: &str) -> Label {
     let kind = if trimmed.is_empty() || matches!(trimmed.as_str(), "frame" | "model") {
         Kind::Size
     } else {
-        match_words(&words)
+        match match_words(&words) {
+            Kind::Key("seat_tube_mm") if centre_to_centre(&trimmed) => Kind::SeatTubeToCentre,
+            kind => kind,
+        }
     };
     Label { text, kind, unit }
+}
+
+/// Whether a lower-case label says its length runs centre to centre: "c-c", "c/c", "ctc",
+/// "c-to-c", "cc" as a word, or "centre to centre" / "center-center" in words.
+fn centre_to_centre(label: &str) -> bool {
+    let words: Vec<&str> = label
+        .split(|c: char| c.is_whitespace() || matches!(c, '(' | ')' | '[' | ']' | ',' | ':'))
+        .filter(|w| !w.is_empty())
+        .collect();
+    let mark = |w: &&str| {
+        matches!(
+            *w,
+            "c-c" | "c/c" | "ctc" | "c-t-c" | "c-to-c" | "cc" | "c.c."
+        )
+    };
+    let spelled = label.replace(['-', '/'], " ");
+    let spelled: Vec<&str> = spelled.split_whitespace().collect();
+    let centre = |w: &str| matches!(w, "centre" | "center");
+    words.iter().any(mark)
+        || spelled
+            .windows(2)
+            .any(|p| matches!(p, [a, b] if centre(a) && centre(b)))
+        || spelled
+            .windows(3)
+            .any(|p| matches!(p, [a, "to", b] if centre(a) && centre(b)))
 }
 
 fn collapse(s: &str) -> String {
@@ -500,10 +532,29 @@ mod tests {
             ("Seat tube length (centre to top)", "seat_tube_mm"),
             ("Fork length (A-C)", "fork_a2c_mm"),
             ("TT length (eff)", "top_tube_effective_mm"),
+            ("Seat tube c-t", "seat_tube_mm"),
+            ("Seat tube (centre-top)", "seat_tube_mm"),
         ];
         for (label, want) in cases {
             assert_eq!(key(label), Kind::Key(want), "{label}");
         }
+    }
+
+    #[test]
+    fn a_seat_tube_measured_centre_to_centre_is_not_the_seat_tube() {
+        for label in [
+            "Seat tube c-c",
+            "Seat tube length (c-c)",
+            "ST (c/c)",
+            "Seat tube CTC",
+            "Seat tube, centre to centre",
+            "Seat tube length center-center",
+            "Seat tube cc",
+        ] {
+            assert_eq!(key(label), Kind::SeatTubeToCentre, "{label}");
+        }
+        // Other rows keep their key whatever they say.
+        assert_eq!(key("Chainstay (c-c)"), Kind::Key("chainstay_mm"));
     }
 
     #[test]

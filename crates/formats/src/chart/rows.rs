@@ -70,6 +70,10 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
             Kind::Wheels(slot) => read_wheels(sizes, &row, slot, log),
             Kind::RowNumber => log.note(&row.label.text, "ignored the row numbers".into()),
             Kind::Part(part) => log.note(&row.label.text, part_note(part)),
+            Kind::SeatTubeToCentre => {
+                log.unrecognised.push(shorten(&row.label.text));
+                log.note(&row.label.text, SEAT_TUBE_TO_CENTRE.into());
+            }
             Kind::Size | Kind::Unknown => {
                 let name = if row.label.text.is_empty() {
                     "(a row without a label)".to_string()
@@ -93,6 +97,10 @@ pub(super) fn fill(sizes: &mut [ChartSize], rows: Vec<TableRow>, read: Reading, 
         write_row(sizes, row, global, consensus, log);
     }
 }
+
+/// What a seat tube row measured centre to centre says (`Kind::SeatTubeToCentre`).
+const SEAT_TUBE_TO_CENTRE: &str = "measured centre to centre, to the top tube's centre: shorter \
+     than the seat tube length used here (BB centre to the top of the seat tube), so not read";
 
 /// What a row naming a part the page has an input for says: it is read as that part, is no
 /// frame number, and where the page's input is ("recognised as the stem length, not a frame
