@@ -4,7 +4,7 @@
 
 use crate::layout::Spots;
 use crate::model::Node;
-use crate::place::{width_em, ASCENT_EM, BOX_DESCENT_EM, HALO_MM};
+use crate::place::{width_em, ASCENT_EM, BOX_DESCENT_EM, DESCENT_EM, HALO_MM};
 use crate::shapes::{join, num, text, PathData};
 use framewise_kernel::glossary::short_label;
 use framewise_kernel::report::{Numbers, Xy};
@@ -96,9 +96,12 @@ impl Below {
 
 /// Whether a label `w` mm wide in the largest type fits between the tyres, centred between the
 /// axles with its ink centred on the ground line (the lowest of its spots there): the room
-/// between the tyres' outer edges (stroke and halo included) at the ink's top.
+/// between the tyres' outer edges (stroke and halo included) at the ink's top, half the ink's
+/// height (([`ASCENT_EM`] + [`DESCENT_EM`]) / 2 em) above the ground and its halo more. (It was
+/// half the ascent, 0.375 em: 11 mm low in the largest type, where a wider label then lay on
+/// the rear tyre; seen in 90 mm type.)
 fn fits_between_tyres(o: &Outline, w: f64) -> bool {
-    let top = o.ground_y + ASCENT / 2.0 + HALO_MM;
+    let top = o.ground_y + (ASCENT_EM + DESCENT_EM) / 2.0 * crate::LABEL_EM_MAX_MM + HALO_MM;
     let half = |axle: Xy, r: f64| {
         let (big, dy) = (r + 15.0 + HALO_MM, axle[1] - top);
         if dy >= big {

@@ -453,15 +453,30 @@ fn dim_candidates(o: &Outline, rows: &Below, d: &Dim) -> Vec<Candidate> {
     v
 }
 
+/// How far a slope limit's spots beside its line are also tried higher, mm: three steps of the
+/// [`LABEL_STEP_MM`] grid (with two, the climb of a small rider on a tall frame with small
+/// wheels still lay on the rear tyre, 0.5 mm too low; lower ones as well placed nothing better
+/// in the tests' 270 views, for a third more candidates).
+const NUDGE_MM: f64 = 30.0;
+
 /// The candidates of a slope limit on its tip line from the centre of mass `c` to a contact
-/// under the axle `axle`: beside the line, from its middle outwards; then inside the wheel,
+/// under the axle `axle`: beside the line, from its middle outwards, each also [`NUDGE_MM`]
+/// higher (half a point of stray more); then inside the wheel,
 /// under the hub or over it (the line crosses the wheel on its way to the contact); on the
 /// [`LABEL_STEP_MM`] grid.
 fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
-    let mut v = Vec::with_capacity(128);
+    let mut v = Vec::with_capacity(192);
     let d = [contact[0] - c[0], contact[1] - c[1]];
     for (k, &t) in [0.5, 0.35, 0.65, 0.2, 0.8].iter().enumerate() {
         beside(lerp(c, contact, t), d, 0.5 * k as f64, &mut v);
+    }
+    // Each of those also a little higher: beside a climb's line, the room between the rear
+    // tyre's top and the saddle can be a few millimetres taller than the label.
+    for i in 0..v.len() {
+        if let Some(&c) = v.get(i) {
+            let (x, y) = (c.spot.at[0], c.spot.at[1] + NUDGE_MM);
+            put(&mut v, x, y, c.spot.anchor, c.stray + 0.5);
+        }
     }
     // Inside the wheel, where nothing beside the line is clear: under the hub (and lower, under
     // a chainstay sloping from the hub), or over it; centred on the axle or moved along.
@@ -485,18 +500,21 @@ fn tip_candidates(c: Xy, contact: Xy, axle: Xy) -> Vec<Candidate> {
     v
 }
 
-/// The candidates of the braking limit, written by the centre of mass `c`: right of it and a
-/// little above, else higher or farther right (each millimetre farther a stray of
-/// [`STRAY_PER_MM`]), else left of it, else under it, on the [`LABEL_STEP_MM`] grid.
-fn braking_candidates(c: Xy) -> Vec<Candidate> {
-    let mut v = Vec::with_capacity(128);
+/// The candidates of the braking limit, `width` mm wide, written by the centre of mass `c`:
+/// right of it and a little above, else higher or farther right (each millimetre farther a
+/// stray of [`STRAY_PER_MM`]), else left of it, else under it; and in each row above it, the
+/// spots flush with the view box's edges `view` (a small bike's view box is about twice the
+/// label's width, so that the spots on the 100 mm steps can all run out of it or over the
+/// rider's arm); on the [`LABEL_STEP_MM`] grid.
+fn braking_candidates(c: Xy, view: Rect, width: f64) -> Vec<Candidate> {
+    let mut v = Vec::with_capacity(160);
+    // How far a box's corner `(dx, dy)` from the mark's centre lies from its edge.
+    let stray = |dx: f64, dy: f64, k: f64| STRAY_PER_MM * (dx.hypot(dy) - 30.0) + 0.1 * k;
     for i in 0..5 {
         for j in 0..8 {
             let (fi, fj) = (f64::from(i), f64::from(j));
             let y = c[1] + 30.0 + 50.0 * fj;
-            // How far its box's corner lies from the mark's edge.
-            let far = (40.0 + 100.0 * fi).hypot(30.0 + 50.0 * fj) - 30.0;
-            let s = STRAY_PER_MM * far + 0.1 * (fi + fj);
+            let s = stray(40.0 + 100.0 * fi, 30.0 + 50.0 * fj, fi + fj);
             put(&mut v, c[0] + 40.0 + 100.0 * fi, y, Start, s);
             put(&mut v, c[0] - 40.0 - 100.0 * fi, y, End, s + 1.0);
             if j < 4 {
@@ -506,6 +524,27 @@ fn braking_candidates(c: Xy) -> Vec<Candidate> {
         }
     }
     snap(&mut v);
+    // Flush with the edges, on the grid inside them.
+    let (right, left) = (
+        ((view[2] - width) / LABEL_STEP_MM).floor() * LABEL_STEP_MM,
+        ((view[0] + width) / LABEL_STEP_MM).ceil() * LABEL_STEP_MM,
+    );
+    for j in 0..8 {
+        let fj = f64::from(j);
+        let y = round((c[1] + 30.0 + 50.0 * fj) / LABEL_STEP_MM) * LABEL_STEP_MM;
+        if right > c[0] + 40.0 {
+            put(
+                &mut v,
+                right,
+                y,
+                Start,
+                stray(right - c[0], y - c[1], fj) + 0.5,
+            );
+        }
+        if left < c[0] - 40.0 {
+            put(&mut v, left, y, End, stray(c[0] - left, y - c[1], fj) + 1.5);
+        }
+    }
     v
 }
 
@@ -651,7 +690,8 @@ fn limit_spots(
     let mut s = LimitSpots::default();
     if let Some(b) = limits.braking_g {
         let words = crate::figure::braking_words(b);
-        s.braking = Some(place(board, words, &braking_candidates(c), extra, placed));
+        let candidates = braking_candidates(c, board.view, width_em(&words) * EM);
+        s.braking = Some(place(board, words, &candidates, extra, placed));
     }
     for (deg, contact, axle, front) in [
         (limits.descent_deg, &o.front_contact, &o.front_axle, true),

@@ -492,16 +492,20 @@ fn the_view_box_holds_the_grip_label_of_a_grip_far_forward() {
 /// Source: the demo scenario with its frame, wheels and rider varied about it (reach 400 to 540
 /// mm, stack 580 to 690, 29, 27.5 and 700c wheels, riders 1.60 to 1.95 m): 135 bikes, each in
 /// both postures, in the largest type. No label lies on another or outside the view box, none on
-/// a frame tube, the fork or the headset, in any of them. A tyre only where no spot beside the
-/// line nor inside the wheel is clear: the climb on the tall frame (stack 690) with small wheels
-/// (27.5) for the small rider, whose saddle sits low over the rear wheel (5 of the 270 views);
-/// the rider's limbs where the rider fills the room by the centre of mass (17 of 270, the
-/// braking limit).
+/// a frame tube, the fork, the headset, a tyre, the cockpit, the seatpost, the saddle or a crank
+/// in any of them. The rider's limbs only where the rider fills the room by the centre of mass:
+/// the braking limit on the tallest rider's forearm, standing on the shortest, lowest frame
+/// (reach 400, stack 580), whose view box is 2100 mm wide and the label 973: right of the
+/// upright upper arm it would run 15 mm out of the view box (3 of the 270 views). Before the
+/// braking limit's spots flush with the view box's edges and the slope limits' spots 30 mm
+/// higher (layout.rs), the climb lay on the rear tyre in 5 views and on the seatpost in 4, and a
+/// limit on the rider in 17.
 #[test]
 fn labels_keep_off_the_frame_and_each_other_across_bikes_and_riders() {
     let demo: serde_json::Value =
         serde_json::from_str(include_str!("../../../../tests/scenarios/demo.json")).unwrap();
-    let (mut views, mut on_tyres, mut on_riders) = (0, Vec::new(), 0);
+    let (mut views, mut on_tyres, mut on_riders, mut on_parts) =
+        (0, Vec::new(), Vec::new(), Vec::new());
     for reach in [400, 430, 470, 510, 540] {
         for stack in [580, 635, 690] {
             for wheel in ["29x2.4", "27.5x2.5", "700x32c"] {
@@ -542,7 +546,7 @@ fn labels_keep_off_the_frame_and_each_other_across_bikes_and_riders() {
                                 if part.ends_with("tyre") {
                                     on_tyres.push(format!("{at} on the {part}"));
                                 } else if part.starts_with(posture) {
-                                    on_riders += 1;
+                                    on_riders.push(format!("{at} on the {part}"));
                                 } else {
                                     let frame = [
                                         "chainstay",
@@ -556,6 +560,7 @@ fn labels_keep_off_the_frame_and_each_other_across_bikes_and_riders() {
                                         "fork leg",
                                     ];
                                     assert!(!frame.contains(&part.as_str()), "{at} on the {part}");
+                                    on_parts.push(format!("{at} on the {part}"));
                                 }
                             }
                         }
@@ -565,12 +570,14 @@ fn labels_keep_off_the_frame_and_each_other_across_bikes_and_riders() {
         }
     }
     assert_eq!(views, 270);
+    assert!(on_tyres.is_empty(), "{on_tyres:#?}");
+    assert!(on_parts.is_empty(), "{on_parts:#?}");
     assert!(
-        on_tyres.len() <= 5
-            && on_tyres
-                .iter()
-                .all(|t| t.contains("stack 690, 27.5x2.5, rider 1600") && t.contains("climb")),
-        "{on_tyres:#?}"
+        on_riders.len() <= 3
+            && on_riders.iter().all(|t| {
+                t.starts_with("reach 400, stack 580, ")
+                    && t.contains("rider 1950, standing: standing-braking on the standing forearm")
+            }),
+        "{on_riders:#?}"
     );
-    assert!(on_riders <= 17, "{on_riders} labels on a rider");
 }
