@@ -48,10 +48,11 @@ pub const LABEL_EM_MM: f64 = 61.0;
 /// phone, 86 mm in the 304 px tall drawing of a 568×320 phone held sideways, web/style.css).
 /// Labels are placed for this size ([`layout`]): in smaller type each stays inside its spot, so
 /// they keep off the bike and each other at every size from [`LABEL_EM_MM`] to this one
-/// (tests/labels.rs). A 320 px phone upright draws in a 294 px box: 86 mm is 11.5 px there
+/// (tests/labels.rs). A 320 px phone upright drew in a 294 px box: 86 mm is 11.5 px there
 /// (86 × 294 / 2200), and 12 px would need 90 mm, which does not place cleanly: "descent 36°"
 /// is then 614 mm wide, and the room for it inside a 700c front wheel (under the hub, off the
-/// fork's end and the tyre) or between the tyres (above BB height's label) is about 600 mm.
+/// fork's end and the tyre) or between the tyres (above BB height's label) is about 600 mm. So
+/// the page gives such a phone's drawing its card's whole width instead: 310 px, 12.1 px.
 pub const LABEL_EM_MAX_MM: f64 = 86.0;
 
 /// The handling limits written on the centre-of-mass lines, for one posture.
