@@ -316,7 +316,7 @@ fn the_stand_in_fork_is_not_called_the_cause_when_no_fork_of_most_bikes_would_cl
     //   effective top tube = reach + stack / tan(seat angle) = 680 + 650 / tan 75° = 854.17 mm
     //   (the seat angle's stand-in of 75°, which no fork moves).
     // The shortest fork of most bikes (catalogue fork_a2c_mm: 340 mm) still leaves the front
-    // centre at 680 + 470 cos 61° + 44 sin 61° = 946.35 mm, over 900: the fork moves both
+    // centre at 680 + 470 cos 61° + 44 sin 61° = 946.34 mm, over 900: the fork moves both
     // unusual values but cannot be their cause; the sentence says they depend on it, with its
     // length, as for the rear centre. (Before, any fork that moved them was "the likely cause".)
     let h = 61f64.to_radians();
@@ -326,7 +326,7 @@ fn the_stand_in_fork_is_not_called_the_cause_when_no_fork_of_most_bikes_would_cl
         "{}",
         fc(TRAIL_R + 190.0)
     );
-    assert!((fc(340.0) - 946.35).abs() < 0.01, "{}", fc(340.0));
+    assert!((fc(340.0) - 946.34).abs() < 0.01, "{}", fc(340.0));
     let frame = [
         ("reach_mm", 680.0),
         ("stack_mm", 650.0),
@@ -356,4 +356,54 @@ fn the_stand_in_fork_is_not_called_the_cause_when_no_fork_of_most_bikes_would_cl
     fixed[0] = ("reach_mm", 480.0);
     let sol = run(&fixed, TRAIL_R, Some(2.4 * 25.4));
     assert_eq!(solved_frame_caution(&sol), None);
+}
+
+#[test]
+fn a_fork_that_clears_one_value_only_by_pushing_out_another_is_not_the_cause() {
+    // 29x2.4, head angle 61°, head tube 130, offset 44, reach 546, stack 644, nothing else: the
+    // stand-in fork of 561.96 mm and rear centre of 435 mm. By §8a (equal wheels):
+    //   front centre = 546 + 691.96 cos 61° + 44 sin 61° = 919.95 mm (most bikes: ≤ 900),
+    //   wheelbase = 919.95 + 435 = 1354.95 mm (≤ 1350),
+    //   BB drop = 644 − 691.96 sin 61° + 44 cos 61° = 60.13 mm (−30 to 85: usual).
+    // The front centre comes to 900 mm only with a fork of at most
+    // (900 − 546 − 44 sin 61°) / cos 61° − 130 = 520.8 mm, and at 520 mm the BB drop is
+    // 644 − 650 sin 61° + 44 cos 61° = 96.83 mm, over 85; a shorter fork raises it further.
+    // No fork of most bikes makes this frame usual, so the fork is not "the likely cause".
+    let h = 61f64.to_radians();
+    let fc = |a2c: f64| 546.0 + (130.0 + a2c) * h.cos() + 44.0 * h.sin();
+    let drop = |a2c: f64| 644.0 - (130.0 + a2c) * h.sin() + 44.0 * h.cos();
+    assert!(
+        (fc(TRAIL_R + 190.0) - 919.95).abs() < 0.01,
+        "{}",
+        fc(TRAIL_R + 190.0)
+    );
+    assert!(
+        (drop(TRAIL_R + 190.0) - 60.13).abs() < 0.01,
+        "{}",
+        drop(TRAIL_R + 190.0)
+    );
+    assert!(
+        fc(520.0) < 900.0 && fc(525.0) > 900.0,
+        "{} {}",
+        fc(520.0),
+        fc(525.0)
+    );
+    assert!((drop(520.0) - 96.83).abs() < 0.01, "{}", drop(520.0));
+    let frame = [
+        ("reach_mm", 546.0),
+        ("stack_mm", 644.0),
+        ("head_angle_deg", 61.0),
+        ("head_tube_mm", 130.0),
+        ("fork_offset_mm", 44.0),
+    ];
+    let sol = run(&frame, TRAIL_R, Some(2.4 * 25.4));
+    assert_eq!(
+        solved_frame_caution(&sol),
+        Some(
+            "The solved frame is unusual: front centre 920 mm (most bikes: 550 to 900 mm), \
+             wheelbase 1355 mm (most bikes: 950 to 1350 mm). The front centre and wheelbase also \
+             depend on the stand-in fork axle-to-crown of 562 mm: enter Fork axle-to-crown. The \
+             wheelbase also depends on the stand-in rear centre of 435 mm: enter Chainstay."
+        )
+    );
 }

@@ -9,7 +9,7 @@
 //!
 //! - the stand-in fork as the likely cause when some fork of most bikes' axle-to-crown (340 to
 //!   600 mm, catalogue `fork_a2c_mm`, tried every 5 mm) would bring every unusual value it moves
-//!   back inside its range: it stands for forks across that span, so it alone can put a frame out of
+//!   back inside its range without pushing another out of it: it stands for forks across that span, so it alone can put a frame out of
 //!   range (a 150 mm suspension fork under a low stack puts the BB 115 mm above the axles);
 //!   otherwise (no fork of most bikes would: a misprint, or another stand-in, is the more likely
 //!   cause) the values it moves are said to also depend on it, with its length, as for the rear
@@ -69,9 +69,11 @@ pub fn warning(model: &Model, x: &X, rows: &[Row], pinned: &[usize]) -> Option<W
         if moved.is_empty() {
             continue;
         }
-        let at_mm = x.get(u).copied()?;
+        let Some(at_mm) = x.get(u).copied() else {
+            continue;
+        };
         let labels = labels_of(&moved);
-        if u == ix::A2C && a_fork_clears(model, x, rows, &moved) {
+        if u == ix::A2C && a_fork_clears(model, x, rows, (&predicted, &moved)) {
             msg.push_str(" The stand-in fork is the likely cause: enter Fork axle-to-crown.");
         } else if u == ix::A2C {
             msg.push_str(&depends_on(
@@ -121,22 +123,33 @@ fn labels_of(indices: &[usize]) -> Vec<String> {
 
 /// Whether some fork of most bikes' axle-to-crown (the catalogue's plausible range of
 /// `fork_a2c_mm`, every [`FORK_STEP_MM`] from its low end) in place of the stand-in in `x` would
-/// bring every unusual value it moves (`moved`, indices) inside its range.
-fn a_fork_clears(model: &Model, x: &X, rows: &[Row], moved: &[usize]) -> bool {
+/// leave the frame usual but for what the fork does not move: every value it makes unusual is
+/// one that was already unusual at the stand-in (`predicted`) and that the fork does not move
+/// (`moved`, indices). A fork that brings the front centre into range only by pushing the BB
+/// drop out of it clears nothing.
+fn a_fork_clears(
+    model: &Model,
+    x: &X,
+    rows: &[Row],
+    (predicted, moved): (&[f64; MEASURED_COUNT], &[usize]),
+) -> bool {
     let Some((lo, hi)) = lookup("fork_a2c_mm").map(|m| m.plausible) else {
         return false;
     };
+    if !(lo.is_finite() && hi.is_finite() && lo <= hi) {
+        return false;
+    }
     let mut tried = *x;
-    let steps = ((hi - lo) / FORK_STEP_MM).floor() as u32;
+    let steps = ((hi - lo) / FORK_STEP_MM).floor().min(1000.0) as u32;
     (0..=steps).any(|k| {
         let Some(slot) = tried.get_mut(ix::A2C) else {
             return false;
         };
         *slot = lo + FORK_STEP_MM * f64::from(k);
         model.predict(&tried).is_some_and(|p| {
-            moved
-                .iter()
-                .all(|&i| p.get(i).is_some_and(|&v| !odd(i, v, rows)))
+            p.iter().zip(predicted).enumerate().all(|(i, (&v, &was))| {
+                !odd(i, v, rows) || (odd(i, was, rows) && !moved.contains(&i))
+            })
         })
     })
 }
