@@ -229,40 +229,43 @@ pub fn classify(raw: &str) -> Label {
         };
     }
     let (words, unit) = words_and_unit(&text);
+    let has = |w: &str| words.iter().any(|x| x == w);
     let kind = if trimmed.is_empty() || matches!(trimmed.as_str(), "frame" | "model") {
         Kind::Size
+    } else if has("seat")
+        && has("tube")
+        && !has("angle")
+        && !words.iter().any(|w| BLOCKERS.contains(&w.as_str()))
+        && centre_to_centre(&text)
+    {
+        // Before the other rules: "Seat tube (BB centre to top tube centre)" names a top tube.
+        Kind::SeatTubeToCentre
     } else {
-        match match_words(&words) {
-            Kind::Key("seat_tube_mm") if centre_to_centre(&trimmed) => Kind::SeatTubeToCentre,
-            kind => kind,
-        }
+        match_words(&words)
     };
     Label { text, kind, unit }
 }
 
-/// Whether a lower-case label says its length runs centre to centre: "c-c", "c/c", "ctc",
-/// "c-to-c", "cc" as a word, or "centre to centre" / "center-center" in words.
+/// Whether a label (footnote marks removed) says its length runs centre to centre: a mark
+/// ("c-c", "c–c", "c/c", "c - c", "c.c", "C to C", "ctc", "cc", "c2c") or two centres in words
+/// ("centre-centre", "centre to centre", "BB centre to top tube centre"). Any character not a
+/// letter or digit (brackets, dashes of every kind, slashes, dots) separates words.
 fn centre_to_centre(label: &str) -> bool {
-    let words: Vec<&str> = label
-        .split(|c: char| c.is_whitespace() || matches!(c, '(' | ')' | '[' | ']' | ',' | ':'))
+    let lower = label.to_lowercase();
+    let words: Vec<&str> = lower
+        .split(|c: char| !c.is_alphanumeric())
         .filter(|w| !w.is_empty())
         .collect();
-    let mark = |w: &&str| {
-        matches!(
-            *w,
-            "c-c" | "c/c" | "ctc" | "c-t-c" | "c-to-c" | "cc" | "c.c."
-        )
-    };
-    let spelled = label.replace(['-', '/'], " ");
-    let spelled: Vec<&str> = spelled.split_whitespace().collect();
-    let centre = |w: &str| matches!(w, "centre" | "center");
-    words.iter().any(mark)
-        || spelled
+    let end = |w: &str| matches!(w, "c" | "centre" | "center" | "ctr" | "cntr");
+    let spelled = |w: &str| matches!(w, "centre" | "center" | "ctr" | "cntr");
+    words.iter().any(|w| matches!(*w, "ctc" | "cc" | "c2c"))
+        || words
             .windows(2)
-            .any(|p| matches!(p, [a, b] if centre(a) && centre(b)))
-        || spelled
+            .any(|p| matches!(p, [a, b] if end(a) && end(b)))
+        || words
             .windows(3)
-            .any(|p| matches!(p, [a, "to", b] if centre(a) && centre(b)))
+            .any(|p| matches!(p, [a, "to", b] if end(a) && end(b)))
+        || words.iter().filter(|w| spelled(w)).count() >= 2
 }
 
 fn collapse(s: &str) -> String {
@@ -550,11 +553,38 @@ mod tests {
             "Seat tube, centre to centre",
             "Seat tube length center-center",
             "Seat tube cc",
+            "Seat tube (centre-centre)",
+            "Seat tube length (centre-to-centre)",
+            "Seat tube c–c",
+            "Seat tube c—c",
+            "Seat tube c‑c",
+            "Seat tube c - c",
+            "Seat tube C to C",
+            "Seat tube c-c*",
+            "Seat tube c-c¹",
+            "Seat tube c-c.",
+            "Seat tube c.c",
+            "Seat tube c2c",
+            "Seat tube (BB centre to top tube centre)",
+            "Seat tube (centre to centre of top tube)",
         ] {
             assert_eq!(key(label), Kind::SeatTubeToCentre, "{label}");
         }
-        // Other rows keep their key whatever they say.
+        // Centre to top is the seat tube; other rows keep their key whatever they say.
+        for label in [
+            "Seat tube c-t",
+            "Seat tube (centre to top)",
+            "ST (c/t)",
+            "Seat tube ctt",
+        ] {
+            assert_eq!(key(label), Kind::Key("seat_tube_mm"), "{label}");
+        }
         assert_eq!(key("Chainstay (c-c)"), Kind::Key("chainstay_mm"));
+        assert_eq!(key("Seat tube max insertion (c-c)"), Kind::Unknown);
+        assert_eq!(
+            key("Seat tube angle (c-c)"),
+            Kind::Ambiguous(Ambiguity::SeatAngle)
+        );
     }
 
     #[test]
