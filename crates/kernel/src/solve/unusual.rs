@@ -9,11 +9,11 @@
 //!
 //! - the stand-in fork as the likely cause when some fork of most bikes' axle-to-crown (340 to
 //!   600 mm, catalogue `fork_a2c_mm`, tried every 5 mm) would bring every unusual value it moves
-//!   back inside its range without pushing another out of it: it stands for forks across that span, so it alone can put a frame out of
-//!   range (a 150 mm suspension fork under a low stack puts the BB 115 mm above the axles);
-//!   otherwise (no fork of most bikes would: a misprint, or another stand-in, is the more likely
-//!   cause) the values it moves are said to also depend on it, with its length, as for the rear
-//!   centre;
+//!   back inside its range without pushing another out of it: it stands for forks across that
+//!   span, so it alone can put a frame out of range (a 150 mm suspension fork under a low stack
+//!   puts the BB 115 mm above the axles); otherwise (no fork of most bikes would: a misprint, or
+//!   another stand-in, is the more likely cause) the values it moves are said to also depend on
+//!   it, with its length, as for the rear centre;
 //! - the stand-in rear centre, with its length, as something the values it moves also depend
 //!   on, never as the cause: a stand-in of 415 or 435 mm cannot put them out of range by itself.
 //!   The chainstay `√(rc² + drop²)` stays inside 380–470 mm for any BB drop inside the hard
